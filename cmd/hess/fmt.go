@@ -1,0 +1,70 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"os"
+
+	"hess/lang"
+)
+
+func runFmt(args []string, stdout, stderr io.Writer) int {
+	fs := newFlags("fmt", "fmt [-w] [--check] FILE...",
+		"Print each file in the canonical layout. Every comment is kept, and\n"+
+			"formatting a formatted file changes nothing. A file with syntax errors is\n"+
+			"left alone and its errors reported (exit status 1).", stderr)
+	write := fs.Bool("w", false, "rewrite the files in place (atomically) instead of printing them")
+	check := fs.Bool("check", false, "print nothing but the names of files that would change; exit 1 if any")
+	files, status, ok := parseFlags(fs, args, stdout)
+	if !ok {
+		return status
+	}
+	if len(files) == 0 {
+		fmt.Fprintln(stderr, "hess fmt: no files given")
+		fs.Usage()
+		return exitTrouble
+	}
+	result := exitOK
+	for _, path := range files {
+		src, err := os.ReadFile(path)
+		if err != nil {
+			fmt.Fprintf(stderr, "hess fmt: cannot read %s: %v\n", path, unwrapPathError(err))
+			return exitTrouble
+		}
+		out, diags := lang.FormatSource(path, src)
+		if out == nil {
+			rep := &report{Files: []string{displayName(path)}, Source: func(string) []byte { return src }}
+			for _, d := range diags {
+				rep.Diagnostics = append(rep.Diagnostics, displayDiagnostic(d))
+			}
+			rep.Diagnostics.Sort()
+			if err := renderText(stderr, rep, useColor("auto", stderr)); err != nil {
+				return exitTrouble
+			}
+			result = exitFindings
+			continue
+		}
+		changed := !bytes.Equal(out, src)
+		switch {
+		case *check:
+			if changed {
+				fmt.Fprintln(stdout, displayName(path))
+				result = exitFindings
+			}
+		case *write:
+			if changed {
+				if err := writeFileAtomic(path, out); err != nil {
+					fmt.Fprintf(stderr, "hess fmt: %v\n", err)
+					return exitTrouble
+				}
+			}
+		default:
+			if _, err := stdout.Write(out); err != nil {
+				fmt.Fprintf(stderr, "hess fmt: %v\n", err)
+				return exitTrouble
+			}
+		}
+	}
+	return result
+}

@@ -1,0 +1,330 @@
+package main
+
+import (
+	"crypto/sha256"
+	"encoding/hex"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+
+	"hess/lang"
+	"hess/network"
+)
+
+const (
+	sarifSchema  = "https://json.schemastore.org/sarif-2.1.0.json"
+	sarifVersion = "2.1.0"
+	// sarifRoot names the base that relative artifact URIs resolve against:
+	// the working folder of the run.
+	sarifRoot = "SRCROOT"
+	// lineHashKey is the partial fingerprint code-scanning services match
+	// results by between runs.
+	lineHashKey = "primaryLocationLineHash"
+)
+
+type sarifLog struct {
+	Schema  string     `json:"$schema"`
+	Version string     `json:"version"`
+	Runs    []sarifRun `json:"runs"`
+}
+
+type sarifRun struct {
+	Tool               sarifTool                        `json:"tool"`
+	OriginalURIBaseIDs map[string]sarifArtifactLocation `json:"originalUriBaseIds"`
+	Artifacts          []sarifArtifact                  `json:"artifacts"`
+	ColumnKind         string                           `json:"columnKind"`
+	Results            []sarifResult                    `json:"results"`
+}
+
+type sarifTool struct {
+	Driver sarifDriver `json:"driver"`
+}
+
+type sarifDriver struct {
+	Name    string      `json:"name"`
+	Version string      `json:"version,omitempty"`
+	Rules   []sarifRule `json:"rules"`
+}
+
+type sarifRule struct {
+	ID                   string             `json:"id"`
+	ShortDescription     *sarifMessage      `json:"shortDescription,omitempty"`
+	FullDescription      *sarifMessage      `json:"fullDescription,omitempty"`
+	DefaultConfiguration sarifConfiguration `json:"defaultConfiguration"`
+}
+
+type sarifConfiguration struct {
+	Level string `json:"level"`
+}
+
+type sarifMessage struct {
+	Text string `json:"text"`
+}
+
+type sarifArtifact struct {
+	Location sarifArtifactLocation `json:"location"`
+}
+
+type sarifArtifactLocation struct {
+	URI       string `json:"uri"`
+	URIBaseID string `json:"uriBaseId,omitempty"`
+	Index     *int   `json:"index,omitempty"`
+}
+
+type sarifResult struct {
+	RuleID              string            `json:"ruleId,omitempty"`
+	RuleIndex           *int              `json:"ruleIndex,omitempty"`
+	Level               string            `json:"level"`
+	Message             sarifMessage      `json:"message"`
+	Locations           []sarifLocation   `json:"locations,omitempty"`
+	PartialFingerprints map[string]string `json:"partialFingerprints,omitempty"`
+	RelatedLocations    []sarifLocation   `json:"relatedLocations,omitempty"`
+}
+
+type sarifLocation struct {
+	ID               int                    `json:"id,omitempty"`
+	PhysicalLocation *sarifPhysicalLocation `json:"physicalLocation,omitempty"`
+	Message          *sarifMessage          `json:"message,omitempty"`
+}
+
+type sarifPhysicalLocation struct {
+	ArtifactLocation sarifArtifactLocation `json:"artifactLocation"`
+	Region           *sarifRegion          `json:"region,omitempty"`
+}
+
+// sarifRegion is a source range; EndColumn is exclusive and columns count
+// Unicode code points (the run's columnKind).
+type sarifRegion struct {
+	StartLine   int `json:"startLine"`
+	StartColumn int `json:"startColumn,omitempty"`
+	EndLine     int `json:"endLine,omitempty"`
+	EndColumn   int `json:"endColumn,omitempty"`
+}
+
+// renderSARIF writes the report as a SARIF 2.1.0 log with one run: every
+// check in checks becomes a rule, in order, and every diagnostic a result.
+// Relative file names resolve against the working folder, recorded as the
+// SRCROOT base. A diagnostic whose code is not among the checks still
+// becomes a result, with its ruleId but no ruleIndex; one without a file
+// has no location.
+func renderSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion string) error {
+	wd, err := os.Getwd()
+	if err != nil {
+		return fmt.Errorf("finding the working folder for SARIF: %w", err)
+	}
+	return writeSARIF(w, r, checks, toolVersion, folderURI(wd))
+}
+
+// writeSARIF is renderSARIF with the SRCROOT base URI given.
+func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, rootURI string) error {
+	if r == nil {
+		r = &report{}
+	}
+	run := sarifRun{
+		Tool: sarifTool{Driver: sarifDriver{
+			Name:    "hess",
+			Version: toolVersion,
+			Rules:   []sarifRule{},
+		}},
+		OriginalURIBaseIDs: map[string]sarifArtifactLocation{sarifRoot: {URI: rootURI}},
+		Artifacts:          []sarifArtifact{},
+		ColumnKind:         "unicodeCodePoints",
+		Results:            make([]sarifResult, 0, len(r.Diagnostics)),
+	}
+
+	ruleIndex := map[string]int{}
+	for _, c := range checks {
+		if c == nil {
+			continue
+		}
+		if _, dup := ruleIndex[c.Name]; dup {
+			continue
+		}
+		ruleIndex[c.Name] = len(run.Tool.Driver.Rules)
+		rule := sarifRule{
+			ID:                   c.Name,
+			DefaultConfiguration: sarifConfiguration{Level: sarifLevel(c.Severity)},
+		}
+		if t := c.Title(); t != "" {
+			rule.ShortDescription = &sarifMessage{Text: t}
+		}
+		if e := c.Explanation(); e != "" {
+			rule.FullDescription = &sarifMessage{Text: e}
+		}
+		run.Tool.Driver.Rules = append(run.Tool.Driver.Rules, rule)
+	}
+
+	artifactIndex := map[string]int{}
+	addArtifact := func(file string) int {
+		if i, ok := artifactIndex[file]; ok {
+			return i
+		}
+		i := len(run.Artifacts)
+		artifactIndex[file] = i
+		loc := artifactLocation(file)
+		run.Artifacts = append(run.Artifacts, sarifArtifact{Location: loc})
+		return i
+	}
+	for _, f := range r.Files {
+		addArtifact(f)
+	}
+	physical := func(s lang.Span) *sarifPhysicalLocation {
+		if s.File == "" {
+			return nil
+		}
+		loc := artifactLocation(s.File)
+		i := addArtifact(s.File)
+		loc.Index = &i
+		return &sarifPhysicalLocation{ArtifactLocation: loc, Region: sarifRegionOf(s)}
+	}
+
+	src := newSourceLines(r.Source)
+	seen := map[string]int{} // file and line hash → occurrences so far
+	for _, d := range r.Diagnostics {
+		res := sarifResult{
+			RuleID:  d.Code,
+			Level:   sarifLevel(d.Severity),
+			Message: sarifMessage{Text: sarifMessageText(d)},
+		}
+		if i, ok := ruleIndex[d.Code]; ok {
+			res.RuleIndex = &i
+		}
+		if pl := physical(d.Subject); pl != nil {
+			res.Locations = []sarifLocation{{PhysicalLocation: pl}}
+			h := lineHash(d, src)
+			key := d.Subject.File + "\x00" + h
+			seen[key]++
+			res.PartialFingerprints = map[string]string{lineHashKey: h + ":" + strconv.Itoa(seen[key])}
+		}
+		for i, rel := range d.Related {
+			loc := sarifLocation{ID: i + 1, PhysicalLocation: physical(rel.Span)}
+			if rel.Message != "" {
+				loc.Message = &sarifMessage{Text: rel.Message}
+			}
+			res.RelatedLocations = append(res.RelatedLocations, loc)
+		}
+		run.Results = append(run.Results, res)
+	}
+
+	doc := sarifLog{Schema: sarifSchema, Version: sarifVersion, Runs: []sarifRun{run}}
+	return writeIndentedJSON(w, doc, "SARIF log")
+}
+
+// sarifLevel maps a severity to a SARIF level; off (and an invalid
+// severity) is "none".
+func sarifLevel(s lang.Severity) string {
+	switch s {
+	case lang.Error:
+		return "error"
+	case lang.Warning:
+		return "warning"
+	case lang.Info:
+		return "note"
+	}
+	return "none"
+}
+
+// sarifMessageText is the result message: the diagnostic's message, then
+// its detail on the following line when it has one. SARIF requires text,
+// so an empty message falls back to the code.
+func sarifMessageText(d lang.Diagnostic) string {
+	text := d.Message
+	if text == "" {
+		text = d.Code
+	}
+	if d.Detail != "" {
+		text += "\n" + d.Detail
+	}
+	return text
+}
+
+// sarifRegionOf is the region of s, or nil when s has no position.
+func sarifRegionOf(s lang.Span) *sarifRegion {
+	if !s.IsValid() {
+		return nil
+	}
+	reg := &sarifRegion{StartLine: s.Start.Line}
+	if s.Start.Column < 1 {
+		return reg
+	}
+	end := spanEnd(s)
+	reg.StartColumn = s.Start.Column
+	reg.EndLine = end.Line
+	reg.EndColumn = end.Column
+	return reg
+}
+
+// lineHash fingerprints a diagnostic by its code and the text of its
+// subject's first line with runs of white space collapsed, and not by the
+// line's number, so that it survives edits elsewhere in the file. Where the
+// line is not available the message stands in for it.
+func lineHash(d lang.Diagnostic, src *sourceLines) string {
+	h := sha256.New()
+	h.Write([]byte(d.Code))
+	h.Write([]byte{0})
+	if line, ok := src.line(d.Subject.File, d.Subject.Start.Line); ok {
+		h.Write([]byte("line\x00"))
+		h.Write([]byte(strings.Join(strings.Fields(string(line)), " ")))
+	} else {
+		h.Write([]byte("message\x00"))
+		h.Write([]byte(d.Message))
+	}
+	return hex.EncodeToString(h.Sum(nil)[:8])
+}
+
+// artifactLocation is where SARIF finds a file: a relative name becomes a
+// URI reference against SRCROOT, an absolute one a file URI.
+func artifactLocation(file string) sarifArtifactLocation {
+	if filepath.IsAbs(file) {
+		return sarifArtifactLocation{URI: fileURI(file)}
+	}
+	return sarifArtifactLocation{URI: escapeURIPath(filepath.ToSlash(file)), URIBaseID: sarifRoot}
+}
+
+// folderURI is the file URI of an absolute folder, ending in a slash as a
+// base URI must.
+func folderURI(dir string) string {
+	u := fileURI(dir)
+	if !strings.HasSuffix(u, "/") {
+		u += "/"
+	}
+	return u
+}
+
+// fileURI is the file URI of an absolute path.
+func fileURI(abs string) string {
+	vol := filepath.VolumeName(abs)
+	rest := escapeURIPath(filepath.ToSlash(abs[len(vol):]))
+	if vol != "" {
+		return "file:///" + filepath.ToSlash(vol) + rest
+	}
+	if !strings.HasPrefix(rest, "/") {
+		rest = "/" + rest
+	}
+	return "file://" + rest
+}
+
+// escapeURIPath percent-encodes every byte of a slash-separated path
+// except the unreserved characters of RFC 3986 and the slashes, so that
+// spaces, non-ASCII letters and a colon in the first segment cannot be
+// misread.
+func escapeURIPath(p string) string {
+	const hexDigits = "0123456789ABCDEF"
+	var b strings.Builder
+	for i := 0; i < len(p); i++ {
+		c := p[i]
+		switch {
+		case 'a' <= c && c <= 'z', 'A' <= c && c <= 'Z', '0' <= c && c <= '9',
+			c == '-', c == '.', c == '_', c == '~', c == '/':
+			b.WriteByte(c)
+		default:
+			b.WriteByte('%')
+			b.WriteByte(hexDigits[c>>4])
+			b.WriteByte(hexDigits[c&15])
+		}
+	}
+	return b.String()
+}

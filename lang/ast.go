@@ -1,0 +1,273 @@
+package lang
+
+import "github.com/alecthomas/participle/v2/lexer"
+
+// The syntax tree. Each node is a participle grammar struct; Pos is the
+// position of its first token and Tokens the tokens it spans, from which
+// its exact Span follows (see Node.Span).
+
+// File is one parsed source file.
+type File struct {
+	Name       string
+	Statements []*Statement
+	Comments   []Comment
+}
+
+// Statement is one top-level statement; exactly one field is set on a
+// statement that parsed. A statement that failed to parse keeps what was
+// read of it (Broken is true).
+type Statement struct {
+	Node
+	Include  *Include  `parser:"  @@"`
+	Settings *Settings `parser:"| @@"`
+	Element  *Element  `parser:"| @@"`
+	Phase    *Phase    `parser:"| @@"`
+	Species  *Species  `parser:"| @@"`
+	Reaction *Reaction `parser:"| @@"`
+	Mixture  *Mixture  `parser:"| @@"`
+
+	// Broken reports that the statement did not parse completely.
+	Broken bool
+}
+
+// Node carries a node's position and tokens.
+type Node struct {
+	Pos    lexer.Position
+	Tokens []lexer.Token
+}
+
+// Include is `parser:"include 'path'"`.
+type Include struct {
+	Node
+	Path *Str `parser:"'include' @@"`
+}
+
+// Str is a string literal; Raw keeps the quotes and escapes as written.
+type Str struct {
+	Node
+	Raw string `parser:"@String"`
+}
+
+// Ident is a name: a reaction, mixture, element, phase or check name.
+type Ident struct {
+	Node
+	Name string `parser:"@(Word | Keyword)"`
+}
+
+// Num is a bare number as written.
+type Num struct {
+	Node
+	Text string `parser:"@Number"`
+}
+
+// Quantity is a number with an optional standard uncertainty and unit.
+// Unit is nil where none was written (which is `parser:"missing-unit"` wherever one
+// is required).
+type Quantity struct {
+	Node
+	Value *Num  `parser:"@@"`
+	Sigma *Num  `parser:"( ( '±' | '+-' ) @@ )?"`
+	Unit  *Unit `parser:"@@?"`
+}
+
+// Unit is a unit token such as kJ/mol.
+type Unit struct {
+	Node
+	Text string `parser:"@Word"`
+}
+
+// Settings is the `parser:"settings { … }"` block.
+type Settings struct {
+	Node
+	Items []*Setting `parser:"'settings' '{' @@* '}'"`
+}
+
+// Setting is one key of a settings block.
+type Setting struct {
+	Node
+	Pressure     *Quantity  `parser:"  'pressure' @@"`
+	Temperatures []*TempSet `parser:"| 'temperatures' @@ ( ',' @@ )*"`
+	Tolerance    *Quantity  `parser:"| 'tolerance' @@"`
+	Lint         *Lint      `parser:"| 'lint' @@"`
+}
+
+// TempSet is one item of a temperature list: a single temperature, or a
+// range From to To by By.
+type TempSet struct {
+	Node
+	From *Quantity `parser:"@@"`
+	To   *Quantity `parser:"( 'to' @@"`
+	By   *Quantity `parser:"  'by' @@ )?"`
+}
+
+// Lint changes the severity of one check.
+type Lint struct {
+	Node
+	Check *Ident `parser:"@@"`
+	Level *Ident `parser:"@@"`
+}
+
+// Element declares an element beyond the built-in table.
+type Element struct {
+	Node
+	Symbol *Ident    `parser:"'element' @@ '{'"`
+	Mass   *Quantity `parser:"( 'mass' @@ )? '}'"`
+}
+
+// Phase declares a state tag and its activity convention.
+type Phase struct {
+	Node
+	Name       *Ident `parser:"'phase' @@ '{'"`
+	Convention *Ident `parser:"( 'convention' @@ )? '}'"`
+}
+
+// SpeciesRef is a species reference as written, e.g. Ca(OH)2(s).
+type SpeciesRef struct {
+	Node
+	Text string `parser:"@(Ref | Word | Keyword)"`
+}
+
+// Species declares one species with its data, or several without data.
+type Species struct {
+	Node
+	Refs    []*SpeciesRef      `parser:"'species' @@ ( ',' @@ )*"`
+	Label   *Str               `parser:"@@?"`
+	HasBody bool               `parser:"( @'{'"`
+	Props   []*SpeciesProperty `parser:"  @@* '}' )?"`
+}
+
+// SpeciesProperty is one property of a species block.
+type SpeciesProperty struct {
+	Node
+	Formula *FormulaProp  `parser:"  @@"`
+	Value   *SpeciesValue `parser:"| @@"`
+	Poly    *Polynomial   `parser:"| @@"`
+	Text    *TextProp     `parser:"| @@"`
+}
+
+// FormulaProp is `parser:"formula C3H7"`.
+type FormulaProp struct {
+	Node
+	Formula *SpeciesRef `parser:"'formula' @@"`
+}
+
+// SpeciesValue is one of hf, gf, s, cp with its quantity.
+type SpeciesValue struct {
+	Node
+	Key   string    `parser:"@( 'hf' | 'gf' | 's' | 'cp' )"`
+	Value *Quantity `parser:"@@"`
+}
+
+// Polynomial is a shomate or nasa7 range with its coefficients.
+type Polynomial struct {
+	Node
+	Kind   string    `parser:"@( 'shomate' | 'nasa7' )"`
+	From   *Quantity `parser:"@@ 'to'"`
+	To     *Quantity `parser:"@@ '{'"`
+	Coeffs []*Num    `parser:"@@* '}'"`
+}
+
+// TextProp is `parser:"source '…'"` or `parser:"note '…'"`.
+type TextProp struct {
+	Node
+	Key  string `parser:"@( 'source' | 'note' )"`
+	Text *Str   `parser:"@@"`
+}
+
+// Reaction is one reaction statement.
+type Reaction struct {
+	Node
+	Name    *Ident              `parser:"'reaction' @@ ':'"`
+	Left    []*Term             `parser:"@@ ( '+' @@ )*"`
+	Arrow   *Arrow              `parser:"@@"`
+	Right   []*Term             `parser:"@@ ( '+' @@ )*"`
+	Combo   *Combination        `parser:"( '=' @@ )?"`
+	HasBody bool                `parser:"( @'{'"`
+	Props   []*ReactionProperty `parser:"  @@* '}' )?"`
+}
+
+// Arrow is <-> (or ⇌) for a two-way reaction, -> (or →) for a one-way step.
+type Arrow struct {
+	Node
+	Text string `parser:"@( '<->' | '⇌' | '->' | '→' )"`
+}
+
+// TwoWay reports whether the arrow is an equilibrium arrow.
+func (a *Arrow) TwoWay() bool { return a.Text == "<->" || a.Text == "⇌" }
+
+// Term is a coefficient and a species on one side of a reaction.
+type Term struct {
+	Node
+	Coef    *Num        `parser:"@@?"`
+	Species *SpeciesRef `parser:"@@"`
+}
+
+// Combination is the weighted sum of reactions a coupled reaction claims
+// to be. Every term after the first carries a sign.
+type Combination struct {
+	Node
+	Terms []*ComboTerm `parser:"@@ ( (?= '+' | '-' ) @@ )*"`
+}
+
+// ComboTerm is one signed, weighted reaction name in a combination.
+type ComboTerm struct {
+	Node
+	Sign string `parser:"@( '+' | '-' )?"`
+	Coef *Num   `parser:"@@?"`
+	Name *Ident `parser:"@@"`
+}
+
+// ReactionProperty is one property of a reaction block.
+type ReactionProperty struct {
+	Node
+	Value *ReactionValue `parser:"  @@"`
+	LogK  *LogK          `parser:"| @@"`
+	Rate  *Rate          `parser:"| @@"`
+	Text  *TextProp      `parser:"| @@"`
+}
+
+// ReactionValue is one of dg, dh, ds with its quantity.
+type ReactionValue struct {
+	Node
+	Key   string    `parser:"@( 'dg' | 'dh' | 'ds' )"`
+	Value *Quantity `parser:"@@"`
+}
+
+// LogK is `parser:"logk V [± U] [at T]"`.
+type LogK struct {
+	Node
+	Value *Num      `parser:"'logk' @@"`
+	Sigma *Num      `parser:"( ( '±' | '+-' ) @@ )?"`
+	At    *Quantity `parser:"( 'at' @@ )?"`
+}
+
+// Rate is a forward (`parser:"rate"`) or reverse (`parser:"reverse"`) modified Arrhenius rate.
+type Rate struct {
+	Node
+	Kind string    `parser:"@( 'rate' | 'reverse' )"`
+	A    *Quantity `parser:"'A' @@"`
+	N    *Num      `parser:"( 'n' @@ )?"`
+	Ea   *Quantity `parser:"'Ea' @@"`
+}
+
+// Mixture is a named composition at a temperature and pressure.
+type Mixture struct {
+	Node
+	Name  *Ident     `parser:"'mixture' @@ '{'"`
+	Items []*MixItem `parser:"@@* '}'"`
+}
+
+// MixItem is one line of a mixture.
+type MixItem struct {
+	Node
+	Temperature *Quantity  `parser:"  'temperature' @@"`
+	Pressure    *Quantity  `parser:"| 'pressure' @@"`
+	Member      *MixMember `parser:"| @@"`
+}
+
+// MixMember is a species with an optional amount.
+type MixMember struct {
+	Node
+	Species *SpeciesRef `parser:"@@"`
+	Amount  *Quantity   `parser:"@@?"`
+}

@@ -1,0 +1,77 @@
+package lang
+
+import (
+	"sort"
+
+	"github.com/alecthomas/participle/v2/lexer"
+)
+
+// Token types produced by the lexer. Every token is on one line; its Value
+// is the exact source text, so its end follows from its start and Value.
+const (
+	// Word is any other run of non-space characters: identifiers, formulas
+	// without a state tag, units.
+	Word lexer.TokenType = -(iota + 2)
+	// Ref is a word that ends in a lower-case state tag, such as CO2(g).
+	Ref
+	// Keyword is a reserved word of the language (statement and property keys).
+	Keyword
+	// Number is a decimal or scientific number with optional sign, or a
+	// fraction p/q.
+	Number
+	// String is a double-quoted string, quotes included.
+	String
+	// Punct is one of { } : , = ± +- + - <-> -> ⇌ →.
+	Punct
+)
+
+func symbols() map[string]lexer.TokenType {
+	return map[string]lexer.TokenType{
+		"EOF":     lexer.EOF,
+		"Word":    Word,
+		"Ref":     Ref,
+		"Keyword": Keyword,
+		"Number":  Number,
+		"String":  String,
+		"Punct":   Punct,
+	}
+}
+
+// statementKeywords start a top-level statement; the parser resumes at them
+// after a syntax error.
+var statementKeywords = map[string]bool{
+	"include": true, "settings": true, "element": true, "phase": true,
+	"species": true, "reaction": true, "mixture": true,
+}
+
+// keywords are reserved: a keyword is never read as a unit.
+var keywords = map[string]bool{
+	"include": true, "settings": true, "element": true, "phase": true,
+	"species": true, "reaction": true, "mixture": true,
+	// settings
+	"pressure": true, "temperatures": true, "tolerance": true, "lint": true,
+	"to": true, "by": true,
+	// element and phase
+	"mass": true, "convention": true,
+	// species
+	"formula": true, "hf": true, "gf": true, "s": true, "cp": true,
+	"shomate": true, "nasa7": true, "source": true, "note": true,
+	// reaction
+	"dg": true, "dh": true, "ds": true, "logk": true, "at": true,
+	"rate": true, "reverse": true, "A": true, "n": true, "Ea": true,
+	// mixture
+	"temperature": true,
+}
+
+// IsKeyword reports whether w is a reserved word of the language.
+func IsKeyword(w string) bool { return keywords[w] }
+
+// Keywords lists the reserved words, for completion.
+func Keywords() []string {
+	out := make([]string, 0, len(keywords))
+	for k := range keywords {
+		out = append(out, k)
+	}
+	sort.Strings(out)
+	return out
+}

@@ -1,0 +1,98 @@
+package network
+
+import (
+	"fmt"
+
+	"hess/lang"
+)
+
+// Pass is what a check's Run sees: the compiled network and a way to report.
+type Pass struct {
+	Net   *Network
+	check *Check
+}
+
+// Report records a finding of the running check. Its code is the check's
+// name; its severity is set from the check and the network's lint settings.
+func (p *Pass) Report(d lang.Diagnostic) {
+	d.Code = p.check.Name
+	p.Net.Diagnostics = append(p.Net.Diagnostics, d)
+}
+
+// Reportf records a finding at span with a formatted message.
+func (p *Pass) Reportf(span lang.Span, format string, args ...any) {
+	p.Report(lang.Diagnostic{Subject: span, Message: fmt.Sprintf(format, args...)})
+}
+
+// checks is the ordered registry. Adding a check is one file and one line here.
+var checks = []*Check{
+	syntaxCheck,
+	includeMissingCheck,
+	includeCycleCheck,
+	misplacedSettingsCheck,
+	unknownElementCheck,
+	badFormulaCheck,
+	unknownPhaseCheck,
+	duplicateSpeciesCheck,
+	duplicateReactionNameCheck,
+	undefinedSpeciesCheck,
+	undefinedReactionCheck,
+	missingUnitCheck,
+	unitMismatchCheck,
+	elementImbalanceCheck,
+	chargeImbalanceCheck,
+	implausibleValueCheck,
+	duplicateReactionCheck,
+	unusedSpeciesCheck,
+}
+
+var checkByName = func() map[string]*Check {
+	m := make(map[string]*Check, len(checks))
+	for _, c := range checks {
+		m[c.Name] = c
+	}
+	return m
+}()
+
+// Checks returns every registered check, in registry order.
+func Checks() []*Check { return append([]*Check(nil), checks...) }
+
+// LookupCheck finds a check by name (its diagnostic code), or returns nil.
+func LookupCheck(name string) *Check { return checkByName[name] }
+
+func runChecks(n *Network) {
+	for _, c := range checks {
+		if c.Run == nil {
+			continue
+		}
+		if sev, ok := n.Settings.Lint[c.Name]; ok && sev == lang.Off {
+			continue
+		}
+		c.Run(&Pass{Net: n, check: c})
+	}
+}
+
+// finalize sets every diagnostic's severity from its check and the lint
+// settings, drops those turned off, and sorts the rest.
+func finalize(n *Network) {
+	out := n.Diagnostics[:0]
+	for _, d := range n.Diagnostics {
+		c := checkByName[d.Code]
+		if d.Severity == lang.SeverityInvalid {
+			if c != nil {
+				d.Severity = c.Severity
+			} else {
+				d.Severity = lang.Error
+			}
+		}
+		if sev, ok := n.Settings.Lint[d.Code]; ok && d.Severity != lang.Info {
+			d.Severity = sev
+		}
+		if d.Severity == lang.Off {
+			continue
+		}
+		out = append(out, d)
+	}
+	n.Diagnostics = out
+	n.Diagnostics.Sort()
+}

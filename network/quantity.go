@@ -1,0 +1,120 @@
+package network
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"strconv"
+	"strings"
+
+	"hess/lang"
+	"hess/thermo"
+)
+
+// quantityKind is what a property expects: a dimension, its name in
+// messages and an example unit.
+type quantityKind struct {
+	name    string
+	dim     thermo.Dim
+	example string
+}
+
+var (
+	energyKind      = quantityKind{"energy per mole", thermo.DimEnergyPerMole, "kJ/mol"}
+	entropyKind     = quantityKind{"entropy or heat capacity", thermo.DimEntropy, "J/mol/K"}
+	temperatureKind = quantityKind{"temperature", thermo.DimTemperature, "K"}
+	pressureKind    = quantityKind{"pressure", thermo.DimPressure, "bar"}
+	molarMassKind   = quantityKind{"molar mass", thermo.DimMolarMass, "g/mol"}
+)
+
+// parseNumber reads a number token: a decimal, scientific, or p/q fraction.
+func parseNumber(text string) (float64, error) {
+	if p, q, ok := strings.Cut(text, "/"); ok {
+		num, err1 := strconv.ParseFloat(p, 64)
+		den, err2 := strconv.ParseFloat(q, 64)
+		if err1 != nil || err2 != nil || den == 0 {
+			return 0, fmt.Errorf("%s is not a number", text)
+		}
+		return num / den, nil
+	}
+	v, err := strconv.ParseFloat(text, 64)
+	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+		return 0, fmt.Errorf("number %s is out of range", text)
+	}
+	return v, nil
+}
+
+// parseRat reads a coefficient exactly: an integer, a decimal or p/q.
+func parseRat(text string) (*big.Rat, error) {
+	if len(text) > 64 {
+		return nil, fmt.Errorf("coefficient %s is too long", text)
+	}
+	if strings.ContainsAny(text, "eE") {
+		return nil, fmt.Errorf("coefficient %s: write it as an integer, a decimal or a fraction p/q", text)
+	}
+	r, ok := new(big.Rat).SetString(text)
+	if !ok {
+		return nil, fmt.Errorf("%s is not a coefficient", text)
+	}
+	return r, nil
+}
+
+// number converts a bare number node, reporting a syntax error when it is
+// out of range.
+func (c *compiler) number(num *lang.Num) (float64, bool) {
+	if num == nil {
+		return 0, false
+	}
+	v, err := parseNumber(num.Text)
+	if err != nil {
+		c.report("syntax", num.Span(), "%v", err)
+		return 0, false
+	}
+	return v, true
+}
+
+// quantity converts q to SI for a property that expects kind. what names
+// the property in messages. A temperature difference (a step) passes
+// difference=true so that °C converts by scale only.
+func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, difference bool) (*Value, bool) {
+	if q == nil || q.Value == nil {
+		return nil, false
+	}
+	v, ok := c.number(q.Value)
+	if !ok {
+		return nil, false
+	}
+	var sigma float64
+	if q.Sigma != nil {
+		s, ok := c.number(q.Sigma)
+		if !ok {
+			return nil, false
+		}
+		if s < 0 {
+			c.report("syntax", q.Sigma.Span(), "an uncertainty cannot be negative, found %s", q.Sigma.Text)
+			return nil, false
+		}
+		sigma = s
+	}
+	if q.Unit == nil {
+		c.report("missing-unit", q.Value.Span(), "%s needs a unit of %s, such as %s", what, kind.name, kind.example)
+		return nil, false
+	}
+	u, err := thermo.ParseUnit(q.Unit.Text)
+	if err != nil {
+		c.report("unit-mismatch", q.Unit.Span(), "%s: %v", q.Unit.Text, err)
+		return nil, false
+	}
+	if u.Dim != kind.dim {
+		c.report("unit-mismatch", q.Unit.Span(), "%s takes %s (such as %s), found %s (%s)",
+			what, kind.name, kind.example, q.Unit.Text, thermo.DimName(u.Dim))
+		return nil, false
+	}
+	out := &Value{Sigma: sigma * u.Scale, Span: q.Span()}
+	if difference {
+		out.V = v * u.Scale
+	} else {
+		out.V = u.ToSI(v)
+	}
+	return out, true
+}
