@@ -15,12 +15,10 @@ var elementImbalanceCheck = &Check{
 For every element, the count on the left (each species' formula times its
 coefficient) must equal the count on the right. Coefficients are exact
 fractions, so 1/2 O2 balances exactly. The message lists each unbalanced
-element with its left and right counts. A reaction with an abstract species
-(a bare species whose name is no formula, as in kinetics-only schemes) is
-not checked for elements, only for charge.`,
+element with its left and right counts.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
-			if !rx.Resolved || hasAbstract(rx) {
+			if !rx.Resolved {
 				continue
 			}
 			left, right := elementCounts(rx.Left), elementCounts(rx.Right)
@@ -117,16 +115,4 @@ func chargeText(r *big.Rat) string {
 		s = "+" + s
 	}
 	return s
-}
-
-// hasAbstract reports whether a reaction has a species of unknown composition.
-func hasAbstract(rx *Reaction) bool {
-	for _, side := range [][]Term{rx.Left, rx.Right} {
-		for _, t := range side {
-			if t.Species.Abstract {
-				return true
-			}
-		}
-	}
-	return false
 }

@@ -41,6 +41,6 @@ are common practice, wide enough for large minerals.`,
 
 // Bounds for implausible-value (common practice, not physical limits).
 const (
-	maxFormationEnergy = 5e7 // J/mol
-	maxEntropy         = 5000
+	maxFormationEnergy = 5e7    // J/mol
+	maxEntropy         = 5000.0 // J/mol/K
 )

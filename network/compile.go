@@ -53,11 +53,11 @@ func compile(n *Network) {
 		case st.Settings != nil:
 			s := st.Settings
 			switch {
+			case s.Pos.Filename != n.Root:
+				c.report("misplaced-settings", keywordSpan(&s.Node), "settings belong in the root file %s, not in an included file", n.Root)
 			case settingsSeen != nil:
 				d := c.report("misplaced-settings", keywordSpan(&s.Node), "a network has one settings block; this is a second one")
 				d.Related = []lang.Related{{Span: keywordSpan(&settingsSeen.Node), Message: "first settings block"}}
-			case s.Pos.Filename != n.Root:
-				c.report("misplaced-settings", keywordSpan(&s.Node), "settings belong in the root file %s, not in an included file", n.Root)
 			default:
 				settingsSeen = s
 				if !st.Broken {
@@ -381,11 +381,8 @@ func (c *compiler) species(s *lang.Species, broken bool) {
 		}
 		formulaText, formulaSpan = c.properties(sp, s.Props)
 	}
-	// A bare species (no data block) whose name is not a formula is an
-	// abstract species of a kinetic scheme: its composition is unknown.
-	abstract := !s.HasBody
 	for _, sp := range declared {
-		c.formula(sp, formulaText, formulaSpan, abstract)
+		c.formula(sp, formulaText, formulaSpan)
 	}
 }
 
@@ -474,7 +471,7 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 
 // formula parses the species' formula: the explicit one if given, else
 // the base of its reference.
-func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span, abstract bool) {
+func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span) {
 	if sp.Parts.Electron && explicit == "" {
 		sp.HasFormula = true
 		return
@@ -489,19 +486,11 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span,
 		text, span = explicit, explicitSpan
 	}
 	f, ferr := ParseFormula(text, c.net.Elements)
-	if ferr != nil && abstract && explicit == "" {
-		d := c.report("bad-formula", sp.Span, "%s is not a formula, so reactions with %s are not checked for element balance; give it one with `formula` if it has one", text, sp.Key)
-		d.Severity = lang.Info
-		sp.Abstract = true
-		return
-	}
 	if ferr != nil {
 		sub := subSpan(span, text, offset+ferr.Offset, offset+ferr.End)
 		msg := ferr.Message
-		if explicit == "" && ferr.Code == "unknown-element" || explicit == "" && ferr.Code == "bad-formula" {
-			if strings.ToLower(text[:1]) == text[:1] {
-				msg += "; a species whose name is not a formula declares one with `formula`"
-			}
+		if explicit == "" && (ferr.Code == "unknown-element" || strings.ToLower(text[:1]) == text[:1]) {
+			msg += "; a species whose name is not a formula declares one with `formula`"
 		}
 		c.report(ferr.Code, sub, "%s", msg)
 		return
@@ -538,21 +527,24 @@ func (c *compiler) reaction(r *lang.Reaction, broken bool) {
 	}
 	validName := c.name(r.Name, "reaction")
 	rx := &Reaction{Name: r.Name.Name, NameSpan: r.Name.Span(), Span: r.Span()}
+	complete := !broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
+	if complete {
+		rx.TwoWay = r.Arrow.TwoWay()
+		rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
+		rx.Resolved = true
+		rx.Left, rx.Resolved = c.side(r.Left, rx.Resolved)
+		rx.Right, rx.Resolved = c.side(r.Right, rx.Resolved)
+	}
 	if old, dup := c.net.reactionByName[rx.Name]; dup {
 		d := c.report("duplicate-reaction-name", rx.NameSpan, "reaction name %s is used twice", rx.Name)
 		d.Related = []lang.Related{{Span: old.NameSpan, Message: "first used here"}}
 		return
 	}
 	c.net.reactionByName[rx.Name] = rx
-	if broken || !validName || r.Arrow == nil || len(r.Left) == 0 || len(r.Right) == 0 {
+	if !complete {
 		return
 	}
 	c.net.Reactions = append(c.net.Reactions, rx)
-	rx.TwoWay = r.Arrow.TwoWay()
-	rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
-	rx.Resolved = true
-	rx.Left, rx.Resolved = c.side(r.Left, rx.Resolved)
-	rx.Right, rx.Resolved = c.side(r.Right, rx.Resolved)
 	c.reactionProperties(rx, r.Props)
 }
 
@@ -580,7 +572,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 		} else {
 			sp.Used = true
 			term.Species = sp
-			if !sp.HasFormula && !sp.Abstract {
+			if !sp.HasFormula {
 				resolved = false
 			}
 		}

@@ -111,7 +111,6 @@ type Species struct {
 	Label      string
 	Formula    Formula
 	HasFormula bool // the formula parsed
-	Abstract   bool // a bare species whose name is not a formula: composition unknown
 	Charge     int
 	Phase      *Phase // nil when untagged or the tag is unknown
 
