@@ -139,8 +139,8 @@ func (p *formulaParser) parse() (Formula, *FormulaError) {
 			}
 			top := stack[len(stack)-1]
 			if closer(top.open) != c {
-				return Formula{}, badFormula(at, at+1, fmt.Sprintf("%q does not close %q opened at column %d",
-					string(c), string(top.open), p.column(top.at)))
+				return Formula{}, badFormula(at, at+1, fmt.Sprintf("%q does not close %q%s",
+					string(c), string(top.open), p.after(top.at)))
 			}
 			if len(entries) == top.start {
 				return Formula{}, badFormula(top.at, at+1, "empty group")
@@ -185,7 +185,7 @@ func (p *formulaParser) parse() (Formula, *FormulaError) {
 	if len(stack) > 1 {
 		top := stack[len(stack)-1]
 		return Formula{}, badFormula(top.at, len(s),
-			fmt.Sprintf("unclosed %q opened at column %d", string(top.open), p.column(top.at)))
+			fmt.Sprintf("unclosed %q%s", string(top.open), p.after(top.at)))
 	}
 	if len(entries) == stack[0].start {
 		// Only an adduct separator can leave the part empty here.
@@ -350,8 +350,13 @@ func clip(text string) string {
 }
 
 // column is the 1-based column, in runes, of byte offset at.
-func (p *formulaParser) column(at int) int {
-	return utf8.RuneCountInString(p.s[:at]) + 1
+// after names what precedes byte at, for messages: ` after "Ca"`, or
+// nothing at the start of the formula.
+func (p *formulaParser) after(at int) string {
+	if at == 0 {
+		return " at the start"
+	}
+	return fmt.Sprintf(" after %q", p.s[:at])
 }
 
 func closer(open byte) byte {
