@@ -1,3 +1,7 @@
+// Package lang reads and prints network files (.hess): the lexer, the
+// grammar and its syntax tree with exact source spans, the parser that
+// recovers after syntax errors, the canonical formatter, and the Diagnostic
+// and Span types every other package reports with.
 package lang
 
 import "github.com/alecthomas/participle/v2/lexer"
@@ -36,7 +40,7 @@ type Node struct {
 	Tokens []lexer.Token
 }
 
-// Include is `parser:"include 'path'"`.
+// Include is `include "path"`: another file's statements pulled in.
 type Include struct {
 	Node
 	Path *Str `parser:"'include' @@"`
@@ -61,7 +65,7 @@ type Num struct {
 }
 
 // Quantity is a number with an optional standard uncertainty and unit.
-// Unit is nil where none was written (which is `parser:"missing-unit"` wherever one
+// Unit is nil where none was written (which is `missing-unit` wherever one
 // is required).
 type Quantity struct {
 	Node
@@ -76,7 +80,7 @@ type Unit struct {
 	Text string `parser:"@Word"`
 }
 
-// Settings is the `parser:"settings { … }"` block.
+// Settings is the `settings { … }` block.
 type Settings struct {
 	Node
 	Items []*Setting `parser:"'settings' '{' @@* '}'"`
@@ -145,7 +149,8 @@ type SpeciesProperty struct {
 	Text    *TextProp     `parser:"| @@"`
 }
 
-// FormulaProp is `parser:"formula C3H7"`.
+// FormulaProp is `formula C3H7`: the formula of a species whose name is
+// not one.
 type FormulaProp struct {
 	Node
 	Formula *SpeciesRef `parser:"'formula' @@"`
@@ -167,7 +172,7 @@ type Polynomial struct {
 	Coeffs []*Num    `parser:"@@* '}'"`
 }
 
-// TextProp is `parser:"source '…'"` or `parser:"note '…'"`.
+// TextProp is `source "…"` or `note "…"`.
 type TextProp struct {
 	Node
 	Key  string `parser:"@( 'source' | 'note' )"`
@@ -233,7 +238,8 @@ type ReactionValue struct {
 	Value *Quantity `parser:"@@"`
 }
 
-// LogK is `parser:"logk V [± U] [at T]"`.
+// LogK is `logk V [± U] [at T]`: a measured log10 K, at 298.15 K unless
+// At is set.
 type LogK struct {
 	Node
 	Value *Num      `parser:"'logk' @@"`
@@ -241,7 +247,8 @@ type LogK struct {
 	At    *Quantity `parser:"( 'at' @@ )?"`
 }
 
-// Rate is a forward (`parser:"rate"`) or reverse (`parser:"reverse"`) modified Arrhenius rate.
+// Rate is a forward (`rate`) or reverse (`reverse`) modified Arrhenius
+// rate.
 type Rate struct {
 	Node
 	Kind string    `parser:"@( 'rate' | 'reverse' )"`

@@ -2,6 +2,7 @@ package lang
 
 import (
 	"fmt"
+	"strings"
 	"unicode/utf8"
 
 	"github.com/alecthomas/participle/v2/lexer"
@@ -36,10 +37,17 @@ type lexState struct {
 	toks     []lexer.Token
 	comments []Comment
 	diags    Diagnostics
+	badRuns  int // runs of invalid characters seen
 }
 
 func newLexState(file string, src []byte) *lexState {
-	return &lexState{file: file, src: src, str: string(src), line: 1, col: 1}
+	l := &lexState{file: file, src: src, str: string(src), line: 1, col: 1}
+	if len(src) >= 3 && src[0] == 0xef && src[1] == 0xbb && src[2] == 0xbf {
+		// A byte order mark some editors write is not part of the text;
+		// columns count from after it.
+		l.off = 3
+	}
+	return l
 }
 
 func (l *lexState) position() lexer.Position {
@@ -113,13 +121,9 @@ func (l *lexState) more() bool {
 			r, size := utf8.DecodeRune(l.src[l.off:])
 			switch {
 			case r == utf8.RuneError && size <= 1:
-				start := l.pos()
-				l.advance(1)
-				l.errorf(start, "invalid UTF-8 byte 0x%02x", c)
+				l.badRun(isInvalidAt, "invalid UTF-8 byte", "invalid UTF-8 bytes", fmt.Sprintf("0x%02x", c))
 			case isControl(r):
-				start := l.pos()
-				l.advance(1)
-				l.errorf(start, "invalid control character U+%04X", r)
+				l.badRun(isControlAt, "invalid control character", "invalid control characters", fmt.Sprintf("U+%04X", r))
 			case isDelimiter(r):
 				l.emit(Punct, size)
 			default:
@@ -128,6 +132,41 @@ func (l *lexState) more() bool {
 		}
 	}
 	return len(l.toks) > n || l.off < len(l.src)
+}
+
+// maxLexDiagnostics caps the runs of invalid characters the lexer reports
+// for one file, so a binary file does not bury the reader.
+const maxLexDiagnostics = 100
+
+func isInvalidAt(b []byte) bool {
+	r, size := utf8.DecodeRune(b)
+	return r == utf8.RuneError && size <= 1
+}
+
+func isControlAt(b []byte) bool {
+	return b[0] < utf8.RuneSelf && isControl(rune(b[0])) && !isSpace(b[0])
+}
+
+// badRun skips a run of bytes for which bad holds (each one byte long) and
+// reports it once: one and many name the kind, first is the run's first byte.
+func (l *lexState) badRun(bad func([]byte) bool, one, many, first string) {
+	start := l.pos()
+	n := 0
+	for l.off+n < len(l.src) && bad(l.src[l.off+n:]) {
+		n++
+	}
+	l.advance(n)
+	l.badRuns++
+	switch {
+	case l.badRuns > maxLexDiagnostics:
+		return
+	case l.badRuns == maxLexDiagnostics:
+		l.errorf(start, "too many invalid characters; no more are reported in this file")
+	case n == 1:
+		l.errorf(start, "%s %s", one, first)
+	default:
+		l.errorf(start, "%d %s starting with %s", n, many, first)
+	}
 }
 
 func (l *lexState) emit(typ lexer.TokenType, n int) {
@@ -238,12 +277,23 @@ func (l *lexState) word() {
 		end += size
 	}
 	w := l.str[l.off:end]
-	// A number that runs into letters is two tokens: `298.15K`, `2H2O(g)`.
-	if n := numberPrefix(w); n > 0 && n < len(w) && startsLetter(w[n:]) {
-		l.emit(Number, n)
-		w = w[n:]
+	for {
+		// ASCII `+-` touching a number is an uncertainty sign, like `±`:
+		// `1+-0.5`, `+-0.5`.
+		if len(w) > 2 && w[0] == '+' && w[1] == '-' && (isDigit(w[2]) || w[2] == '.') {
+			l.emit(Punct, 2)
+			w = w[2:]
+			continue
+		}
+		// A number that runs into letters is two tokens: `298.15K`, `2H2O(g)`.
+		if n := numberPrefix(w); n > 0 && n < len(w) && (startsLetter(w[n:]) || strings.HasPrefix(w[n:], "+-")) {
+			l.emit(Number, n)
+			w = w[n:]
+			continue
+		}
+		l.emit(classify(w), len(w))
+		return
 	}
-	l.emit(classify(w), len(w))
 }
 
 func startsLetter(s string) bool {

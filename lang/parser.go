@@ -4,7 +4,10 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"runtime"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
@@ -20,32 +23,137 @@ func (definition) Lex(filename string, r io.Reader) (lexer.Lexer, error) {
 	return nil, errors.New("lang: lex through Lex, not a reader")
 }
 
-var statementParser = participle.MustBuild[Statement](
+var parserOptions = []participle.Option{
 	participle.Lexer(definition{}),
 	// Lookahead 0: every alternative starts with its own token, so a
 	// branch that has read one token is the one meant, and its error is
 	// the one to report.
 	participle.UseLookahead(0),
-)
+}
+
+// statementParser is the whole grammar, for Grammar.
+var statementParser = participle.MustBuild[Statement](parserOptions...)
+
+// kindParser parses one kind of statement into st, leaving peek after it.
+type kindParser func(peek *lexer.PeekingLexer, st *Statement) error
+
+func kind[G any](set func(*Statement, *G)) kindParser {
+	p := participle.MustBuild[G](parserOptions...)
+	return func(peek *lexer.PeekingLexer, st *Statement) error {
+		v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
+		if v != nil {
+			set(st, v)
+		}
+		return err
+	}
+}
+
+// statementParsers parse each kind of statement by its keyword; they accept
+// what statementParser accepts without trying every alternative in turn.
+var statementParsers = map[string]kindParser{
+	"include":  kind(func(st *Statement, v *Include) { st.Include = v }),
+	"settings": kind(func(st *Statement, v *Settings) { st.Settings = v }),
+	"element":  kind(func(st *Statement, v *Element) { st.Element = v }),
+	"phase":    kind(func(st *Statement, v *Phase) { st.Phase = v }),
+	"species":  kind(func(st *Statement, v *Species) { st.Species = v }),
+	"reaction": kind(func(st *Statement, v *Reaction) { st.Reaction = v }),
+	"mixture":  kind(func(st *Statement, v *Mixture) { st.Mixture = v }),
+}
 
 // Grammar returns the grammar in EBNF, for review and golden tests.
 func Grammar() string { return statementParser.String() }
 
-// sliceLexer feeds a prepared token slice to participle, followed by an EOF
-// token.
-type sliceLexer struct {
-	toks []lexer.Token
-	eof  lexer.Token
-	i    int
+// endOfStatement is the type of the token the parser sees after each
+// statement's last token. No grammar rule matches it, so no statement can
+// run into the next one.
+const endOfStatement lexer.TokenType = -64
+
+// isEnd reports whether t ends the statement being parsed.
+func isEnd(t lexer.Token) bool { return t.EOF() || t.Type == endOfStatement }
+
+// chunk is one statement's place in a batch's token stream: tokens
+// [start, end), followed by an endOfStatement token at end.
+type chunk struct{ start, end int }
+
+// batchLexer feeds participle one batch of statements from the lexer, each
+// statement's tokens followed by an endOfStatement token, and EOF after
+// batchSize statements or at the end of the input. It cuts statements at
+// statement keywords that stand at brace depth 0 or first on their line.
+// One batchLexer serves all batches of a file, since tokens the lexer has
+// read may wait in its queue from one batch to the next.
+type batchLexer struct {
+	l        *lexState
+	queue    int // index in l.toks of the next token to hand out
+	chunks   []chunk
+	n        int         // tokens handed out in this batch
+	open     bool        // a statement has started and not yet ended
+	last     lexer.Token // the last token of the open statement
+	depth    int         // brace depth in the open statement
+	full     bool        // the batch has batchSize statements
+	finished bool        // the input is exhausted
 }
 
-func (s *sliceLexer) Next() (lexer.Token, error) {
-	if s.i >= len(s.toks) {
-		return s.eof, nil
+// batchSize is how many statements are parsed together, spread over the
+// available processors.
+const batchSize = 256
+
+// peek returns the next token of the input without taking it.
+func (b *batchLexer) peek() (lexer.Token, bool) {
+	for b.queue == len(b.l.toks) {
+		b.l.toks, b.queue = b.l.toks[:0], 0
+		if !b.l.more() {
+			return lexer.Token{}, false
+		}
 	}
-	t := s.toks[s.i]
-	s.i++
+	return b.l.toks[b.queue], true
+}
+
+func (b *batchLexer) Next() (lexer.Token, error) {
+	if b.full || b.finished {
+		return lexer.Token{Type: lexer.EOF, Pos: b.last.Pos}, nil
+	}
+	t, ok := b.peek()
+	if !ok {
+		b.finished = true
+		if b.open {
+			return b.end(), nil
+		}
+		return lexer.Token{Type: lexer.EOF, Pos: b.l.position()}, nil
+	}
+	if b.open && t.Type == Keyword && statementKeywords[t.Value] && (b.depth <= 0 || t.Pos.Line != b.last.Pos.Line) {
+		return b.end(), nil
+	}
+	if !b.open {
+		b.open, b.depth = true, 0
+		b.chunks = append(b.chunks, chunk{start: b.n})
+	}
+	if t.Type == Punct {
+		switch t.Value {
+		case "{":
+			b.depth++
+		case "}":
+			b.depth--
+		}
+	}
+	b.queue++
+	b.n++
+	b.last = t
 	return t, nil
+}
+
+// end closes the open statement and returns its endOfStatement token,
+// placed just after the statement's last token.
+func (b *batchLexer) end() lexer.Token {
+	b.open = false
+	b.chunks[len(b.chunks)-1].end = b.n
+	b.n++
+	if len(b.chunks) == batchSize {
+		b.full = true
+	}
+	e := TokenSpan(b.last).End
+	return lexer.Token{Type: endOfStatement, Pos: lexer.Position{
+		Filename: b.last.Pos.Filename, Offset: e.Offset, Line: e.Line, Column: e.Column,
+	}}
 }
 
 // Parse parses one source file. It reports every statement that does not
@@ -59,95 +167,108 @@ func Parse(file string, src []byte) (*File, Diagnostics) {
 	l := newLexState(file, src)
 	f := &File{Name: file}
 	var diags Diagnostics
-	flush := func(n int) {
-		st, d := parseStatement(l.toks[:n])
-		if st != nil {
-			f.Statements = append(f.Statements, st)
-		}
-		diags = append(diags, d...)
-		l.toks = l.toks[:copy(l.toks, l.toks[n:])]
-	}
-	// The lexer fills l.toks as the splitter needs tokens; each finished
-	// statement is parsed and dropped from the buffer, so memory beyond the
-	// syntax tree stays bounded by the longest statement.
-	depth, prevLine := 0, 0
-	for i := 0; ; {
-		if i == len(l.toks) {
-			if !l.more() {
-				break
+	// The input is lexed as the parser needs it, one batch of statements at
+	// a time, so memory beyond the syntax tree stays bounded.
+	b := &batchLexer{l: l}
+	for {
+		b.chunks, b.n, b.full = nil, 0, false
+		peek, _ := lexer.Upgrade(b) // batchLexer.Next never fails
+		results := parseBatch(peek, b.chunks)
+		for _, r := range results {
+			if r.st != nil {
+				f.Statements = append(f.Statements, r.st)
 			}
-			continue
+			diags = append(diags, r.diags...)
 		}
-		t := l.toks[i]
-		if i > 0 && t.Type == Keyword && statementKeywords[t.Value] && (depth <= 0 || t.Pos.Line != prevLine) {
-			flush(i)
-			i, depth = 0, 0
+		if b.finished {
+			break
 		}
-		if t.Type == Punct {
-			switch t.Value {
-			case "{":
-				depth++
-			case "}":
-				depth--
-			}
-		}
-		prevLine = t.Pos.Line
-		i++
-	}
-	if len(l.toks) > 0 {
-		flush(len(l.toks))
 	}
 	f.Comments = l.comments
 	return f, append(l.diags, diags...)
 }
 
-// statementEOF is the EOF token just after the last of toks.
-func statementEOF(toks []lexer.Token) lexer.Token {
-	last := toks[len(toks)-1]
-	end := TokenSpan(last).End
-	return lexer.Token{Type: lexer.EOF, Pos: lexer.Position{
-		Filename: last.Pos.Filename, Offset: end.Offset, Line: end.Line, Column: end.Column,
-	}}
+// result is what parsing one statement gave.
+type result struct {
+	st    *Statement
+	diags Diagnostics
 }
 
-// parseStatement parses the tokens of one statement (without EOF). The
-// tokens may be overwritten after it returns: the statement keeps copies.
-func parseStatement(toks []lexer.Token) (*Statement, Diagnostics) {
+// parseBatch parses the statements of one batch, in parallel when there are
+// several processors and enough statements.
+func parseBatch(peek *lexer.PeekingLexer, chunks []chunk) []result {
+	results := make([]result, len(chunks))
+	// A checkpoint at the start of each statement, so that each can be
+	// parsed on its own.
+	starts := make([]lexer.Checkpoint, len(chunks))
+	walk := *peek
+	for i, c := range chunks {
+		if c.start > 0 {
+			walk.FastForward(lexer.RawCursor(c.start - 1))
+		}
+		starts[i] = walk.MakeCheckpoint()
+	}
+	parseOne := func(i int) {
+		lx := *peek
+		lx.LoadCheckpoint(starts[i])
+		results[i] = parseStatement(&lx, chunks[i])
+	}
+	workers := min(runtime.GOMAXPROCS(0), len(chunks)/16)
+	if workers < 2 {
+		for i := range chunks {
+			parseOne(i)
+		}
+		return results
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for {
+				i := int(next.Add(1)) - 1
+				if i >= len(chunks) {
+					return
+				}
+				parseOne(i)
+			}
+		}()
+	}
+	wg.Wait()
+	return results
+}
+
+// parseStatement parses the statement c from lx, which stands at its first
+// token.
+func parseStatement(lx *lexer.PeekingLexer, c chunk) result {
+	toks := lx.Range(lexer.RawCursor(c.start), lexer.RawCursor(c.end))
 	first := toks[0]
-	eof := statementEOF(toks)
 	if first.Type != Keyword || !statementKeywords[first.Value] {
 		span := TokenSpan(first)
-		return nil, Diagnostics{{
+		return result{diags: Diagnostics{{
 			Code:     "syntax",
 			Severity: Error,
 			Message:  fmt.Sprintf("expected a statement (include, settings, element, phase, species, reaction, mixture), found %s", describe(first)),
 			Subject:  span,
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
-		}}
+		}}}
 	}
-	peek, err := lexer.Upgrade(&sliceLexer{toks: toks, eof: eof})
+	st := &Statement{Node: Node{Pos: first.Pos, Tokens: toks}}
+	err := statementParsers[first.Value](lx, st)
+	if err == nil && !isEnd(*lx.Peek()) {
+		err = &participle.UnexpectedTokenError{Unexpected: *lx.Peek()}
+	}
 	if err != nil {
-		return nil, Diagnostics{syntaxDiag(toks, eof, err)}
+		st.Broken = true
+		return result{st: st, diags: Diagnostics{syntaxDiag(toks, err)}}
 	}
-	// The peeking lexer holds its own copy of the tokens, which the syntax
-	// tree's nodes share.
-	own := peek.Range(0, lexer.RawCursor(len(toks)))
-	st, err := statementParser.ParseFromLexer(peek)
-	if err == nil {
-		return st, nil
-	}
-	if st == nil {
-		st = &Statement{}
-	}
-	st.Broken = true
-	st.Node = Node{Pos: first.Pos, Tokens: own}
-	return st, Diagnostics{syntaxDiag(own, eof, err)}
+	return result{st: st}
 }
 
 // syntaxDiag turns a participle error into a diagnostic that names what was
-// expected and what was found. toks are the statement's tokens, eof the
-// token after them.
-func syntaxDiag(toks []lexer.Token, eof lexer.Token, err error) Diagnostic {
+// expected and what was found. toks are the statement's tokens.
+func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 	stmt := TokenSpan(toks[0]).Join(TokenSpan(toks[len(toks)-1]))
 	d := Diagnostic{Code: "syntax", Severity: Error, Context: stmt}
 	var ute *participle.UnexpectedTokenError
@@ -162,7 +283,7 @@ func syntaxDiag(toks []lexer.Token, eof lexer.Token, err error) Diagnostic {
 				exp = items + ` or "}"`
 			}
 		}
-		if exp == "" && !found.EOF() {
+		if exp == "" && !isEnd(found) {
 			exp = "end of statement"
 		}
 		if exp == "" {
@@ -306,7 +427,7 @@ var productionWords = map[string]string{
 
 func describe(t lexer.Token) string {
 	switch {
-	case t.EOF():
+	case isEnd(t):
 		return "end of statement"
 	case t.Type == Keyword:
 		return fmt.Sprintf("keyword %q", t.Value)

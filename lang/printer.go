@@ -3,6 +3,7 @@ package lang
 import (
 	"bytes"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -13,14 +14,19 @@ import (
 // source had any, and every comment kept (a comment inside a statement's
 // line moves to its own line before it; one after it on the same line
 // stays at its end). Numbers, units and strings are printed as written.
-// Format is idempotent. The file must have parsed without syntax errors.
+// Format is idempotent. The file should have parsed without syntax errors;
+// a broken statement is printed as its tokens separated by spaces.
 func Format(f *File) []byte {
+	if f == nil {
+		return nil
+	}
 	p := &printer{comments: f.Comments}
 	for _, st := range f.Statements {
 		p.statement(st)
 	}
 	p.flushComments(int(^uint(0) >> 1))
-	return p.out.Bytes()
+	p.endLine()
+	return p.aligned()
 }
 
 // FormatSource parses and formats src; on syntax errors it returns nil and
@@ -40,24 +46,78 @@ type printer struct {
 	indent     int
 	lastLine   int  // source line where the last printed item ended
 	blockStart bool // nothing printed yet in the current block
+	pending    bool // the last output line is not yet ended: a comment may trail it
+	lines      int  // output lines ended so far
+	lineStart  int  // offset in out where the current line starts
+	trailers   []trailer
+}
+
+// trailer is a comment printed at the end of an output line.
+type trailer struct {
+	line  int // output line number, from 0
+	at    int // offset in out where the line's code ends
+	width int // the code's width in code points
+}
+
+func (p *printer) newline() {
+	p.out.WriteByte('\n')
+	p.lines++
+	p.lineStart = p.out.Len()
+}
+
+// aligned returns the output with the trailing comments of each run of
+// consecutive lines starting in one column, two spaces after the longest
+// line of the run.
+func (p *printer) aligned() []byte {
+	if len(p.trailers) == 0 {
+		return p.out.Bytes()
+	}
+	src := p.out.Bytes()
+	var b bytes.Buffer
+	b.Grow(len(src) + len(src)/8)
+	last := 0
+	for i := 0; i < len(p.trailers); {
+		j := i + 1
+		width := p.trailers[i].width
+		for j < len(p.trailers) && p.trailers[j].line == p.trailers[j-1].line+1 {
+			width = max(width, p.trailers[j].width)
+			j++
+		}
+		for _, t := range p.trailers[i:j] {
+			b.Write(src[last:t.at])
+			for k := t.width; k < width; k++ {
+				b.WriteByte(' ')
+			}
+			last = t.at
+		}
+		i = j
+	}
+	b.Write(src[last:])
+	return b.Bytes()
 }
 
 // item prints one output line for the source range [from, to].
 func (p *printer) item(text string, from, to Span) {
 	p.flushComments(to.End.Offset)
 	p.emit(text, from.Start.Line)
-	if p.next < len(p.comments) && p.comments[p.next].Span.Start.Line == to.End.Line {
-		p.out.WriteString("  ")
-		p.out.WriteString(p.comments[p.next].Text)
-		p.next++
-	}
-	p.out.WriteByte('\n')
+	p.pending = true
 	p.lastLine = to.End.Line
 }
 
+// endLine ends the last output line.
+func (p *printer) endLine() {
+	if p.pending {
+		p.newline()
+		p.pending = false
+	}
+}
+
+// emit starts a new output line with text, after a blank line when the
+// source had one before srcLine.
 func (p *printer) emit(text string, srcLine int) {
+	p.endLine()
 	if p.lastLine > 0 && !p.blockStart && srcLine > p.lastLine+1 {
-		p.out.WriteByte('\n')
+		p.newline()
 	}
 	p.blockStart = false
 	for i := 0; i < p.indent; i++ {
@@ -66,16 +126,41 @@ func (p *printer) emit(text string, srcLine int) {
 	p.out.WriteString(text)
 }
 
-// flushComments prints, each on its own line, every pending comment that
-// starts before offset.
+// flushComments prints every pending comment that starts before offset:
+// at the end of the last output line when it followed that item on its
+// source line, and on a line of its own otherwise.
 func (p *printer) flushComments(offset int) {
 	for p.next < len(p.comments) && p.comments[p.next].Span.Start.Offset < offset {
 		c := p.comments[p.next]
 		p.next++
+		if p.pending && c.Span.Start.Line == p.lastLine {
+			p.trailers = append(p.trailers, trailer{line: p.lines, at: p.out.Len(),
+				width: utf8.RuneCount(p.out.Bytes()[p.lineStart:])})
+			p.out.WriteString("  ")
+			p.out.WriteString(c.Text)
+			p.endLine()
+			continue
+		}
 		p.emit(c.Text, c.Span.Start.Line)
-		p.out.WriteByte('\n')
+		p.pending = true
+		p.endLine()
 		p.lastLine = c.Span.End.Line
 	}
+}
+
+// hasComments reports whether a comment starts inside the byte range
+// [from, to).
+func (p *printer) hasComments(from, to int) bool {
+	for i := p.next; i < len(p.comments); i++ {
+		o := p.comments[i].Span.Start.Offset
+		if o >= to {
+			break
+		}
+		if o >= from {
+			return true
+		}
+	}
+	return false
 }
 
 func (p *printer) open(text string, n *Node, brace lexer.Token) {
@@ -88,7 +173,7 @@ func (p *printer) close(n *Node) {
 	last := TokenSpan(n.Tokens[len(n.Tokens)-1])
 	p.flushComments(last.Start.Offset)
 	p.indent--
-	p.blockStart = false
+	p.blockStart = true // no blank line before the closing brace
 	p.item("}", last, last)
 }
 
@@ -103,19 +188,34 @@ func braceToken(n *Node) lexer.Token {
 }
 
 // block prints a header, its body lines and the closing brace; an empty
-// body prints as `header {}` on one line.
+// body with no comment inside prints as `header {}` on one line.
 func (p *printer) block(header string, n *Node, empty bool, body func()) {
-	if empty {
+	if empty && !p.hasComments(TokenSpan(braceToken(n)).End.Offset, n.Span().End.Offset) {
 		p.item(header+" {}", n.Span(), n.Span())
 		return
 	}
 	p.open(header, n, braceToken(n))
-	body()
+	if !empty {
+		body()
+	}
 	p.close(n)
+}
+
+// tokensText prints a statement that did not parse as its tokens.
+func tokensText(n *Node) string {
+	texts := make([]string, len(n.Tokens))
+	for i, t := range n.Tokens {
+		texts[i] = t.Value
+	}
+	return strings.Join(texts, " ")
 }
 
 func (p *printer) statement(st *Statement) {
 	switch {
+	case st.Broken || len(st.Tokens) == 0:
+		if len(st.Tokens) > 0 {
+			p.item(tokensText(&st.Node), st.Span(), st.Span())
+		}
 	case st.Include != nil:
 		p.item("include "+st.Include.Path.Raw, st.Include.Span(), st.Include.Span())
 	case st.Settings != nil:
@@ -182,16 +282,25 @@ func (p *printer) species(s *Species) {
 // one line.
 const coeffsPerLine = 4
 
+// polynomial prints the coefficients coeffsPerLine to a line; a comment
+// after a coefficient ends its line early, so the comment stays beside the
+// coefficients it followed.
 func (p *printer) polynomial(poly *Polynomial) {
 	header := poly.Kind + " " + quantityText(poly.From) + " to " + quantityText(poly.To)
 	p.block(header, &poly.Node, len(poly.Coeffs) == 0, func() {
-		for i := 0; i < len(poly.Coeffs); i += coeffsPerLine {
-			group := poly.Coeffs[i:min(i+coeffsPerLine, len(poly.Coeffs))]
+		var group []*Num
+		for i, c := range poly.Coeffs {
+			group = append(group, c)
+			last := i == len(poly.Coeffs)-1
+			if !last && len(group) < coeffsPerLine && !p.hasComments(c.Span().End.Offset, poly.Coeffs[i+1].Span().Start.Offset) {
+				continue
+			}
 			texts := make([]string, len(group))
-			for j, c := range group {
-				texts[j] = c.Text
+			for j, g := range group {
+				texts[j] = g.Text
 			}
 			p.item(strings.Join(texts, " "), group[0].Span(), group[len(group)-1].Span())
+			group = group[:0]
 		}
 	})
 }

@@ -27,7 +27,8 @@ func cutStateTag(w string) (base, tag string, ok bool) {
 		return w, "", false
 	}
 	open := strings.LastIndexByte(w, '(')
-	if open <= 0 {
+	if open <= 0 || w[open-1] == '/' || w[open-1] == '*' {
+		// `J/(mol)` is a unit, not a species in state mol.
 		return w, "", false
 	}
 	tag = w[open+1 : len(w)-1]
@@ -144,25 +145,35 @@ func (p RefParts) Canonical() string {
 // Unquote returns the text of a string literal (quotes included in s). It
 // accepts the escapes \" and \\ only.
 func Unquote(s string) (string, error) {
-	if len(s) < 2 || s[0] != '"' || s[len(s)-1] != '"' {
-		return "", errors.New("string is not closed on its line")
+	errOpen := errors.New("string is not closed on its line")
+	if len(s) < 2 || s[0] != '"' {
+		return "", errOpen
 	}
-	s = s[1 : len(s)-1]
-	if !strings.Contains(s, `\`) {
-		return s, nil
+	body := s[1 : len(s)-1]
+	if s[len(s)-1] == '"' && !strings.ContainsAny(body, `"\`) {
+		return body, nil
 	}
 	var b strings.Builder
-	for i := 0; i < len(s); i++ {
-		if s[i] != '\\' {
-			b.WriteByte(s[i])
-			continue
+	for i := 1; i < len(s); i++ {
+		switch c := s[i]; c {
+		case '"':
+			if i != len(s)-1 {
+				return "", errors.New("string has text after its closing quote")
+			}
+			return b.String(), nil
+		case '\\':
+			if i+1 < len(s) && (s[i+1] == '"' || s[i+1] == '\\') {
+				b.WriteByte(s[i+1])
+				i++
+				continue
+			}
+			if i+1 == len(s) {
+				return "", errOpen
+			}
+			return "", errors.New(`unknown escape in string: only \" and \\ are allowed`)
+		default:
+			b.WriteByte(c)
 		}
-		if i+1 < len(s) && (s[i+1] == '"' || s[i+1] == '\\') {
-			b.WriteByte(s[i+1])
-			i++
-			continue
-		}
-		return "", errors.New(`unknown escape in string: only \" and \\ are allowed`)
 	}
-	return b.String(), nil
+	return "", errOpen
 }

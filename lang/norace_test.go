@@ -1,0 +1,5 @@
+//go:build !race
+
+package lang
+
+const raceEnabled = false
