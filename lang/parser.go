@@ -61,7 +61,17 @@ var statementParsers = map[string]kindParser{
 }
 
 // Grammar returns the grammar in EBNF, for review and golden tests.
-func Grammar() string { return statementParser.String() }
+func Grammar() string { return statementParser.String() + "\n" + leafGrammar }
+
+// leafGrammar documents the nodes that parse themselves (leaves.go).
+const leafGrammar = `Quantity = Num (("±" | "+-") Num)? Unit? .
+Term = Num? SpeciesRef .
+Arrow = ("<->" | "⇌" | "->" | "→") .
+SpeciesRef = (<ref> | <word> | <keyword>) .
+Ident = (<word> | <keyword>) .
+Num = <number> .
+Unit = <word> .
+Str = <string> .`
 
 // endOfStatement is the type of the token the parser sees after each
 // statement's last token. No grammar rule matches it, so no statement can
