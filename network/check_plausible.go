@@ -11,15 +11,16 @@ var implausibleValueCheck = &Check{
 	Severity: lang.Warning,
 	Doc: `a value no real substance has
 Flags data that are almost certainly typing or unit mistakes: a temperature
-at or below absolute zero, a heat capacity at or below zero, a negative
-standard entropy for a neutral species (aqueous ions may have one, since
-their entropies are relative to H+(aq)), a formation enthalpy or Gibbs
+at or below absolute zero, a heat capacity at or below zero or a negative
+standard entropy for a neutral species (aqueous ions may have either, since
+their values are relative to H+(aq)), also where a shomate or nasa7 range
+gives one between its bounds, a formation enthalpy or Gibbs
 energy beyond ±50 000 kJ/mol, an entropy or heat capacity above
 5 000 J/mol/K, a non-positive pressure, mass or rate prefactor. The bounds
 are common practice, wide enough for large minerals.`,
 	Run: func(p *Pass) {
 		for _, sp := range p.Net.Species {
-			if sp.Cp != nil && sp.Cp.V <= 0 {
+			if sp.Cp != nil && sp.Cp.V <= 0 && sp.Charge == 0 {
 				p.Reportf(sp.Cp.Span, "heat capacity of %s is %g J/mol/K; Cp° must be positive", sp.Key, sp.Cp.V)
 			}
 			if sp.S != nil && sp.S.V < 0 && sp.Charge == 0 {
@@ -36,6 +37,7 @@ are common practice, wide enough for large minerals.`,
 				}
 			}
 		}
+		implausiblePolynomials(p)
 	},
 }
 

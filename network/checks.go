@@ -41,9 +41,23 @@ var checks = []*Check{
 	unitMismatchCheck,
 	elementImbalanceCheck,
 	chargeImbalanceCheck,
+	combinationMismatchCheck,
+	cycleInconsistentCheck,
+	determinedSpeciesCheck,
+	dataConflictCheck,
+	formationInconsistentCheck,
+	rangeGapCheck,
+	rangeOverlapCheck,
+	rangeDiscontinuityCheck,
+	polynomialMismatchCheck,
+	extrapolationCheck,
+	missingThermoCheck,
 	implausibleValueCheck,
 	duplicateReactionCheck,
 	unusedSpeciesCheck,
+	rateUnitsCheck,
+	reverseOnOneWayCheck,
+	detailedBalanceCheck,
 }
 
 var checkByName = func() map[string]*Check {

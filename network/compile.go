@@ -81,6 +81,7 @@ func compile(n *Network) {
 			c.mixture(st.Mixture)
 		}
 	})
+	buildModels(n)
 }
 
 // each calls fn for every statement of every file, in load order.
@@ -466,7 +467,8 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 		c.report("implausible-value", p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
 		return
 	}
-	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span()})
+	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
+		Header: keywordSpan(&p.Node).Join(p.To.Span())})
 }
 
 // formula parses the species' formula: the explicit one if given, else

@@ -4,6 +4,7 @@ import (
 	"math/big"
 
 	"hess/lang"
+	"hess/thermo"
 )
 
 // Network is one compiled network: a root file, every file it includes, the
@@ -101,6 +102,7 @@ type PolyRange struct {
 	Tmin, Tmax float64
 	Coeffs     []float64
 	Span       lang.Span
+	Header     lang.Span // the keyword and the bounds, "shomate 298 K to 1200 K"
 }
 
 // Species is one declared species.
@@ -119,6 +121,9 @@ type Species struct {
 	Source, Note  string
 
 	Used bool // appears in some reaction
+
+	model thermo.Model // built once the species is compiled; see Model
+	built bool
 }
 
 // Term is one species with its exact coefficient on one side of a reaction.

@@ -28,7 +28,11 @@ type command struct {
 func commands() []command {
 	return []command{
 		{"check", "compile networks and report diagnostics", runCheck},
+		{"table", "print K(T) tables of a network's reactions", runTable},
+		{"plot", "draw a van 't Hoff plot of a network's reactions", runPlot},
 		{"fmt", "print files in the canonical layout", runFmt},
+		{"watch", "check again (and rebuild a table) whenever the files change", runWatch},
+		{"lsp", "run the language server on stdin and stdout", runLSP},
 		{"explain", "explain a diagnostic code, or list them all", runExplain},
 		{"version", "print the version", runVersion},
 	}
@@ -93,13 +97,19 @@ func newFlags(name, synopsis, description string, stderr io.Writer) *flag.FlagSe
 // usage error: 2).
 func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, int, bool) {
 	var files []string
+	// The flag package prints the usage itself on -help and on errors;
+	// print it here instead, once, on the right stream.
+	usage := fs.Usage
+	fs.Usage = func() {}
+	defer func() { fs.Usage = usage }()
 	for {
 		if err := fs.Parse(args); err != nil {
 			if errors.Is(err, flag.ErrHelp) {
 				fs.SetOutput(stdout)
-				fs.Usage()
+				usage()
 				return nil, exitOK, false
 			}
+			usage()
 			return nil, exitTrouble, false
 		}
 		rest := fs.Args()

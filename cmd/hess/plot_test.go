@@ -1,0 +1,107 @@
+package main
+
+import (
+	"bytes"
+	"image"
+	"image/color"
+	"image/png"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/plot/plotutil"
+)
+
+// TestPlotSVGGolden draws the reformer example's van 't Hoff plot as SVG and
+// compares it with testdata/plot/reformer.svg.golden (the SVG is the same
+// bytes on every run). Run with -update after looking at it.
+func TestPlotSVGGolden(t *testing.T) {
+	golden := inRoot(t)
+	out := filepath.Join(t.TempDir(), "reformer.svg")
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"plot", "-o", out, "examples/hydrogen-plant/reformer.hess"}, &stdout, &stderr); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr.String())
+	}
+	got, err := os.ReadFile(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"<svg", "1000/T [1/K]", "log10 K", "reform (K = 1 at 892.2 K)", "shift (K = 1 at 1096.8 K)", "dry-reform", "1000 K"} {
+		if !bytes.Contains(got, []byte(want)) {
+			t.Errorf("SVG lacks %q", want)
+		}
+	}
+	again := filepath.Join(t.TempDir(), "again.svg")
+	if code := run([]string{"plot", "-o", again, "examples/hydrogen-plant/reformer.hess"}, &stdout, &stderr); code != exitOK {
+		t.Fatalf("second run: exit %d", code)
+	}
+	if b, _ := os.ReadFile(again); !bytes.Equal(b, got) {
+		t.Fatal("two runs drew different SVG")
+	}
+	compareGolden(t, filepath.Join(golden, "plot", "reformer.svg.golden"), got)
+}
+
+// TestPlotPNG draws the reformer plot as PNG and checks the picture: its
+// size, and that each reaction's line colour appears in it.
+func TestPlotPNG(t *testing.T) {
+	inRoot(t)
+	out := filepath.Join(t.TempDir(), "reformer.png")
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"plot", "-o", out, "examples/hydrogen-plant/reformer.hess"}, &stdout, &stderr); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr.String())
+	}
+	f, err := os.Open(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	img, err := png.Decode(f)
+	if err != nil {
+		t.Fatalf("not a PNG: %v", err)
+	}
+	if b := img.Bounds(); b.Dx() < 400 || b.Dy() < 300 {
+		t.Errorf("picture is %v", b)
+	}
+	for i := range 4 { // four reactions in the example
+		c := plotutil.Color(i)
+		if n := countColor(img, c); n < 200 {
+			t.Errorf("line colour %d (%v) covers %d pixels; the line is missing", i, c, n)
+		}
+	}
+}
+
+func countColor(img image.Image, c color.Color) int {
+	r0, g0, b0, _ := c.RGBA()
+	n := 0
+	b := img.Bounds()
+	for y := b.Min.Y; y < b.Max.Y; y++ {
+		for x := b.Min.X; x < b.Max.X; x++ {
+			r, g, bl, _ := img.At(x, y).RGBA()
+			if near(r, r0) && near(g, g0) && near(bl, b0) {
+				n++
+			}
+		}
+	}
+	return n
+}
+
+func near(a, b uint32) bool {
+	d := int(a>>8) - int(b>>8)
+	return d > -24 && d < 24
+}
+
+func TestPlotNothingToDraw(t *testing.T) {
+	inRoot(t)
+	var stdout, stderr bytes.Buffer
+	out := filepath.Join(t.TempDir(), "flame.svg")
+	if code := run([]string{"plot", "-o", out, "examples/small-flame.hess"}, &stdout, &stderr); code != exitTrouble {
+		t.Errorf("exit %d, want %d", code, exitTrouble)
+	}
+	if !strings.Contains(stderr.String(), "no reaction has data") {
+		t.Errorf("stderr: %s", stderr.String())
+	}
+	if _, err := os.Stat(out); err == nil {
+		t.Error("a plot file was written")
+	}
+}

@@ -1,0 +1,390 @@
+package lsp
+
+import (
+	"context"
+	"fmt"
+	"path/filepath"
+	"runtime/debug"
+	"sort"
+	"strings"
+	"sync"
+	"sync/atomic"
+	"time"
+
+	"github.com/sourcegraph/jsonrpc2"
+
+	"hess/network"
+)
+
+// worker compiles the open documents off the read loop and publishes their
+// diagnostics. Handlers only schedule it: a change starts (or restarts) a
+// timer for its document, open, save and close wake it at once. Each
+// cycle compiles the latest text of every open document, so a burst of
+// changes costs one compile.
+type worker struct {
+	s    *server
+	wake chan struct{} // capacity 1: a pending wake-up
+
+	mu       sync.Mutex
+	timers   map[string]*time.Timer // by path: debounce timers
+	force    map[string]bool        // paths to publish even when unchanged
+	stopped  bool
+	done     chan struct{}
+	stopOnce sync.Once
+
+	// Touched only by the worker goroutine.
+	cache      map[string]*compiled // by root path
+	cacheEpoch uint64               // the store's open/close/save count the cache is for
+	owners     map[string]string    // file path -> root path, from the last cycle
+	published  map[string]published // by path
+
+	cur      atomic.Pointer[snapshot]
+	compiles atomic.Int64 // networks compiled (not reused) so far
+
+	// beforeCompile, when set (by tests), runs before each compile.
+	beforeCompile func(root string)
+}
+
+// compiled is one root's network and the inputs it was compiled from.
+type compiled struct {
+	net *network.Network
+	key string
+}
+
+// published is what a document's client last received.
+type published struct {
+	uri     string
+	version int32 // -1 when it was not open
+	diags   []Diagnostic
+}
+
+func newWorker(s *server) *worker {
+	return &worker{
+		s:         s,
+		wake:      make(chan struct{}, 1),
+		timers:    map[string]*time.Timer{},
+		force:     map[string]bool{},
+		done:      make(chan struct{}),
+		cache:     map[string]*compiled{},
+		owners:    map[string]string{},
+		published: map[string]published{},
+	}
+}
+
+// schedule asks for a compile: after the debounce delay when debounce is
+// set (each call restarts the document's timer), else at once. force makes
+// the next cycle publish the document's diagnostics even when unchanged.
+func (w *worker) schedule(path string, debounce, force bool) {
+	w.mu.Lock()
+	defer w.mu.Unlock()
+	if w.stopped {
+		return
+	}
+	if force {
+		w.force[path] = true
+	}
+	if t := w.timers[path]; t != nil {
+		t.Stop()
+		delete(w.timers, path)
+	}
+	if debounce && w.s.opts.Debounce > 0 {
+		w.timers[path] = time.AfterFunc(w.s.opts.Debounce, w.kick)
+		return
+	}
+	w.kick()
+}
+
+func (w *worker) kick() {
+	select {
+	case w.wake <- struct{}{}:
+	default:
+	}
+}
+
+// stop ends the worker: no timer fires and no cycle starts after it.
+func (w *worker) stop() {
+	w.stopOnce.Do(func() {
+		w.mu.Lock()
+		w.stopped = true
+		for p, t := range w.timers {
+			t.Stop()
+			delete(w.timers, p)
+		}
+		w.mu.Unlock()
+		close(w.done)
+	})
+}
+
+// run compiles and publishes until stopped.
+func (w *worker) run(ctx context.Context, conn *jsonrpc2.Conn) {
+	for {
+		select {
+		case <-ctx.Done():
+			return
+		case <-w.done:
+			return
+		case <-w.wake:
+		}
+		select {
+		case <-w.done:
+			return
+		default:
+		}
+		w.cycle(ctx, conn)
+	}
+}
+
+// current is the state of the last cycle, for requests (nil before the
+// first).
+func (w *worker) current() *snapshot { return w.cur.Load() }
+
+// cycle compiles every open document's network and publishes the
+// diagnostics that changed.
+func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
+	docs, epoch := w.s.docs.snapshot()
+	w.mu.Lock()
+	force := w.force
+	w.force = map[string]bool{}
+	w.mu.Unlock()
+
+	open := make(map[string]document, len(docs))
+	overlay := network.Overlay{Files: make(map[string][]byte, len(docs)), Base: w.s.opts.Files}
+	for _, d := range docs {
+		open[d.path] = d
+		overlay.Files[d.path] = d.text
+	}
+	if epoch != w.cacheEpoch {
+		// A document opened, closed or saved: what is read from disk may
+		// differ, so nothing compiled before can be trusted.
+		w.cache = map[string]*compiled{}
+		w.cacheEpoch = epoch
+	}
+
+	roots := w.chooseRoots(docs, open, overlay)
+	owners := map[string]string{}
+	for _, r := range roots {
+		for _, f := range r.net.Files {
+			if p := cleanPath(f.Path); owners[p] == "" {
+				owners[p] = cleanPath(r.net.Root)
+			}
+		}
+	}
+	w.owners = owners
+
+	snap := &snapshot{nets: map[string]*network.Network{}, lines: map[string]*lines{}}
+	for p, root := range owners {
+		for _, r := range roots {
+			if cleanPath(r.net.Root) == root {
+				snap.nets[p] = r.net
+			}
+		}
+	}
+	uriOf := func(path string) string {
+		if d, ok := open[path]; ok {
+			return d.uri
+		}
+		return pathToURI(path)
+	}
+	diags := collect(roots, snap, uriOf, w.s.encoding())
+	w.cur.Store(snap)
+	w.publish(ctx, conn, diags, open, uriOf, force)
+}
+
+// chooseRoots compiles the networks whose diagnostics are published: each
+// open document is compiled as a root unless another open document's
+// network includes it. A document that was included last time is first
+// assumed to be included still; if its includer no longer reads it, it is
+// compiled as a root of its own in a second round.
+func (w *worker) chooseRoots(docs []document, open map[string]document, src network.Source) []*compiled {
+	nets := map[string]*compiled{}
+	tried := map[string]bool{}
+	compileRoot := func(path string) {
+		tried[path] = true
+		if c := w.compile(path, open, src); c != nil {
+			nets[path] = c
+		}
+	}
+	for _, d := range docs {
+		if owner := w.owners[d.path]; owner != "" && owner != d.path {
+			if _, ok := open[owner]; ok {
+				continue
+			}
+		}
+		compileRoot(d.path)
+	}
+	var roots []*compiled
+	chosen := map[string]bool{}
+	covered := map[string]bool{}
+	pick := func() {
+		var cands []string
+		for p := range nets {
+			if !chosen[p] {
+				cands = append(cands, p)
+			}
+		}
+		// Larger networks first, so that a network is chosen before the
+		// networks of the files it includes.
+		sort.Slice(cands, func(i, j int) bool {
+			a, b := len(nets[cands[i]].net.Files), len(nets[cands[j]].net.Files)
+			if a != b {
+				return a > b
+			}
+			return cands[i] < cands[j]
+		})
+		for _, p := range cands {
+			if covered[p] {
+				continue
+			}
+			chosen[p] = true
+			roots = append(roots, nets[p])
+			for _, f := range nets[p].net.Files {
+				covered[cleanPath(f.Path)] = true
+			}
+		}
+	}
+	pick()
+	for {
+		var missing []string
+		for _, d := range docs {
+			if !covered[d.path] && !tried[d.path] {
+				missing = append(missing, d.path)
+			}
+		}
+		if len(missing) == 0 {
+			break
+		}
+		for _, p := range missing {
+			compileRoot(p)
+		}
+		pick()
+	}
+	// A root chosen early may be included by one chosen later: the later
+	// one's diagnostics cover it (unless the two include each other).
+	reads := func(c *compiled, path string) bool { return c.net.File(path) != nil }
+	var out []*compiled
+	for _, x := range roots {
+		demoted := false
+		for _, y := range roots {
+			if x != y && reads(y, x.net.Root) && !reads(x, y.net.Root) {
+				demoted = true
+				break
+			}
+		}
+		if !demoted {
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+// compile loads the network rooted at path, or reuses the last one when
+// none of its open files changed. A compile that fails inside the compiler
+// is logged and yields nil.
+func (w *worker) compile(path string, open map[string]document, src network.Source) (c *compiled) {
+	if old := w.cache[path]; old != nil && old.key == inputKey(old.net, open) {
+		return old
+	}
+	defer func() {
+		if p := recover(); p != nil {
+			w.s.mu.Lock()
+			w.s.panics++
+			w.s.mu.Unlock()
+			w.s.log.Printf("internal error compiling %s: %v\n%s", path, p, debug.Stack())
+			c = nil
+		}
+	}()
+	w.compiles.Add(1)
+	if w.beforeCompile != nil {
+		w.beforeCompile(path)
+	}
+	net := network.Load(path, src)
+	c = &compiled{net: net, key: inputKey(net, open)}
+	w.cache[path] = c
+	return c
+}
+
+// inputKey names the open-document versions a network was read from.
+func inputKey(net *network.Network, open map[string]document) string {
+	var b strings.Builder
+	for _, f := range net.Files {
+		p := cleanPath(f.Path)
+		if d, ok := open[p]; ok {
+			fmt.Fprintf(&b, "%s@%d;", p, d.version)
+		} else {
+			fmt.Fprintf(&b, "%s@disk;", p)
+		}
+	}
+	return b.String()
+}
+
+// publish sends each document's diagnostics when they changed, when an
+// open document reached a new version, or when forced (open, save); a
+// document that no network reads any more gets an empty list once.
+func (w *worker) publish(ctx context.Context, conn *jsonrpc2.Conn, diags map[string][]Diagnostic, open map[string]document, uriOf func(string) string, force map[string]bool) {
+	paths := map[string]bool{}
+	for p := range diags {
+		paths[p] = true
+	}
+	for p := range open {
+		paths[p] = true
+	}
+	for p := range w.published {
+		paths[p] = true
+	}
+	sorted := make([]string, 0, len(paths))
+	for p := range paths {
+		sorted = append(sorted, p)
+	}
+	sort.Strings(sorted)
+	for _, p := range sorted {
+		list := diags[p]
+		if list == nil {
+			list = []Diagnostic{}
+		}
+		version := int32(-1)
+		d, isOpen := open[p]
+		if isOpen {
+			version = d.version
+		}
+		prev, had := w.published[p]
+		uri := uriOf(p)
+		if had && !isOpen {
+			uri = prev.uri // the name the client knew it by
+		}
+		var send bool
+		switch {
+		case force[p]:
+			send = true
+		case !had:
+			send = isOpen || len(list) > 0
+		default:
+			send = !equalDiagnostics(prev.diags, list) || (isOpen && prev.version != version)
+		}
+		if send {
+			params := PublishDiagnosticsParams{URI: uri, Diagnostics: list}
+			if isOpen {
+				v := version
+				params.Version = &v
+			}
+			if err := conn.Notify(ctx, "textDocument/publishDiagnostics", params); err != nil {
+				if err != jsonrpc2.ErrClosed {
+					w.s.log.Printf("publishing diagnostics of %s: %v", p, err)
+				}
+				return
+			}
+		}
+		if !isOpen && len(list) == 0 {
+			delete(w.published, p)
+			continue
+		}
+		w.published[p] = published{uri: uri, version: version, diags: list}
+	}
+}
+
+// cleanPath is the absolute, clean form of a path as the loader reached it.
+func cleanPath(p string) string {
+	if abs, err := filepath.Abs(p); err == nil {
+		return abs
+	}
+	return filepath.Clean(p)
+}

@@ -1,0 +1,248 @@
+package network
+
+import (
+	"fmt"
+	"math"
+	"strings"
+
+	"hess/lang"
+	"hess/thermo"
+)
+
+var extrapolationCheck = &Check{
+	Name:     "extrapolation",
+	Severity: lang.Warning,
+	Doc: `a requested temperature lies outside a species' data range
+Each shomate or nasa7 range holds between its two bounds; hf/s data are
+taken to hold from 10 K to 10 000 K. A requested temperature (settings
+temperatures, or hess table --temperatures) outside every range of a
+species used in a reaction is computed by extending the nearest range,
+and such values can be far off, above all for Cp°. The message names the
+temperatures and the span the data cover; the table marks those rows as
+extrapolated.`,
+	Run: func(p *Pass) {
+		temps := p.Net.Settings.Temperatures
+		for _, sp := range p.Net.Species {
+			m := sp.Model()
+			if !sp.Used || m == nil || isGibbsOnly(m) {
+				continue
+			}
+			var out []float64
+			for _, T := range temps {
+				if T > 0 && !covers(m, T) {
+					out = append(out, T)
+				}
+			}
+			if len(out) == 0 {
+				continue
+			}
+			verb := "is"
+			if len(out) > 1 {
+				verb = "are"
+			}
+			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
+				kelvinList(out), verb, sp.Key, coverageText(sp, m))
+		}
+	},
+}
+
+// coverageText says which temperatures a species' data cover.
+func coverageText(sp *Species, m thermo.Model) string {
+	if len(sp.Ranges) == 0 {
+		lo, hi := m.Range()
+		return fmt.Sprintf("hf and s hold from %s to %s", kelvin(lo), kelvin(hi))
+	}
+	// Merge ranges that meet or overlap into spans.
+	type span struct{ lo, hi float64 }
+	var spans []span
+	for _, r := range sortedRanges(sp.Ranges) {
+		if n := len(spans); n > 0 && r.Tmin <= spans[n-1].hi+thermo.JoinTolerance {
+			spans[n-1].hi = math.Max(spans[n-1].hi, r.Tmax)
+			continue
+		}
+		spans = append(spans, span{r.Tmin, r.Tmax})
+	}
+	parts := make([]string, len(spans))
+	for i, s := range spans {
+		parts[i] = kelvin(s.lo) + " to " + kelvin(s.hi)
+	}
+	return "they cover " + strings.Join(parts, " and ")
+}
+
+var missingThermoCheck = &Check{
+	Name:     "missing-thermo",
+	Severity: lang.Warning,
+	Doc: `a reaction's K cannot be computed at a requested temperature
+K(T) needs ΔrG°(T): every species of the reaction with data that reach T
+(hf and s, or polynomial ranges), or at 298.15 K the gf of every species,
+or the reaction's own data (logk at T, two of dh, ds and dg), or for a
+coupled reaction its parts. The message names the temperatures and the
+species whose data fall short; its table rows are empty. A reaction none
+of whose species carries any data is a kinetics-only step and is not
+reported.`,
+	Run: func(p *Pass) {
+		temps := p.Net.Settings.Temperatures
+		for _, rx := range p.Net.Reactions {
+			if !rx.Resolved || !thermoIntent(rx) {
+				continue
+			}
+			c := p.Net.calc(rx)
+			var bad []float64
+			var lacking []*Species
+			seen := map[*Species]bool{}
+			for _, T := range temps {
+				if !(T > 0) || c.at(T).ok() {
+					continue
+				}
+				bad = append(bad, T)
+				for _, sp := range c.lacking(T) {
+					if !seen[sp] {
+						seen[sp] = true
+						lacking = append(lacking, sp)
+					}
+				}
+			}
+			if len(bad) == 0 {
+				continue
+			}
+			msg := fmt.Sprintf("K of %s cannot be computed at %s", rx.Name, kelvinList(bad))
+			var reasons []string
+			var related []lang.Related
+			for _, sp := range lacking {
+				reasons = append(reasons, sp.Key+" "+lackReason(sp))
+				related = append(related, lang.Related{Span: sp.Span, Message: sp.Key + " declared here"})
+			}
+			if len(reasons) > 0 {
+				msg += ": " + strings.Join(reasons, "; ")
+			}
+			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg, Related: related})
+		}
+	},
+}
+
+// thermoIntent reports whether a reaction is meant to have thermodynamics:
+// a species of it, or it or a part of it, carries data.
+func thermoIntent(rx *Reaction) bool {
+	return thermoIntentWithin(rx, map[*Reaction]bool{})
+}
+
+func thermoIntentWithin(rx *Reaction, seen map[*Reaction]bool) bool {
+	if seen[rx] {
+		return false
+	}
+	seen[rx] = true
+	if rx.Dg != nil || rx.Dh != nil || rx.Ds != nil || len(rx.LogK) > 0 {
+		return true
+	}
+	for _, t := range netTerms(rx) {
+		if t.species.hasThermoData() {
+			return true
+		}
+	}
+	for _, ct := range rx.Combo {
+		if ct.Reaction != nil && thermoIntentWithin(ct.Reaction, seen) {
+			return true
+		}
+	}
+	return false
+}
+
+// lackReason says why a species' data do not give a reaction's ΔrG°.
+func lackReason(sp *Species) string {
+	m := sp.Model()
+	switch {
+	case m != nil && isGibbsOnly(m):
+		return "has only gf, which holds at 298.15 K alone"
+	case m != nil:
+		return "has no gf to combine with the gf-only species"
+	case !sp.hasThermoData():
+		return "has no thermodynamic data"
+	case len(sp.Ranges) > 0:
+		return "has polynomial ranges that cannot be used"
+	case sp.Hf != nil:
+		return "has hf but no s"
+	case sp.S != nil:
+		return "has s but no hf"
+	}
+	return "has only cp"
+}
+
+var polynomialMismatchCheck = &Check{
+	Name:     "polynomial-mismatch",
+	Severity: lang.Warning,
+	Doc: `a species' polynomial disagrees with its own hf, s or cp at 298.15 K
+Where a species has shomate or nasa7 ranges covering 298.15 K and also hf,
+s or cp, the polynomial is what hess computes with, and the single values
+must say the same: H° within the network's tolerance of hf, T·S° within it
+of T·s, and Cp° within 1 % of cp (common practice). A disagreement usually
+means the two come from different sources, a different standard pressure,
+or a mistyped coefficient (the F or H parameter of a Shomate fit, a6 or a7
+of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
+	Run: func(p *Pass) {
+		tol := p.Net.Settings.Tolerance
+		for _, sp := range p.Net.Species {
+			if len(sp.Ranges) == 0 {
+				continue
+			}
+			m := sp.Model()
+			if m == nil || !covers(m, thermo.T298) {
+				continue
+			}
+			var related []lang.Related
+			for _, r := range sp.Ranges {
+				if thermo.T298 >= r.Tmin-thermo.JoinTolerance && thermo.T298 <= r.Tmax+thermo.JoinTolerance {
+					related = append(related, lang.Related{Span: r.Header, Message: fmt.Sprintf("%s range %s to %s", r.Kind, kelvin(r.Tmin), kelvin(r.Tmax))})
+					break
+				}
+			}
+			T := thermo.T298
+			if v := sp.Hf; v != nil {
+				if d := m.H(T) - v.V; math.Abs(d) > tol {
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+						"the polynomial of %s gives H° = %.3f kJ/mol at 298.15 K, hf says %.3f kJ/mol (%s kJ/mol apart, tolerance %s kJ/mol)",
+						sp.Key, m.H(T)/1000, v.V/1000, short(math.Abs(d)/1000), short(tol/1000))})
+				}
+			}
+			if v := sp.S; v != nil {
+				if d := m.S(T) - v.V; T*math.Abs(d) > tol {
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+						"the polynomial of %s gives S° = %.3f J/mol/K at 298.15 K, s says %.3f J/mol/K (T·ΔS° = %s kJ/mol, tolerance %s kJ/mol)",
+						sp.Key, m.S(T), v.V, short(T*math.Abs(d)/1000), short(tol/1000))})
+				}
+			}
+			if v := sp.Cp; v != nil {
+				cp := m.Cp(T)
+				if d := cp - v.V; math.Abs(d) > cpJumpFraction*math.Abs(cp) {
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+						"the polynomial of %s gives Cp° = %.3f J/mol/K at 298.15 K, cp says %.3f J/mol/K (%.1f %% apart, more than 1 %%)",
+						sp.Key, cp, v.V, 100*math.Abs(d)/math.Abs(cp))})
+				}
+			}
+		}
+	},
+}
+
+// TemperatureDiagnostics runs the checks that depend on the requested
+// temperatures (extrapolation and missing-thermo) at temps instead of the
+// settings' temperatures, with the network's lint settings applied. The
+// network itself is not changed.
+func (n *Network) TemperatureDiagnostics(temps []float64) lang.Diagnostics {
+	scratch := *n
+	scratch.Diagnostics = nil
+	scratch.Settings.Temperatures = temps
+	for _, c := range []*Check{extrapolationCheck, missingThermoCheck} {
+		if sev, ok := n.Settings.Lint[c.Name]; ok && sev == lang.Off {
+			continue
+		}
+		c.Run(&Pass{Net: &scratch, check: c})
+	}
+	finalize(&scratch)
+	return scratch.Diagnostics
+}
+
+// IsTemperatureCode reports whether code is one that TemperatureDiagnostics
+// reports, so that a caller replacing the settings' temperatures can drop
+// the network's own findings of that code.
+func IsTemperatureCode(code string) bool {
+	return code == extrapolationCheck.Name || code == missingThermoCheck.Name
+}

@@ -1,0 +1,417 @@
+package network
+
+import (
+	"math"
+
+	"hess/thermo"
+)
+
+// ReactionTable is one reaction's equilibrium constant over temperature: what
+// `hess table` prints for it.
+type ReactionTable struct {
+	Reaction      *Reaction
+	Kind          string // "Kp", "Kc", "Ksp" or "K" (CLI.md)
+	Quotient      string // e.g. "p(CO2) p(H2) / (p(CO) p(H2O))"
+	DeltaGasMoles float64
+	// StandardPressure is p° in Pa, the pressure the gas data and K refer to.
+	StandardPressure float64
+	// Crossovers are the temperatures inside the data's range where ΔrG°
+	// changes sign.
+	Crossovers []thermo.Crossover
+	// Tmin and Tmax bound the temperatures the data cover (Tmin > Tmax when
+	// the data hold at no span of temperatures, such as gf alone).
+	Tmin, Tmax float64
+	Rows       []TableRow
+}
+
+// TableRow is a reaction's standard reaction properties and equilibrium
+// constants at one temperature.
+type TableRow struct {
+	T, DH, DS, DG, K, Log10K, Kc float64    // SI: J/mol, J/mol/K; NaN where unknown
+	SigmaLog10K                  float64    // first-order standard uncertainty of log10 K; 0 when no input carries one
+	Valid                        bool       // false when a species lacks data at T (missing-thermo)
+	Extrapolated                 bool       // some data are used outside their temperature range
+	Basis                        Basis      // where the numbers come from
+	Missing                      []*Species // when not Valid: the species whose data do not reach T
+}
+
+// Basis says which data a table row is computed from.
+type Basis int
+
+// Sources of a table row, in the order they are tried.
+const (
+	BasisNone         Basis = iota // no data give the row
+	BasisSpecies                   // the species' models: ΔrG° = Σ ν (H° − T S°)
+	BasisFormation                 // the species' gf at 298.15 K: ΔrG° = Σ ν ΔfG°
+	BasisCombination               // the weighted sum of a coupled reaction's parts
+	BasisReactionData              // the reaction's own dg, dh, ds or logk
+)
+
+func (b Basis) String() string {
+	switch b {
+	case BasisSpecies:
+		return "species"
+	case BasisFormation:
+		return "formation"
+	case BasisCombination:
+		return "combination"
+	case BasisReactionData:
+		return "reaction data"
+	}
+	return "none"
+}
+
+// ReactionTable computes a reaction's K(T) table at the given temperatures (K).
+//
+// A row comes from the first of these that gives ΔrG° at T: the species'
+// models; at 298.15 K, the species' gf when some species is known by gf
+// alone; for a coupled reaction, the weighted sum of its parts' rows; the
+// reaction's own logk at T, its dh with ds (or either with dg), or its dg at
+// 298.15 K. K is relative to the network's standard pressure and 1 mol/kg;
+// Kc = K·(p°/(R·T·1 mol/L))^Δn. A nil reaction has a nil table.
+func (n *Network) ReactionTable(rx *Reaction, temps []float64) *ReactionTable {
+	if rx == nil {
+		return nil
+	}
+	c := n.calc(rx)
+	t := &ReactionTable{
+		Reaction:         rx,
+		Kind:             kindOf(c.terms),
+		Quotient:         quotientText(c.terms),
+		DeltaGasMoles:    c.dn,
+		StandardPressure: c.p0,
+	}
+	t.Tmin, t.Tmax = c.span()
+	t.Crossovers = c.crossovers()
+	t.Rows = make([]TableRow, 0, len(temps))
+	for _, T := range temps {
+		t.Rows = append(t.Rows, c.row(T))
+	}
+	return t
+}
+
+// rxCalc holds what a reaction's rows are computed from.
+type rxCalc struct {
+	net   *Network
+	rx    *Reaction
+	terms []netTerm
+	dn    float64
+	p0    float64
+
+	abs          thermo.Reaction // species models
+	absOK        bool            // every species has a model with H° and S°
+	coverage     [][][2]float64  // per term of abs, where its data hold
+	form         thermo.Reaction // species gf at 298.15 K
+	formOK       bool            // every species has gf
+	anyGibbsOnly bool
+
+	// parts are the calculations of a coupled reaction's parts, in the
+	// order of its combination; partsOK is false when a part is undefined
+	// or leads back to a reaction being summed.
+	parts   []*rxCalc
+	partsOK bool
+
+	// The last point computed, so that a part shared by several coupled
+	// reactions is evaluated once per temperature.
+	lastT   float64
+	last    point
+	hasLast bool
+
+	spanLo, spanHi float64
+	spanDone       bool
+}
+
+func (n *Network) calc(rx *Reaction) *rxCalc {
+	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*rxCalc{})
+}
+
+// calcWithin builds the calculation of rx; path holds the coupled reactions
+// being expanded above it, memo the calculations already built.
+func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Reaction]*rxCalc) *rxCalc {
+	if c, ok := memo[rx]; ok {
+		return c
+	}
+	c := &rxCalc{net: n, rx: rx, terms: netTerms(rx), p0: n.Settings.Pressure}
+	if len(rx.Combo) > 0 {
+		path[rx] = true
+		c.partsOK = true
+		for _, ct := range rx.Combo {
+			if ct.Reaction == nil || ct.Weight == nil || path[ct.Reaction] {
+				c.partsOK = false
+				break
+			}
+			c.parts = append(c.parts, n.calcWithin(ct.Reaction, path, memo))
+		}
+		delete(path, rx)
+	}
+	memo[rx] = c
+	if !(c.p0 > 0) {
+		c.p0 = thermo.Bar
+	}
+	c.dn = deltaGasMoles(c.terms)
+	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
+	for _, t := range c.terms {
+		nu, _ := t.nu.Float64()
+		sp := t.species
+		a := quotientActivity(sp)
+		m := sp.Model()
+		if m == nil || isGibbsOnly(m) {
+			c.absOK = false
+		}
+		if m != nil && isGibbsOnly(m) {
+			c.anyGibbsOnly = true
+		}
+		c.coverage = append(c.coverage, coverage(m))
+		c.abs.Terms = append(c.abs.Terms, thermo.Term{Nu: nu, Model: m, IsGas: a == thermo.ActivityGas, Activity: a, Sigma: sp.Sigma()})
+		var g thermo.Model
+		if sp.Gf != nil {
+			if gm, err := thermo.NewGibbsOnly(sp.Gf.V); err == nil {
+				g = gm
+			}
+		}
+		if g == nil {
+			c.formOK = false
+		}
+		c.form.Terms = append(c.form.Terms, thermo.Term{Nu: nu, Model: g, IsGas: a == thermo.ActivityGas, Activity: a, Sigma: sp.Sigma()})
+	}
+	return c
+}
+
+// point is a reaction's ΔrH°, ΔrS°, ΔrG° and σ(log10 K) at one temperature.
+type point struct {
+	dh, ds, dg, sigma float64
+	extrapolated      bool
+	basis             Basis
+}
+
+func (p point) ok() bool { return !math.IsNaN(p.dg) && !math.IsInf(p.dg, 0) }
+
+var noPoint = point{dh: math.NaN(), ds: math.NaN(), dg: math.NaN(), sigma: math.NaN()}
+
+func (c *rxCalc) row(T float64) TableRow {
+	p := c.at(T)
+	r := TableRow{T: T, DH: p.dh, DS: p.ds, DG: p.dg, K: math.NaN(), Log10K: math.NaN(), Kc: math.NaN(),
+		SigmaLog10K: math.NaN(), Extrapolated: p.extrapolated, Basis: p.basis}
+	if !p.ok() || !(T > 0) {
+		r.DG, r.Basis, r.Extrapolated = math.NaN(), BasisNone, false
+		r.Missing = c.lacking(T)
+		return r
+	}
+	r.Valid = true
+	lnK := -p.dg / (thermo.R * T)
+	r.K = math.Exp(lnK)
+	r.Log10K = lnK / math.Ln10
+	r.Kc = r.K
+	if c.dn != 0 {
+		r.Kc = math.Exp(lnK + c.dn*math.Log(c.p0/(thermo.R*T*thermo.CStd)))
+	}
+	r.SigmaLog10K = p.sigma
+	return r
+}
+
+// at evaluates the reaction at T from the first source that gives ΔrG°.
+func (c *rxCalc) at(T float64) point {
+	if c.hasLast && c.lastT == T {
+		return c.last
+	}
+	p := c.eval(T)
+	c.lastT, c.last, c.hasLast = T, p, true
+	return p
+}
+
+func (c *rxCalc) eval(T float64) point {
+	if !(T > 0) {
+		return noPoint
+	}
+	if c.absOK {
+		if p := c.fromSpecies(T); p.ok() {
+			return p
+		}
+	}
+	if c.formOK && c.anyGibbsOnly && thermo.AtT298(T) {
+		if p := c.fromFormation(T); p.ok() {
+			return p
+		}
+	}
+	if p := c.fromCombination(T); p.ok() {
+		return p
+	}
+	if p := ownData(c.rx, T); p.ok() {
+		return p
+	}
+	return noPoint
+}
+
+func (c *rxCalc) fromSpecies(T float64) point {
+	p := point{dh: c.abs.DeltaH(T), ds: c.abs.DeltaS(T), dg: c.abs.DeltaG(T), sigma: c.abs.SigmaLog10K(T), basis: BasisSpecies}
+	for _, cov := range c.coverage {
+		if !coveredBy(cov, T) {
+			p.extrapolated = true
+		}
+	}
+	return p
+}
+
+// fromFormation sums gf at 298.15 K. ΔrH° is Σ ν hf when every species has
+// hf, and ΔrS° follows from ΔrH° and ΔrG°.
+func (c *rxCalc) fromFormation(T float64) point {
+	p := point{dh: 0, ds: math.NaN(), dg: c.form.DeltaG(T), sigma: c.form.SigmaLog10K(T), basis: BasisFormation}
+	for _, t := range c.terms {
+		if t.species.Hf == nil {
+			p.dh = math.NaN()
+			break
+		}
+		nu, _ := t.nu.Float64()
+		p.dh += nu * t.species.Hf.V
+	}
+	if !math.IsNaN(p.dh) {
+		p.ds = (p.dh - p.dg) / T
+	}
+	return p
+}
+
+// fromCombination sums the parts of a coupled reaction, weighted: ΔrG°, ΔrH°
+// and ΔrS° add, and so do the variances of log10 K.
+func (c *rxCalc) fromCombination(T float64) point {
+	if !c.partsOK {
+		return noPoint
+	}
+	sum := point{basis: BasisCombination}
+	variance := 0.0
+	for i, ct := range c.rx.Combo {
+		w, _ := ct.Weight.Float64()
+		p := c.parts[i].at(T)
+		if !p.ok() {
+			return noPoint
+		}
+		sum.dh += w * p.dh
+		sum.ds += w * p.ds
+		sum.dg += w * p.dg
+		variance += w * w * p.sigma * p.sigma
+		sum.extrapolated = sum.extrapolated || p.extrapolated
+	}
+	sum.sigma = math.Sqrt(variance)
+	return sum
+}
+
+// ownData evaluates a reaction's own data at T: a logk given at T; else a
+// linear ΔrG°(T) = ΔrH° − T·ΔrS° from two of dh, ds and dg (dg taken at
+// 298.15 K), valid like hf/s data from thermo.ConstTmin to thermo.ConstTmax;
+// else dg alone at 298.15 K.
+func ownData(rx *Reaction, T float64) point {
+	for _, lk := range rx.LogK {
+		if math.Abs(lk.T-T) <= thermo.T298Tolerance {
+			return point{dh: math.NaN(), ds: math.NaN(), dg: -thermo.R * T * math.Ln10 * lk.Value.V,
+				sigma: lk.Value.Sigma, basis: BasisReactionData}
+		}
+	}
+	if lin, ok := linearData(rx); ok {
+		p := point{dh: lin.dh, ds: lin.ds, dg: lin.dh - T*lin.ds, basis: BasisReactionData}
+		// ΔrG°(T) = wh·dh + wg·dg + ws·ds in terms of the inputs given.
+		var v float64
+		switch {
+		case rx.Dh != nil && rx.Ds != nil:
+			v = sq(rx.Dh.Sigma) + sq(T*rx.Ds.Sigma)
+		case rx.Dh != nil: // with dg
+			v = sq((1-T/thermo.T298)*rx.Dh.Sigma) + sq(T/thermo.T298*rx.Dg.Sigma)
+		default: // dg with ds
+			v = sq(rx.Dg.Sigma) + sq((thermo.T298-T)*rx.Ds.Sigma)
+		}
+		p.sigma = thermo.SigmaLog10K(T, math.Sqrt(v))
+		p.extrapolated = T < thermo.ConstTmin || T > thermo.ConstTmax
+		return p
+	}
+	if rx.Dg != nil && thermo.AtT298(T) {
+		return point{dh: math.NaN(), ds: math.NaN(), dg: rx.Dg.V, sigma: thermo.SigmaLog10K(T, rx.Dg.Sigma), basis: BasisReactionData}
+	}
+	return noPoint
+}
+
+type linear struct{ dh, ds float64 }
+
+// linearData returns the reaction's constant ΔrH° and ΔrS° from two of its
+// dh, ds and dg.
+func linearData(rx *Reaction) (linear, bool) {
+	switch {
+	case rx.Dh != nil && rx.Ds != nil:
+		return linear{rx.Dh.V, rx.Ds.V}, true
+	case rx.Dh != nil && rx.Dg != nil:
+		return linear{rx.Dh.V, (rx.Dh.V - rx.Dg.V) / thermo.T298}, true
+	case rx.Dg != nil && rx.Ds != nil:
+		return linear{rx.Dg.V + thermo.T298*rx.Ds.V, rx.Ds.V}, true
+	}
+	return linear{}, false
+}
+
+func sq(x float64) float64 { return x * x }
+
+// span is the span of temperatures over which the reaction's ΔrG° is a
+// continuous function of the data: the overlap of its species' ranges, of
+// its parts' spans for a coupled reaction, or hf/s-like limits for its own
+// dh/ds data. lo > hi means no span.
+func (c *rxCalc) span() (lo, hi float64) {
+	if !c.spanDone {
+		c.spanLo, c.spanHi = c.findSpan()
+		c.spanDone = true
+	}
+	return c.spanLo, c.spanHi
+}
+
+func (c *rxCalc) findSpan() (lo, hi float64) {
+	if c.absOK {
+		return c.abs.Range()
+	}
+	if c.partsOK {
+		lo, hi = 0, math.Inf(1)
+		for _, part := range c.parts {
+			l, h := part.span()
+			lo, hi = math.Max(lo, l), math.Min(hi, h)
+		}
+		if lo < hi {
+			return lo, hi
+		}
+	}
+	if _, ok := linearData(c.rx); ok {
+		return thermo.ConstTmin, thermo.ConstTmax
+	}
+	return math.Inf(1), math.Inf(-1)
+}
+
+// crossovers finds every sign change of ΔrG° inside the data's span.
+func (c *rxCalc) crossovers() []thermo.Crossover {
+	lo, hi := c.span()
+	if !(lo < hi) || math.IsInf(hi, 0) {
+		return nil
+	}
+	return thermo.Crossovers(func(T float64) float64 {
+		if c.absOK {
+			return c.abs.DeltaG(T)
+		}
+		p := c.at(T)
+		if !p.ok() {
+			return math.NaN()
+		}
+		return p.dg
+	}, lo, hi)
+}
+
+// lacking lists the species whose data cannot give the reaction at T: no
+// usable model, gf alone away from 298.15 K, or (at 298.15 K, beside a
+// gf-only species) no gf.
+func (c *rxCalc) lacking(T float64) []*Species {
+	var out []*Species
+	for _, t := range c.terms {
+		m := t.species.Model()
+		if m == nil || (isGibbsOnly(m) && !thermo.AtT298(T)) {
+			out = append(out, t.species)
+		}
+	}
+	if len(out) == 0 && thermo.AtT298(T) && c.anyGibbsOnly {
+		for _, t := range c.terms {
+			if t.species.Gf == nil {
+				out = append(out, t.species)
+			}
+		}
+	}
+	return out
+}

@@ -1,0 +1,193 @@
+package network
+
+import (
+	"math"
+	"slices"
+
+	"hess/thermo"
+)
+
+// Model returns the species' thermodynamic model, or nil when it has no usable data.
+//
+// Polynomial ranges (shomate, nasa7) make the model when the species has
+// any; hf and s given beside them are only compared with it at 298.15 K.
+// Otherwise hf and s make a constant-heat-capacity model (cp, or 0), valid
+// from thermo.ConstTmin to thermo.ConstTmax, and gf alone makes a model that
+// holds at 298.15 K only. hf without s, or s without hf, is no model.
+func (s *Species) Model() thermo.Model {
+	if s.built {
+		return s.model
+	}
+	return s.buildModel()
+}
+
+// buildModels builds every species' model once the network is compiled, so
+// that Model is a plain read afterwards (safe for concurrent readers).
+func buildModels(n *Network) {
+	for _, sp := range n.Species {
+		sp.model = sp.buildModel()
+		sp.built = true
+	}
+}
+
+func (s *Species) buildModel() thermo.Model {
+	if len(s.Ranges) > 0 {
+		pieces := make([]thermo.Model, 0, len(s.Ranges))
+		for _, r := range sortedRanges(s.Ranges) {
+			m := r.model()
+			if m == nil {
+				return nil
+			}
+			pieces = append(pieces, m)
+		}
+		pw, err := thermo.NewPiecewise(pieces...)
+		if err != nil {
+			return nil
+		}
+		return pw
+	}
+	switch {
+	case s.Hf != nil && s.S != nil:
+		cp := 0.0
+		if s.Cp != nil {
+			cp = s.Cp.V
+		}
+		m, err := thermo.NewConstantCp(s.Hf.V, s.S.V, cp)
+		if err != nil {
+			return nil
+		}
+		return m
+	case s.Gf != nil:
+		m, err := thermo.NewGibbsOnly(s.Gf.V)
+		if err != nil {
+			return nil
+		}
+		return m
+	}
+	return nil
+}
+
+// sortedRanges returns the ranges in the order thermo.Piecewise keeps them:
+// by lower bound, ties in source order.
+func sortedRanges(rs []*PolyRange) []*PolyRange {
+	out := slices.Clone(rs)
+	slices.SortStableFunc(out, func(a, b *PolyRange) int {
+		switch {
+		case a.Tmin < b.Tmin:
+			return -1
+		case a.Tmin > b.Tmin:
+			return 1
+		}
+		return 0
+	})
+	return out
+}
+
+// model is the range as a thermo model, or nil when its numbers are unusable.
+func (r *PolyRange) model() thermo.Model {
+	if !(r.Tmin > 0) || !(r.Tmax > r.Tmin) || math.IsInf(r.Tmax, 0) {
+		return nil
+	}
+	for _, c := range r.Coeffs {
+		if math.IsNaN(c) || math.IsInf(c, 0) {
+			return nil
+		}
+	}
+	switch {
+	case r.Kind == "shomate" && len(r.Coeffs) == 8:
+		m := thermo.ShomateRange{Tmin: r.Tmin, Tmax: r.Tmax}
+		copy(m.Coef[:], r.Coeffs)
+		return m
+	case r.Kind == "nasa7" && len(r.Coeffs) == 7:
+		m := thermo.NASA7Range{Tmin: r.Tmin, Tmax: r.Tmax}
+		copy(m.A[:], r.Coeffs)
+		return m
+	}
+	return nil
+}
+
+// Sigma returns the standard uncertainties written with the species' hf, s
+// and gf (zero where none was given).
+func (s *Species) Sigma() thermo.SpeciesSigma {
+	var sg thermo.SpeciesSigma
+	if s.Hf != nil {
+		sg.H = s.Hf.Sigma
+	}
+	if s.S != nil {
+		sg.S = s.S.Sigma
+	}
+	if s.Gf != nil {
+		sg.G = s.Gf.Sigma
+	}
+	return sg
+}
+
+// Activity returns how the species enters an equilibrium expression, from
+// its phase's convention: an ideal gas, a pure solid (s, cr and declared
+// pure phases), a pure liquid (l), a solute, or a member of a solution. A
+// species without a known phase is ActivityUnstated.
+func (s *Species) Activity() thermo.Activity {
+	if s.Phase == nil {
+		return thermo.ActivityUnstated
+	}
+	switch s.Phase.Convention {
+	case IdealGas:
+		return thermo.ActivityGas
+	case Pure:
+		if s.Phase.Tag == "l" {
+			return thermo.ActivityPureLiquid
+		}
+		return thermo.ActivityPureSolid
+	case Solute:
+		return thermo.ActivitySolute
+	case SolutionMember:
+		return thermo.ActivitySolution
+	}
+	return thermo.ActivityUnstated
+}
+
+// hasThermoData reports whether the species carries any thermodynamic datum.
+func (s *Species) hasThermoData() bool {
+	return s.Hf != nil || s.Gf != nil || s.S != nil || s.Cp != nil || len(s.Ranges) > 0
+}
+
+// isGibbsOnly reports whether a model holds at the single temperature
+// 298.15 K (a species known by gf alone).
+func isGibbsOnly(m thermo.Model) bool {
+	lo, hi := m.Range()
+	return lo == hi
+}
+
+// covers reports whether the model's data (not an extrapolation) hold at T:
+// inside one of a piecewise model's ranges, inside a range-less model's
+// span, or at 298.15 K for gf alone.
+func covers(m thermo.Model, T float64) bool { return coveredBy(coverage(m), T) }
+
+// coverage lists the spans of temperature where a model's data hold.
+func coverage(m thermo.Model) [][2]float64 {
+	if m == nil {
+		return nil
+	}
+	if pw, ok := m.(*thermo.Piecewise); ok {
+		var out [][2]float64
+		for _, p := range pw.Pieces() {
+			lo, hi := p.Range()
+			out = append(out, [2]float64{lo - thermo.JoinTolerance, hi + thermo.JoinTolerance})
+		}
+		return out
+	}
+	lo, hi := m.Range()
+	if lo == hi {
+		return [][2]float64{{thermo.T298 - thermo.T298Tolerance, thermo.T298 + thermo.T298Tolerance}}
+	}
+	return [][2]float64{{lo, hi}}
+}
+
+func coveredBy(spans [][2]float64, T float64) bool {
+	for _, s := range spans {
+		if T >= s[0] && T <= s[1] {
+			return true
+		}
+	}
+	return false
+}
