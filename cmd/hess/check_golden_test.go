@@ -48,6 +48,9 @@ func TestCheckGolden(t *testing.T) {
 func compareGolden(t *testing.T, path string, got []byte) {
 	t.Helper()
 	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
 		if err := os.WriteFile(path, got, 0o644); err != nil {
 			t.Fatal(err)
 		}

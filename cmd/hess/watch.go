@@ -252,22 +252,11 @@ func (w *watcher) writeTable(net *network.Network) error {
 	for _, rx := range net.Reactions {
 		doc.Tables = append(doc.Tables, net.ReactionTable(rx, temps))
 	}
-	var buf bytes.Buffer
-	var err error
-	switch w.opts.format {
-	case "csv":
-		err = renderTableCSV(&buf, doc)
-	case "json":
-		err = renderTableJSON(&buf, doc)
-	case "markdown":
-		err = renderTableMarkdown(&buf, doc)
-	default:
-		err = renderTableText(&buf, doc)
-	}
+	data, err := renderTableFormat(doc, w.opts.format)
 	if err != nil {
 		return fmt.Errorf("rendering the table: %w", err)
 	}
-	return writeFileAtomic(w.opts.table, buf.Bytes())
+	return writeFileAtomic(w.opts.table, data)
 }
 
 // mergedReport is one report of several networks: every file once, every
