@@ -174,6 +174,11 @@ func (b *batchLexer) end() lexer.Token {
 // first on its line, so a block missing its `}` ends where the next
 // statement begins on a new line.
 func Parse(file string, src []byte) (*File, Diagnostics) {
+	return parse(file, src, nil)
+}
+
+// parse is Parse with an optional statement cache.
+func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 	l := newLexState(file, src)
 	f := &File{Name: file}
 	var diags Diagnostics
@@ -183,7 +188,7 @@ func Parse(file string, src []byte) (*File, Diagnostics) {
 	for {
 		b.chunks, b.n, b.full = nil, 0, false
 		peek, _ := lexer.Upgrade(b) // batchLexer.Next never fails
-		results := parseBatch(peek, b.chunks)
+		results := parseBatch(peek, b.chunks, src, cache)
 		for _, r := range results {
 			if r.st != nil {
 				f.Statements = append(f.Statements, r.st)
@@ -206,7 +211,8 @@ type result struct {
 
 // parseBatch parses the statements of one batch, in parallel when there are
 // several processors and enough statements.
-func parseBatch(peek *lexer.PeekingLexer, chunks []chunk) []result {
+// With a cache, a statement whose text it holds is taken from it.
+func parseBatch(peek *lexer.PeekingLexer, chunks []chunk, src []byte, cache *Cache) []result {
 	results := make([]result, len(chunks))
 	// A checkpoint at the start of each statement, so that each can be
 	// parsed on its own.
@@ -219,9 +225,25 @@ func parseBatch(peek *lexer.PeekingLexer, chunks []chunk) []result {
 		starts[i] = walk.MakeCheckpoint()
 	}
 	parseOne := func(i int) {
+		var key cacheKey
+		keyed := false
+		if cache != nil {
+			c := chunks[i]
+			if toks := peek.Range(lexer.RawCursor(c.start), lexer.RawCursor(c.end)); len(toks) > 0 {
+				if key, keyed = statementKey(src, toks); keyed {
+					if st := cache.lookup(key, toks[0].Pos); st != nil {
+						results[i] = result{st: st}
+						return
+					}
+				}
+			}
+		}
 		lx := *peek
 		lx.LoadCheckpoint(starts[i])
 		results[i] = parseStatement(&lx, chunks[i])
+		if keyed {
+			cache.store(key, results[i].st, len(results[i].diags) == 0)
+		}
 	}
 	workers := min(runtime.GOMAXPROCS(0), len(chunks)/16)
 	if workers < 2 {

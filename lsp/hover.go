@@ -45,6 +45,8 @@ func (s *server) hover(ctx context.Context, req *jsonrpc2.Request) (any, error) 
 		reactionHover(w, t.net, sym)
 	case network.SymbolInclude:
 		includeHover(w, sym)
+	case network.SymbolMixture:
+		mixtureHover(w, t.net, sym)
 	default:
 		return nil, nil
 	}

@@ -34,6 +34,7 @@ type worker struct {
 
 	// Touched only by the worker goroutine.
 	cache      map[string]*compiled // by root path
+	parsed     *network.ParseCaches // parsed statements of every file compiled
 	cacheEpoch uint64               // the store's open/close/save count the cache is for
 	owners     map[string]string    // file path -> root path, from the last cycle
 	published  map[string]published // by path
@@ -297,7 +298,10 @@ func (w *worker) compile(path string, open map[string]document, src network.Sour
 	if w.beforeCompile != nil {
 		w.beforeCompile(path)
 	}
-	net := network.Load(path, src)
+	if w.parsed == nil {
+		w.parsed = network.NewParseCaches()
+	}
+	net := network.LoadCached(path, src, w.parsed)
 	c = &compiled{net: net, key: inputKey(net, open)}
 	w.cache[path] = c
 	return c

@@ -5,7 +5,9 @@ import (
 	"math"
 	"sort"
 
-	"gonum.org/v1/gonum/mat"
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
 // adjustment is the weighted least-squares fit of species potentials to
@@ -26,7 +28,7 @@ type adjustment struct {
 	rows   map[int][]condWeight // column -> the conditions it is in
 	sigma2 map[int]float64
 	z      []float64
-	chol   *mat.Cholesky
+	u      blas64.Triangular // Cholesky factor: M = UᵀU
 }
 
 type condWeight struct {
@@ -58,33 +60,27 @@ func newAdjustment(conds []ivec, y, sigma map[int]float64) (*adjustment, error) 
 		a.cols = append(a.cols, col)
 	}
 	sort.Ints(a.cols)
-	m := mat.NewSymDense(k, nil)
-	w := mat.NewVecDense(k, nil)
+	m := blas64.Symmetric{Uplo: blas.Upper, N: k, Stride: k, Data: make([]float64, k*k)}
+	w := make([]float64, k)
 	for _, col := range a.cols {
 		cw := a.rows[col]
 		s2 := a.sigma2[col]
 		for _, p := range cw {
-			w.SetVec(p.k, w.AtVec(p.k)+p.w*y[col])
+			w[p.k] += p.w * y[col]
 			for _, q := range cw {
 				if q.k >= p.k {
-					m.SetSym(p.k, q.k, m.At(p.k, q.k)+p.w*q.w*s2)
+					m.Data[p.k*k+q.k] += p.w * q.w * s2
 				}
 			}
 		}
 	}
-	chol := new(mat.Cholesky)
-	if ok := chol.Factorize(m); !ok {
+	u, ok := lapack64.Potrf(m)
+	if !ok {
 		return nil, fmt.Errorf("adjustment: the %d conditions are not independent", k)
 	}
-	var z mat.VecDense
-	if err := chol.SolveVecTo(&z, w); err != nil {
-		return nil, fmt.Errorf("adjustment: %w", err)
-	}
-	a.z = make([]float64, k)
-	for i := range a.z {
-		a.z[i] = z.AtVec(i)
-	}
-	a.chol = chol
+	a.u = u
+	lapack64.Potrs(u, blas64.General{Rows: k, Cols: 1, Stride: 1, Data: w})
+	a.z = w
 	return a, nil
 }
 
@@ -106,18 +102,16 @@ func (a *adjustment) normalised(col int) float64 {
 		return 0
 	}
 	num := 0.0
-	c := mat.NewVecDense(len(a.z), nil)
+	x := make([]float64, len(a.z))
 	for _, p := range cw {
 		num += p.w * a.z[p.k]
-		c.SetVec(p.k, p.w)
+		x[p.k] = p.w
 	}
-	var x mat.VecDense
-	if err := a.chol.SolveVecTo(&x, c); err != nil {
-		return 0
-	}
+	// c_rᵀM⁻¹c_r = |U⁻ᵀc_r|².
+	blas64.Trsv(blas.Trans, a.u, blas64.Vector{N: len(x), Inc: 1, Data: x})
 	q := 0.0
-	for _, p := range cw {
-		q += p.w * x.AtVec(p.k)
+	for _, v := range x {
+		q += v * v
 	}
 	if !(q > 0) {
 		return 0
@@ -142,11 +136,8 @@ func (a *adjustment) estimator(lambda map[int]float64) map[int]float64 {
 			g[p.k] += p.w * a.sigma2[col] * l
 		}
 	}
-	var hv mat.VecDense
-	if err := a.chol.SolveVecTo(&hv, mat.NewVecDense(k, g)); err != nil {
-		return lambda
-	}
-	h := hv.RawVector().Data
+	h := g
+	lapack64.Potrs(a.u, blas64.General{Rows: k, Cols: 1, Stride: 1, Data: h})
 	out := make(map[int]float64, len(lambda))
 	for col, l := range lambda {
 		out[col] = l

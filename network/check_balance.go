@@ -21,6 +21,9 @@ element with its left and right counts.`,
 			if !rx.Resolved {
 				continue
 			}
+			if balanced, _, ok := balancesInIntegers(rx); ok && balanced {
+				continue
+			}
 			left, right := elementCounts(rx.Left), elementCounts(rx.Right)
 			var parts []string
 			for _, sym := range unionKeys(left, right) {
@@ -46,6 +49,9 @@ The message gives both net charges.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
+				continue
+			}
+			if _, balanced, ok := balancesInIntegers(rx); ok && balanced {
 				continue
 			}
 			l, r := netCharge(rx.Left), netCharge(rx.Right)

@@ -38,11 +38,11 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 			temps = append(temps, lk.T)
 		}
 	}
-	tab := n.ReactionTable(rx, temps)
+	rows := n.reactionRows(rx, temps)
 	fromSpecies := func(row TableRow) bool {
 		return row.Valid && (row.Basis == BasisSpecies || row.Basis == BasisFormation)
 	}
-	row298 := tab.Rows[0]
+	row298 := rows[0]
 	var sH, sS float64 // species uncertainties of ΔrH° and ΔrS°
 	for _, t := range netTerms(rx) {
 		nu, _ := t.nu.Float64()
@@ -80,7 +80,7 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 	for _, lk := range rx.LogK {
 		var row TableRow
 		found := false
-		for _, r := range tab.Rows {
+		for _, r := range rows {
 			if math.Abs(r.T-lk.T) <= thermo.T298Tolerance {
 				row, found = r, true
 				break

@@ -46,6 +46,9 @@ different reaction and is not reported.`,
 // netKeys returns a canonical text of the reaction's net stoichiometry
 // (products positive) and of its reverse.
 func netKeys(rx *Reaction) (fwd, rev string) {
+	if f, r, ok := netKeysInt(rx); ok {
+		return f, r
+	}
 	net := map[string]*big.Rat{}
 	add := func(terms []Term, sign int64) {
 		for _, t := range terms {

@@ -107,11 +107,11 @@ type balanceMiss struct {
 
 func checkDetailedBalance(p *Pass, rx *Reaction) {
 	n := p.Net
-	tab := n.ReactionTable(rx, n.Settings.Temperatures)
+	rows := n.reactionRows(rx, n.Settings.Temperatures)
 	tol := n.Settings.Tolerance
 	var worst *balanceMiss
 	failing := 0
-	for _, row := range tab.Rows {
+	for _, row := range rows {
 		if !row.Valid || !(row.T > 0) {
 			continue
 		}

@@ -82,8 +82,9 @@ of whose species carries any data is a kinetics-only step and is not
 reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Settings.Temperatures
+		known := map[*Species]bool{}
 		for _, rx := range p.Net.Reactions {
-			if !rx.Resolved || !thermoIntent(rx) {
+			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) {
 				continue
 			}
 			c := p.Net.calc(rx)
@@ -91,7 +92,7 @@ reported.`,
 			var lacking []*Species
 			seen := map[*Species]bool{}
 			for _, T := range temps {
-				if !(T > 0) || c.at(T).ok() {
+				if !(T > 0) || c.okAt(T) {
 					continue
 				}
 				bad = append(bad, T)

@@ -58,6 +58,10 @@ var checks = []*Check{
 	rateUnitsCheck,
 	reverseOnOneWayCheck,
 	detailedBalanceCheck,
+	mixtureAmountCheck,
+	mixtureIncompleteCheck,
+	mixtureFractionsCheck,
+	notInMixtureCheck,
 }
 
 var checkByName = func() map[string]*Check {

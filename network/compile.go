@@ -740,40 +740,6 @@ func (c *compiler) combination(r *lang.Reaction) {
 	}
 }
 
-func (c *compiler) mixture(m *lang.Mixture) {
-	if !c.name(m.Name, "mixture") {
-		return
-	}
-	mx := &Mixture{Name: m.Name.Name, Span: m.Span()}
-	for _, it := range m.Items {
-		switch {
-		case it.Temperature != nil:
-			mx.Temperature, _ = c.quantity(it.Temperature, temperatureKind, "temperature", false)
-		case it.Pressure != nil:
-			mx.Pressure, _ = c.quantity(it.Pressure, pressureKind, "pressure", false)
-		case it.Member != nil:
-			sp := c.net.LookupSpecies(it.Member.Species.Text)
-			if sp == nil {
-				c.undefinedSpecies(it.Member.Species)
-				continue
-			}
-			mm := MixMember{Species: sp, Span: it.Member.Span()}
-			if q := it.Member.Amount; q != nil {
-				v, ok := c.number(q.Value)
-				if !ok {
-					continue
-				}
-				mm.Amount = &Value{V: v, Span: q.Span()}
-				if q.Unit != nil {
-					mm.Unit = q.Unit.Text
-				}
-			}
-			mx.Members = append(mx.Members, mm)
-		}
-	}
-	c.net.Mixtures = append(c.net.Mixtures, mx)
-}
-
 // quantityText prints a quantity as written, for messages.
 func quantityText(q *lang.Quantity) string {
 	if q == nil || q.Value == nil {

@@ -71,17 +71,37 @@ func (m *StoichMatrix) CycleBasis(cols []int) []Cycle {
 	order := sparsestFirst(m, cols)
 	e := newEliminator(m, order)
 	var fundamental []ivec
+	closing := map[int]bool{} // the column that closes each fundamental cycle
 	for _, j := range order {
 		if c := e.add(j); c != nil {
 			fundamental = append(fundamental, c)
+			closing[j] = true
 		}
 	}
 	// Fundamental cycles can run far through a network whose reactions
-	// form long chains. Short cycles found near each reaction, where there
-	// are any, take their place: the basis is the shortest independent
+	// form long chains. Short cycles found near the reactions of the long
+	// ones take their place: the basis is then the shortest independent
 	// cycles of both sets.
-	pool := append(m.localCycles(cols, e.count), fundamental...)
-	found := shorten(shortestIndependent(pool, len(fundamental)))
+	var far []int
+	onFar := map[int]bool{}
+	for _, c := range fundamental {
+		if len(c) <= shortCycle {
+			continue
+		}
+		for _, t := range c {
+			if !onFar[t.i] {
+				onFar[t.i] = true
+				far = append(far, t.i)
+			}
+		}
+	}
+	found := fundamental
+	if len(far) > 0 {
+		sort.Ints(far)
+		pool := append(m.localCycles(cols, far, e.count), fundamental...)
+		found = shortestIndependent(pool, len(fundamental), closing)
+	}
+	found = shorten(found)
 	out := make([]Cycle, 0, len(found))
 	for _, v := range found {
 		c := Cycle{Terms: make([]CycleTerm, len(v))}
@@ -103,14 +123,18 @@ func (m *StoichMatrix) CycleBasis(cols []int) []Cycle {
 	return out
 }
 
-// maxLocal bounds how many neighbouring reactions the search for a short
-// cycle through one reaction looks at.
-const maxLocal = 24
+// Limits of the search for short cycles: it starts from the reactions of
+// fundamental cycles of more than shortCycle reactions, and looks at up to
+// maxLocal neighbouring reactions of each.
+const (
+	shortCycle = 6
+	maxLocal   = 24
+)
 
-// localCycles looks, for each column, for a cycle through it among the
-// reactions nearest to it (those sharing species with it, then with them,
-// sparsest first), and returns the cycles found.
-func (m *StoichMatrix) localCycles(cols []int, count []int) []ivec {
+// localCycles looks, for each column of from, for a cycle through it among
+// the columns of cols nearest to it (those sharing species with it, then
+// with them, sparsest first), and returns the cycles found on the way.
+func (m *StoichMatrix) localCycles(cols, from []int, count []int) []ivec {
 	bySpecies := map[int][]int{}
 	for _, j := range cols {
 		for _, t := range m.Columns[j] {
@@ -118,7 +142,7 @@ func (m *StoichMatrix) localCycles(cols []int, count []int) []ivec {
 		}
 	}
 	var out []ivec
-	for _, j := range cols {
+	for _, j := range from {
 		e := &eliminator{nSpecies: len(m.Species), m: m, count: count, pivotOf: map[int]int{}}
 		seen := map[int]bool{j: true}
 		queue := []int{j}
@@ -144,7 +168,9 @@ func (m *StoichMatrix) localCycles(cols []int, count []int) []ivec {
 			if k == j {
 				continue
 			}
-			e.add(k)
+			if c := e.add(k); c != nil {
+				out = append(out, c) // a cycle among the neighbours
+			}
 			added++
 			if c := e.closes(j); c != nil {
 				out = append(out, c)
@@ -155,9 +181,12 @@ func (m *StoichMatrix) localCycles(cols []int, count []int) []ivec {
 	return out
 }
 
-// shortestIndependent picks dim linearly independent vectors from pool,
+// shortestIndependent picks dim linearly independent cycles from pool,
 // shortest first (fewest entries, then smallest weights, then pool order).
-func shortestIndependent(pool []ivec, dim int) []ivec {
+// A cycle is fixed by its weights on the columns that close the
+// fundamental cycles (on the other columns, which are independent, no
+// non-zero cycle lives), so independence is tested on those weights alone.
+func shortestIndependent(pool []ivec, dim int, closing map[int]bool) []ivec {
 	idx := make([]int, len(pool))
 	l1s := make([]*big.Int, len(pool))
 	for i, v := range pool {
@@ -177,7 +206,13 @@ func shortestIndependent(pool []ivec, dim int) []ivec {
 		if len(out) == dim {
 			break
 		}
-		if span.add(pool[i]) {
+		var proj ivec
+		for _, t := range pool[i] {
+			if closing[t.i] {
+				proj = append(proj, t)
+			}
+		}
+		if span.add(proj) {
 			out = append(out, pool[i])
 		}
 	}
@@ -214,8 +249,9 @@ func (s *spanTester) add(v ivec) bool {
 	if len(w) == 0 {
 		return false
 	}
-	s.pivotOf[w[0].i] = len(s.basis)
-	s.pivots = append(s.pivots, w[0].i)
+	p := w[0].i
+	s.pivotOf[p] = len(s.basis)
+	s.pivots = append(s.pivots, p)
 	s.basis = append(s.basis, w)
 	return true
 }
@@ -448,6 +484,11 @@ func shorten(cycles []ivec) []ivec {
 					if d == c || tried >= maxShortenPartners {
 						continue
 					}
+					// a·x − b·y keeps every entry of y outside x: a partner
+					// twice as long cannot shorten the cycle.
+					if len(cycles[d]) >= 2*len(best) {
+						continue
+					}
 					b, a := cycles[d].at(t.i), best.at(t.i)
 					if b == nil || a == nil {
 						continue
@@ -496,9 +537,10 @@ type shape struct {
 }
 
 // combinedShapeSmall is combinedShape in int64 arithmetic, for entries and
-// factors below 2³¹ in magnitude (ok is false otherwise).
+// factors below 2²⁰ in magnitude (ok is false otherwise), so that no sum of
+// products overflows.
 func combinedShapeSmall(a *big.Int, x ivec, b *big.Int, y ivec) (shape, bool) {
-	const lim = 1 << 31
+	const lim = 1 << 20
 	fits := func(z *big.Int) (int64, bool) {
 		if !z.IsInt64() {
 			return 0, false

@@ -263,9 +263,14 @@ func (a *cycleAnalysis) hint(fd *finding, r residual) string {
 			val, sg := f.fromOthers(k, c, v.culprits)
 			fmt.Fprintf(&b, "likely culprit: %s (normalised residual %.1f)", name(c), v.z[c])
 			if v.closed && len(v.culprits) == 1 {
-				fmt.Fprintf(&b, ": without its %s every cycle closes,", q)
+				fmt.Fprintf(&b, ": without its %s every cycle closes", q)
+				if !math.IsNaN(val) {
+					b.WriteString(",")
+				}
 			}
-			fmt.Fprintf(&b, " and the other data give it %s ± %s kJ/mol", kjText(val), kjText(sg))
+			if !math.IsNaN(val) {
+				fmt.Fprintf(&b, " and the other data give it %s ± %s kJ/mol", kjText(val), kjText(sg))
+			}
 		}
 		if v.closed && len(v.culprits) > 1 {
 			names := make([]string, len(v.culprits))

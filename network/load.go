@@ -16,19 +16,15 @@ import (
 // diagnostics on the network, never errors or panics; a root file that
 // cannot be read is an include-missing diagnostic with an empty span.
 func Load(root string, src Source) *Network {
-	n := &Network{Root: root}
-	l := &loader{net: n, src: src, index: map[string]int{}}
-	l.load(root, nil, lang.Span{})
-	compile(n)
-	runChecks(n)
-	finalize(n)
-	return n
+	return LoadCached(root, src, nil)
 }
 
 type loader struct {
 	net   *Network
 	src   Source
 	index map[string]int // file identity -> index in net.Files
+	// caches, when set, keep parsed statements between loads.
+	caches *ParseCaches
 }
 
 // chainLink is one include on the way from the root to a file.
@@ -86,7 +82,7 @@ func (l *loader) load(path string, chain []chainLink, at lang.Span) {
 		})
 		return
 	}
-	ast, diags := lang.Parse(path, text)
+	ast, diags := lang.ParseCached(path, text, l.caches.file(id))
 	l.index[id] = len(l.net.Files)
 	l.net.Files = append(l.net.Files, &File{Path: path, Source: text, AST: ast})
 	l.net.Diagnostics = append(l.net.Diagnostics, diags...)

@@ -181,15 +181,22 @@ type Reaction struct {
 type Mixture struct {
 	Name        string
 	Span        lang.Span
+	NameSpan    lang.Span
 	Temperature *Value
 	Pressure    *Value
 	Members     []MixMember
+	// Valid is false when some item of the mixture could not be read.
+	Valid bool
+
+	wroteT, wroteP bool // a temperature or pressure item was written
 }
 
-// MixMember is one species of a mixture with its amount as written.
+// MixMember is one species of a mixture with its amount: a mole fraction,
+// or in SI a partial pressure (Pa) or a molality (mol/kg), as Kind says.
 type MixMember struct {
 	Species *Species
 	Amount  *Value // nil for a pure phase marked present
-	Unit    string
+	Unit    string // as written
+	Kind    AmountKind
 	Span    lang.Span
 }

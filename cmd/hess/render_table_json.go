@@ -20,13 +20,14 @@ type jsonTables struct {
 }
 
 type jsonReactionTable struct {
-	Name          string          `json:"name"`
-	Equation      string          `json:"equation"`
-	Kind          string          `json:"kind"`
-	Quotient      string          `json:"quotient"`
-	DeltaGasMoles jsonNumber      `json:"deltaGasMoles"`
-	Crossovers    []jsonCrossover `json:"crossovers"`
-	Rows          []jsonTableRow  `json:"rows"`
+	Name          string           `json:"name"`
+	Equation      string           `json:"equation"`
+	Kind          string           `json:"kind"`
+	Quotient      string           `json:"quotient"`
+	DeltaGasMoles jsonNumber       `json:"deltaGasMoles"`
+	Crossovers    []jsonCrossover  `json:"crossovers"`
+	Rows          []jsonTableRow   `json:"rows"`
+	ReverseRate   *jsonReverseRate `json:"reverseRate,omitempty"`
 }
 
 type jsonCrossover struct {
@@ -69,7 +70,9 @@ func renderTableJSON(w io.Writer, doc *tableDoc) error {
 		Reactions:           make([]jsonReactionTable, 0, len(doc.Tables)),
 	}
 	for _, t := range doc.Tables {
-		out.Reactions = append(out.Reactions, jsonTable(t))
+		jt := jsonTable(t)
+		jt.ReverseRate = jsonReverse(doc.Reverse[t.Reaction])
+		out.Reactions = append(out.Reactions, jt)
 	}
 	var buf bytes.Buffer
 	enc := json.NewEncoder(&buf)

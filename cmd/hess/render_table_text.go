@@ -21,6 +21,9 @@ func renderTableText(w io.Writer, doc *tableDoc) error {
 		for _, line := range summaryLines(t) {
 			fmt.Fprintf(&b, "  %s\n", line)
 		}
+		if rr := doc.Reverse[t.Reaction]; rr != nil {
+			fmt.Fprintf(&b, "  %s\n", reverseRateLine(rr))
+		}
 		cols := tableColumns(kcHeader(t.DeltaGasMoles))
 		cells := make([][]string, 0, len(t.Rows)+1)
 		head := make([]string, len(cols))

@@ -108,6 +108,9 @@ type tableDoc struct {
 	Pressure float64 // standard pressure p°, Pa
 	Temps    []float64
 	Tables   []*network.ReactionTable
+	// Reverse holds the fitted reverse rates of the two-way steps that have
+	// only a forward rate (see reverseRates).
+	Reverse map[*network.Reaction]*network.ReverseRate
 
 	net *network.Network // the compiled network, for plots that sample more temperatures
 }
@@ -180,6 +183,7 @@ func newTableDoc(net *network.Network, root string, temps []float64, names []str
 	for _, rx := range rxs {
 		doc.Tables = append(doc.Tables, net.ReactionTable(rx, temps))
 	}
+	doc.Reverse = reverseRates(net, rxs, temps)
 	return doc, nil
 }
 

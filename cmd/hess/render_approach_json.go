@@ -1,0 +1,74 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+
+	"hess/network"
+	"hess/thermo"
+)
+
+// jsonApproach is the document `approach --format json` prints (CLI.md).
+type jsonApproach struct {
+	Network  string              `json:"network"`
+	Mixtures []jsonMixtureResult `json:"mixtures"`
+}
+
+type jsonMixtureResult struct {
+	Name        string                 `json:"name"`
+	T           jsonNumber             `json:"T_K"`
+	PressureBar jsonNumber             `json:"pressure_bar"`
+	Reactions   []jsonReactionApproach `json:"reactions"`
+}
+
+// jsonReactionApproach is one reaction in a mixture; unknown values and an
+// unknown direction are null.
+type jsonReactionApproach struct {
+	Name         string     `json:"name"`
+	Q            jsonNumber `json:"Q"`
+	K            jsonNumber `json:"K"`
+	Log10QOverK  jsonNumber `json:"log10QoverK"`
+	DG           jsonNumber `json:"dG_kJ_mol"`
+	Direction    *string    `json:"direction"`
+	EquilibriumT jsonNumber `json:"equilibriumT_K"`
+	Approach     jsonNumber `json:"approach_K"`
+}
+
+// renderApproachJSON writes the mixtures as one indented JSON document.
+func renderApproachJSON(w io.Writer, doc *approachDoc) error {
+	out := jsonApproach{Network: doc.Network, Mixtures: make([]jsonMixtureResult, 0, len(doc.Approaches))}
+	for _, a := range doc.Approaches {
+		out.Mixtures = append(out.Mixtures, jsonMixture(a))
+	}
+	var buf bytes.Buffer
+	enc := json.NewEncoder(&buf)
+	enc.SetEscapeHTML(false)
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(out); err != nil {
+		return fmt.Errorf("encoding JSON approach: %w", err)
+	}
+	if _, err := w.Write(buf.Bytes()); err != nil {
+		return fmt.Errorf("writing JSON approach: %w", err)
+	}
+	return nil
+}
+
+func jsonMixture(a *network.MixtureApproach) jsonMixtureResult {
+	jm := jsonMixtureResult{Name: a.Mixture.Name, T: jsonNumber(a.T), PressureBar: jsonNumber(a.P / thermo.Bar),
+		Reactions: make([]jsonReactionApproach, 0, len(a.Reactions))}
+	for _, r := range a.Reactions {
+		jr := jsonReactionApproach{
+			Name: r.Reaction.Name, Q: jsonNumber(math.Exp(r.LnQ)), K: jsonNumber(math.Exp(r.LnK)),
+			Log10QOverK: jsonNumber(r.Log10QOverK()), DG: jsonNumber(r.DG / 1000),
+			EquilibriumT: jsonNumber(r.EquilibriumT), Approach: jsonNumber(r.ApproachK(a.T)),
+		}
+		if s := r.Direction.String(); s != "" {
+			jr.Direction = &s
+		}
+		jm.Reactions = append(jm.Reactions, jr)
+	}
+	return jm
+}

@@ -1,0 +1,231 @@
+package network
+
+import (
+	"fmt"
+	"sort"
+	"strings"
+
+	"hess/lang"
+	"hess/thermo"
+)
+
+var mixtureAmountCheck = &Check{
+	Name:     "mixture-amount",
+	Severity: lang.Error,
+	Doc: `a mixture member's amount does not fit its phase
+Each member of a mixture gives its amount in the form its phase's activity
+convention needs: a gas a bare mole fraction (normalised over the mixture's
+gases) or a partial pressure such as 0.5 bar; a solute a molality such as
+0.01 mol/kg; a member of a solution phase a bare mole fraction from 0 to 1;
+a pure phase no number at all, which marks it present with activity 1.
+Amounts must be above zero (a species that is absent is left out, since a
+zero activity makes Q zero or infinite), a species is listed once, and a
+species needs its state tag: after a number the next word is read as its
+unit, so CO2 0.1 instead of CO2(g) 0.1 is reported here.`,
+	Run: func(p *Pass) {
+		for _, m := range p.Net.Mixtures {
+			for _, pr := range mixtureProblems(m) {
+				if pr.code == "mixture-amount" {
+					p.Reportf(pr.span, "%s", pr.msg)
+				}
+			}
+		}
+		brokenMixtureUnits(p)
+	},
+}
+
+var mixtureIncompleteCheck = &Check{
+	Name:     "mixture-incomplete",
+	Severity: lang.Error,
+	Doc: `a mixture lacks its temperature, its pressure or its members
+A mixture is evaluated at its own temperature, so it must give one. Gas mole
+fractions need the total pressure (pressure 25 bar) to become partial
+pressures; gases given as partial pressures do not. A mixture must list at
+least one species.`,
+	Run: func(p *Pass) {
+		for _, m := range p.Net.Mixtures {
+			for _, pr := range mixtureIncomplete(m) {
+				p.Reportf(pr.span, "%s", pr.msg)
+			}
+		}
+	},
+}
+
+var mixtureFractionsCheck = &Check{
+	Name:     "mixture-fractions",
+	Severity: lang.Error,
+	Doc: `a mixture's fractions or partial pressures do not add up
+Gas mole fractions are normalised to sum to 1, so they must not all be
+zero. A mixture gives its gases either all as mole fractions or all as
+partial pressures, never both (the fractions would have no defined share of
+the pressure). Partial pressures may not sum to more than the mixture's
+total pressure, and the mole fractions of one solution phase may not sum to
+more than 1.`,
+	Run: func(p *Pass) {
+		for _, m := range p.Net.Mixtures {
+			for _, pr := range mixtureProblems(m) {
+				if pr.code == "mixture-fractions" {
+					p.Reportf(pr.span, "%s", pr.msg)
+				}
+			}
+		}
+	},
+}
+
+var notInMixtureCheck = &Check{
+	Name:     "not-in-mixture",
+	Severity: lang.Info,
+	Doc: `a reaction has no quotient in a mixture
+A reaction's quotient Q in a mixture needs an activity for every species of
+its equation: the mixture must list each gas, solute and solution member,
+and list each pure phase to mark it present. A reaction that uses a species
+the mixture does not list is left out of that mixture's approach to
+equilibrium; the message names the species it lacks.`,
+	Run: func(p *Pass) {
+		for _, m := range p.Net.Mixtures {
+			if !m.Usable() {
+				continue
+			}
+			var parts []string
+			for _, rx := range p.Net.Reactions {
+				if !rx.Resolved {
+					continue
+				}
+				if _, lacking := p.Net.lnQuotient(m, rx); len(lacking) > 0 {
+					parts = append(parts, fmt.Sprintf("%s (lacks %s)", rx.Name, speciesList(lacking)))
+				}
+			}
+			if len(parts) == 0 {
+				continue
+			}
+			const shown = 6
+			if len(parts) > shown {
+				parts = append(parts[:shown], fmt.Sprintf("and %d more", len(parts)-shown))
+			}
+			p.Reportf(m.NameSpan, "mixture %s gives no quotient for %s", m.Name, strings.Join(parts, ", "))
+		}
+	},
+}
+
+func speciesList(sps []*Species) string {
+	names := make([]string, len(sps))
+	for i, sp := range sps {
+		names[i] = sp.Key
+	}
+	return strings.Join(names, ", ")
+}
+
+// mixtureProblem is one finding about a mixture as a whole.
+type mixtureProblem struct {
+	code string
+	span lang.Span
+	msg  string
+}
+
+// mixtureIncomplete lists what a mixture lacks: a temperature, a total
+// pressure for its gas mole fractions, any member at all.
+func mixtureIncomplete(m *Mixture) []mixtureProblem {
+	var out []mixtureProblem
+	add := func(format string, args ...any) {
+		out = append(out, mixtureProblem{"mixture-incomplete", m.NameSpan, fmt.Sprintf(format, args...)})
+	}
+	if !m.wroteT {
+		add("mixture %s gives no temperature (such as temperature 850 degC)", m.Name)
+	}
+	if _, n := m.gasFractionSum(); n > 0 && !m.wroteP {
+		add("mixture %s gives gas mole fractions but no total pressure (such as pressure 25 bar)", m.Name)
+	}
+	if len(m.Members) == 0 && m.Valid {
+		add("mixture %s lists no species", m.Name)
+	}
+	return out
+}
+
+// mixtureProblems lists the amounts of a mixture that cannot give
+// activities: zero gas fractions, all-zero fractions, fractions beside
+// partial pressures, partial pressures above the total, solution fractions
+// above 1.
+func mixtureProblems(m *Mixture) []mixtureProblem {
+	var out []mixtureProblem
+	sum, n := m.gasFractionSum()
+	var partials float64
+	var partialN int
+	for _, mm := range m.Members {
+		if mm.Kind == AmountPartialPressure {
+			partials += mm.Amount.V
+			partialN++
+		}
+	}
+	switch {
+	case n > 0 && sum == 0:
+		out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+			fmt.Sprintf("the gas mole fractions of mixture %s sum to 0: there is nothing to normalise", m.Name)})
+	case n > 0:
+		for _, mm := range m.Members {
+			if mm.Kind == AmountFraction && mm.Amount.V == 0 {
+				out = append(out, mixtureProblem{"mixture-amount", mm.Amount.Span,
+					fmt.Sprintf("mole fraction of %s is 0, which makes Q zero or infinite: leave the species out, or give its detection limit", mm.Species.Key)})
+			}
+		}
+	}
+	if n > 0 && partialN > 0 {
+		out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+			fmt.Sprintf("mixture %s gives %d gases as mole fractions and %d as partial pressures: give them all one way", m.Name, n, partialN)})
+	}
+	if partialN > 0 && m.Pressure != nil && partials > m.Pressure.V*(1+1e-9) {
+		out = append(out, mixtureProblem{"mixture-fractions", m.Pressure.Span,
+			fmt.Sprintf("the partial pressures of mixture %s sum to %s bar, above its pressure %s bar", m.Name,
+				barText(partials), barText(m.Pressure.V))})
+	}
+	solution := map[string]float64{}
+	for _, mm := range m.Members {
+		if mm.Kind == AmountSolution {
+			solution[mm.Species.Phase.Tag] += mm.Amount.V
+		}
+	}
+	tags := make([]string, 0, len(solution))
+	for tag := range solution {
+		tags = append(tags, tag)
+	}
+	sort.Strings(tags)
+	for _, tag := range tags {
+		if s := solution[tag]; s > 1+1e-9 {
+			out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+				fmt.Sprintf("the mole fractions in solution phase %s of mixture %s sum to %.6g, above 1", tag, m.Name, s)})
+		}
+	}
+	return out
+}
+
+func barText(pa float64) string { return fmt.Sprintf("%.6g", pa/thermo.Bar) }
+
+// brokenMixtureUnits explains a mixture that did not parse because a
+// species without its state tag followed a number: the lexer took the
+// species for the number's unit, and the number after it then stood where
+// no item may start.
+func brokenMixtureUnits(p *Pass) {
+	for _, f := range p.Net.Files {
+		if f.AST == nil {
+			continue
+		}
+		for _, st := range f.AST.Statements {
+			if !st.Broken || len(st.Tokens) == 0 || st.Tokens[0].Value != "mixture" {
+				continue
+			}
+			toks := st.Tokens
+			for i := 1; i+1 < len(toks); i++ {
+				if toks[i-1].Type != lang.Number || toks[i].Type != lang.Word {
+					continue
+				}
+				word := toks[i].Value
+				if _, err := thermo.ParseUnit(word); err == nil {
+					continue
+				}
+				if parts, err := lang.SplitRef(word); err != nil || parts.State != "" {
+					continue
+				}
+				p.Reportf(lang.TokenSpan(toks[i]), "%s", untaggedMessage(p.Net, word, toks[i-1].Value))
+			}
+		}
+	}
+}

@@ -1,0 +1,58 @@
+package network
+
+import (
+	"sync"
+
+	"hess/lang"
+)
+
+// ParseCaches keeps each file's parsed statements between loads (see
+// lang.Cache), so that loading a network again after an edit re-parses
+// only the statements that changed. It is safe for concurrent use; each
+// file's cache serves one load at a time.
+type ParseCaches struct {
+	mu    sync.Mutex
+	files map[string]*lang.Cache // by file identity
+}
+
+// NewParseCaches returns empty caches.
+func NewParseCaches() *ParseCaches { return &ParseCaches{files: map[string]*lang.Cache{}} }
+
+// file returns the cache of the file with the given identity; nil caches
+// give nil.
+func (p *ParseCaches) file(id string) *lang.Cache {
+	if p == nil {
+		return nil
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	c := p.files[id]
+	if c == nil {
+		c = lang.NewCache()
+		p.files[id] = c
+	}
+	return c
+}
+
+// Forget drops the caches of files not in keep (by cleaned absolute path).
+func (p *ParseCaches) Forget(keep func(path string) bool) {
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	for id := range p.files {
+		if !keep(id) {
+			delete(p.files, id)
+		}
+	}
+}
+
+// LoadCached is Load, taking unchanged statements of each file from caches
+// and keeping the new ones there.
+func LoadCached(root string, src Source, caches *ParseCaches) *Network {
+	n := &Network{Root: root}
+	l := &loader{net: n, src: src, index: map[string]int{}, caches: caches}
+	l.load(root, nil, lang.Span{})
+	compile(n)
+	runChecks(n)
+	finalize(n)
+	return n
+}
