@@ -141,3 +141,196 @@ func (tm *Term) Parse(lex *lexer.PeekingLexer) error {
 	*tm = out
 	return nil
 }
+
+// unexpectedRest is the error for a required element that is missing,
+// expecting rest, the part of the production from that element on (as the
+// grammar's EBNF writes it).
+func unexpectedRest(lex *lexer.PeekingLexer, rest string) error {
+	return &participle.UnexpectedTokenError{Unexpected: *lex.Peek(), Expect: rest}
+}
+
+// expectLiteral consumes the token with text s or fails expecting rest.
+func expectLiteral(lex *lexer.PeekingLexer, s, rest string) error {
+	if lex.Peek().Value != s || lex.Peek().EOF() {
+		return unexpectedRest(lex, rest)
+	}
+	lex.Next()
+	return nil
+}
+
+// requireQuantity parses a quantity that must be there, or fails
+// expecting rest.
+func requireQuantity(lex *lexer.PeekingLexer, rest string) (*Quantity, error) {
+	q := &Quantity{}
+	if err := q.Parse(lex); err != nil {
+		if err == participle.NextMatch {
+			return nil, unexpectedRest(lex, rest)
+		}
+		return nil, err
+	}
+	return q, nil
+}
+
+// Parse reads ("shomate" | "nasa7") Quantity "to" Quantity "{" Num* "}".
+func (p *Polynomial) Parse(lex *lexer.PeekingLexer) error {
+	if v := lex.Peek().Value; v != "shomate" && v != "nasa7" {
+		return participle.NextMatch
+	}
+	start := lex.RawCursor()
+	first := *lex.Next()
+	out := Polynomial{Kind: first.Value}
+	var err error
+	if out.From, err = requireQuantity(lex, `Quantity "to" Quantity "{" Num* "}"`); err != nil {
+		return err
+	}
+	if err := expectLiteral(lex, "to", `"to" Quantity "{" Num* "}"`); err != nil {
+		return err
+	}
+	if out.To, err = requireQuantity(lex, `Quantity "{" Num* "}"`); err != nil {
+		return err
+	}
+	if err := expectLiteral(lex, "{", `"{" Num* "}"`); err != nil {
+		return err
+	}
+	for lex.Peek().Type == Number {
+		n := &Num{}
+		_ = n.Parse(lex)
+		out.Coeffs = append(out.Coeffs, n)
+	}
+	if err := expectLiteral(lex, "}", `"}"`); err != nil {
+		return err
+	}
+	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	*p = out
+	return nil
+}
+
+// Parse reads one species property, chosen by its keyword: FormulaProp,
+// SpeciesValue, Polynomial or TextProp.
+func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error {
+	start := lex.RawCursor()
+	first := *lex.Peek()
+	var out SpeciesProperty
+	var err error
+	switch first.Value {
+	case "formula":
+		lex.Next()
+		ref := &SpeciesRef{}
+		if ref.Parse(lex) != nil {
+			return unexpectedRest(lex, "SpeciesRef")
+		}
+		out.Formula = &FormulaProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
+	case "hf", "gf", "s", "cp":
+		lex.Next()
+		v := &SpeciesValue{Key: first.Value}
+		if v.Value, err = requireQuantity(lex, "Quantity"); err != nil {
+			return err
+		}
+		v.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+		out.Value = v
+	case "shomate", "nasa7":
+		out.Poly = &Polynomial{}
+		if err := out.Poly.Parse(lex); err != nil {
+			return err
+		}
+	case "source", "note":
+		lex.Next()
+		s := &Str{}
+		if s.Parse(lex) != nil {
+			return unexpectedRest(lex, "Str")
+		}
+		out.Text = &TextProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}
+	default:
+		return participle.NextMatch
+	}
+	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	*sp = out
+	return nil
+}
+
+// optionalNum reads Num after the literal lit when lit comes next; a
+// missing Num is an error.
+func optionalNum(lex *lexer.PeekingLexer, lit string) (*Num, error) {
+	if lex.Peek().Value != lit || lex.Peek().EOF() {
+		return nil, nil
+	}
+	lex.Next()
+	n := &Num{}
+	if n.Parse(lex) != nil {
+		return nil, unexpectedRest(lex, "Num")
+	}
+	return n, nil
+}
+
+// Parse reads one reaction property, chosen by its keyword: ReactionValue,
+// LogK, Rate or TextProp.
+func (rp *ReactionProperty) Parse(lex *lexer.PeekingLexer) error {
+	start := lex.RawCursor()
+	first := *lex.Peek()
+	node := func() Node { return Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())} }
+	var out ReactionProperty
+	var err error
+	switch first.Value {
+	case "dg", "dh", "ds":
+		lex.Next()
+		v := &ReactionValue{Key: first.Value}
+		if v.Value, err = requireQuantity(lex, "Quantity"); err != nil {
+			return err
+		}
+		v.Node = node()
+		out.Value = v
+	case "logk":
+		lex.Next()
+		lk := &LogK{Value: &Num{}}
+		if lk.Value.Parse(lex) != nil {
+			return unexpectedRest(lex, `Num (("±" | "+-") Num)? ("at" Quantity)?`)
+		}
+		if isPlusMinus(lex.Peek()) {
+			lex.Next()
+			lk.Sigma = &Num{}
+			if lk.Sigma.Parse(lex) != nil {
+				return unexpectedRest(lex, "Num")
+			}
+		}
+		if v := lex.Peek(); v.Value == "at" && !v.EOF() {
+			lex.Next()
+			if lk.At, err = requireQuantity(lex, "Quantity"); err != nil {
+				return err
+			}
+		}
+		lk.Node = node()
+		out.LogK = lk
+	case "rate", "reverse":
+		lex.Next()
+		r := &Rate{Kind: first.Value}
+		if err := expectLiteral(lex, "A", `"A" Quantity ("n" Num)? "Ea" Quantity`); err != nil {
+			return err
+		}
+		if r.A, err = requireQuantity(lex, `Quantity ("n" Num)? "Ea" Quantity`); err != nil {
+			return err
+		}
+		if r.N, err = optionalNum(lex, "n"); err != nil {
+			return err
+		}
+		if err := expectLiteral(lex, "Ea", `"Ea" Quantity`); err != nil {
+			return err
+		}
+		if r.Ea, err = requireQuantity(lex, "Quantity"); err != nil {
+			return err
+		}
+		r.Node = node()
+		out.Rate = r
+	case "source", "note":
+		lex.Next()
+		s := &Str{}
+		if s.Parse(lex) != nil {
+			return unexpectedRest(lex, "Str")
+		}
+		out.Text = &TextProp{Node: node(), Key: first.Value, Text: s}
+	default:
+		return participle.NextMatch
+	}
+	out.Node = node()
+	*rp = out
+	return nil
+}

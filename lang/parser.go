@@ -66,6 +66,15 @@ func Grammar() string { return statementParser.String() + "\n" + leafGrammar }
 // leafGrammar documents the nodes that parse themselves (leaves.go).
 const leafGrammar = `Quantity = Num (("±" | "+-") Num)? Unit? .
 Term = Num? SpeciesRef .
+SpeciesProperty = FormulaProp | SpeciesValue | Polynomial | TextProp .
+FormulaProp = "formula" SpeciesRef .
+SpeciesValue = ("hf" | "gf" | "s" | "cp") Quantity .
+Polynomial = ("shomate" | "nasa7") Quantity "to" Quantity "{" Num* "}" .
+TextProp = ("source" | "note") Str .
+ReactionProperty = ReactionValue | LogK | Rate | TextProp .
+ReactionValue = ("dg" | "dh" | "ds") Quantity .
+LogK = "logk" Num (("±" | "+-") Num)? ("at" Quantity)? .
+Rate = ("rate" | "reverse") "A" Quantity ("n" Num)? "Ea" Quantity .
 Arrow = ("<->" | "⇌" | "->" | "→") .
 SpeciesRef = (<ref> | <word> | <keyword>) .
 Ident = (<word> | <keyword>) .

@@ -51,6 +51,9 @@ The message gives both net charges.`,
 			if !rx.Resolved {
 				continue
 			}
+			if unchargedSpecies(rx) {
+				continue
+			}
 			if _, balanced, ok := balancesInIntegers(rx); ok && balanced {
 				continue
 			}

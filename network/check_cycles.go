@@ -79,7 +79,7 @@ func analyseCycles(n *Network) *cycleAnalysis {
 			own = append(own, rx)
 		}
 	}
-	if len(own) < 2 {
+	if len(own) == 0 {
 		return a
 	}
 	a.m = NewStoichMatrix(own)
@@ -100,7 +100,7 @@ func analyseCycles(n *Network) *cycleAnalysis {
 				sig.WriteByte(',')
 			}
 		}
-		if len(cols) < 2 {
+		if len(cols) == 0 {
 			continue
 		}
 		g, ok := bySignature[sig.String()]

@@ -13,6 +13,24 @@ import (
 // compiler turns the parsed files of a network into its model.
 type compiler struct {
 	net *Network
+	// refs caches the species each reference text names, once declared,
+	// so that a species written in many reactions is looked up once.
+	refs map[string]*Species
+}
+
+// lookupSpecies is net.LookupSpecies through the compiler's cache.
+func (c *compiler) lookupSpecies(ref string) *Species {
+	if sp, ok := c.refs[ref]; ok {
+		return sp
+	}
+	sp := c.net.LookupSpecies(ref)
+	if sp != nil {
+		if c.refs == nil {
+			c.refs = map[string]*Species{}
+		}
+		c.refs[ref] = sp
+	}
+	return sp
 }
 
 func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -552,8 +570,9 @@ func (c *compiler) reaction(r *lang.Reaction, broken bool) {
 
 func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
-	for _, t := range terms {
-		term := Term{Coef: big.NewRat(1, 1), Span: t.Span()}
+	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
+	for i, t := range terms {
+		term := Term{Coef: ones[i].SetInt64(1), Span: t.Span()}
 		if t.Coef != nil {
 			r, err := parseRat(t.Coef.Text)
 			switch {
@@ -567,7 +586,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 				term.Coef = r
 			}
 		}
-		sp := c.net.LookupSpecies(t.Species.Text)
+		sp := c.lookupSpecies(t.Species.Text)
 		if sp == nil {
 			c.undefinedSpecies(t.Species)
 			resolved = false

@@ -43,19 +43,23 @@ func (c Cycle) String() string {
 	return b.String()
 }
 
-// Last is the term of the cycle's last reaction in column order: the one
-// whose addition closed it.
+// Last is the term of the cycle's last reaction in column order (for the
+// matrix of a network, the last in the source).
 func (c Cycle) Last() CycleTerm { return c.Terms[len(c.Terms)-1] }
 
 // CycleBasis returns a basis of the cycles among the given columns (all
 // columns when cols is nil): exact integer weight vectors w with
-// Σ w_j·ν_j = 0 that span every such vector. Each basis cycle is minimal
-// (no proper subset of its reactions forms a cycle) and is then shortened,
-// where combining it with another basis cycle gives fewer reactions. Cycles
-// are ordered by their last column.
+// Σ w_j·ν_j = 0, each scaled to its smallest integers, that together span
+// every such vector. The basis favours short cycles: it starts from the
+// fundamental cycles of an elimination (each minimal, in that no proper
+// subset of its reactions forms a cycle), replaces long ones by short
+// cycles found among neighbouring reactions, and then combines cycles
+// where that gives fewer reactions. Cycles are ordered by their last
+// column.
 //
-// The elimination is sparse: it touches only the species of the given
-// columns, picking as pivot the species with the fewest occurrences.
+// The work is sparse: it touches only the species of the given columns,
+// picking as pivot the species with the fewest occurrences, and never
+// builds a dense matrix.
 func (m *StoichMatrix) CycleBasis(cols []int) []Cycle {
 	if cols == nil {
 		cols = make([]int, len(m.Columns))

@@ -34,17 +34,6 @@ func (p *ParseCaches) file(id string) *lang.Cache {
 	return c
 }
 
-// Forget drops the caches of files not in keep (by cleaned absolute path).
-func (p *ParseCaches) Forget(keep func(path string) bool) {
-	p.mu.Lock()
-	defer p.mu.Unlock()
-	for id := range p.files {
-		if !keep(id) {
-			delete(p.files, id)
-		}
-	}
-}
-
 // LoadCached is Load, taking unchanged statements of each file from caches
 // and keeping the new ones there.
 func LoadCached(root string, src Source, caches *ParseCaches) *Network {

@@ -54,24 +54,6 @@ func (n *Network) Stoichiometry() *StoichMatrix {
 	return NewStoichMatrix(rxs)
 }
 
-// Row returns the row of a species, or -1 when no column holds it.
-func (m *StoichMatrix) Row(sp *Species) int {
-	if i, ok := m.row[sp]; ok {
-		return i
-	}
-	return -1
-}
-
-// Coef returns the coefficient of row i in column j (zero when absent).
-func (m *StoichMatrix) Coef(i, j int) *big.Rat {
-	for _, e := range m.Columns[j] {
-		if e.Row == i {
-			return new(big.Rat).Set(e.Coef)
-		}
-	}
-	return new(big.Rat)
-}
-
 func sortEntries(col []StoichEntry) {
 	// Columns are short: insertion sort.
 	for i := 1; i < len(col); i++ {

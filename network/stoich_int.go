@@ -108,3 +108,16 @@ func netKeysInt(rx *Reaction) (fwd, rev string, ok bool) {
 	}
 	return string(f), string(r), true
 }
+
+// unchargedSpecies reports whether every species of the reaction is
+// neutral, so that it balances in charge whatever its coefficients.
+func unchargedSpecies(rx *Reaction) bool {
+	for _, side := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range side {
+			if t.Species == nil || t.Species.Charge != 0 {
+				return false
+			}
+		}
+	}
+	return true
+}

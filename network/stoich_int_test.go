@@ -75,3 +75,13 @@ func netKeysRat(rx *Reaction) (fwd, rev string) {
 	probe.Right = append(append([]Term(nil), rx.Right...), third)
 	return netKeys(&probe)
 }
+
+func TestUnchargedSpecies(t *testing.T) {
+	n := loadText(t, "species A+(aq) { formula A }\nspecies A(aq), B(aq)\nreaction r1: A(aq) <-> B(aq)\nreaction r2: A+(aq) <-> B(aq)\n")
+	if !unchargedSpecies(n.LookupReaction("r1")) {
+		t.Error("r1 has only neutral species")
+	}
+	if unchargedSpecies(n.LookupReaction("r2")) {
+		t.Error("r2 has a cation")
+	}
+}

@@ -1,0 +1,42 @@
+package network
+
+import (
+	"bytes"
+	"fmt"
+	"testing"
+)
+
+// TestLoadCachedMatchesLoad loads a generated network through parse
+// caches, edits one reaction line (unbalancing it), and checks that each
+// load reports exactly what a fresh Load does.
+func TestLoadCachedMatchesLoad(t *testing.T) {
+	root, src, _ := synthSource(t, 100, 300)
+	caches := NewParseCaches()
+	same := func() {
+		t.Helper()
+		got, want := LoadCached(root, src, caches), Load(root, src)
+		if fmt.Sprint(got.Diagnostics) != fmt.Sprint(want.Diagnostics) {
+			t.Fatalf("cached load reports\n %v\nfresh load\n %v", got.Diagnostics, want.Diagnostics)
+		}
+		if len(got.Reactions) != len(want.Reactions) || len(got.Species) != len(want.Species) {
+			t.Fatalf("cached load has %d reactions and %d species, fresh %d and %d",
+				len(got.Reactions), len(got.Species), len(want.Reactions), len(want.Species))
+		}
+	}
+	same()
+	name := "/syn/reactions-1.hess"
+	src[name] = bytes.Replace(src[name], []byte("reaction r2: "), []byte("reaction r2: 2 "), 1)
+	same()
+	n := LoadCached(root, src, caches)
+	found := false
+	for _, d := range n.Diagnostics {
+		found = found || d.Code == "element-imbalance"
+	}
+	if !found {
+		t.Error("the edited reaction does not show as unbalanced")
+	}
+	hits, parsed := caches.file(identity(name)).Reused()
+	if parsed != 0 || hits == 0 {
+		t.Errorf("third load of an unchanged file parsed %d statements and reused %d", parsed, hits)
+	}
+}
