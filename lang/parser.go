@@ -55,8 +55,8 @@ var statementParsers = map[string]kindParser{
 	"settings": kind(func(st *Statement, v *Settings) { st.Settings = v }),
 	"element":  kind(func(st *Statement, v *Element) { st.Element = v }),
 	"phase":    kind(func(st *Statement, v *Phase) { st.Phase = v }),
-	"species":  kind(func(st *Statement, v *Species) { st.Species = v }),
-	"reaction": kind(func(st *Statement, v *Reaction) { st.Reaction = v }),
+	"species":  parseSpeciesStatement,
+	"reaction": parseReactionStatement,
 	"mixture":  kind(func(st *Statement, v *Mixture) { st.Mixture = v }),
 }
 

@@ -2,6 +2,9 @@ package network
 
 import (
 	"fmt"
+	"runtime"
+	"sync"
+	"sync/atomic"
 
 	"hess/lang"
 )
@@ -10,12 +13,19 @@ import (
 type Pass struct {
 	Net   *Network
 	check *Check
+	// out, when set, collects the findings instead of Net.Diagnostics, so
+	// that checks can run side by side.
+	out *lang.Diagnostics
 }
 
 // Report records a finding of the running check. Its code is the check's
 // name; its severity is set from the check and the network's lint settings.
 func (p *Pass) Report(d lang.Diagnostic) {
 	d.Code = p.check.Name
+	if p.out != nil {
+		*p.out = append(*p.out, d)
+		return
+	}
 	p.Net.Diagnostics = append(p.Net.Diagnostics, d)
 }
 
@@ -78,7 +88,12 @@ func Checks() []*Check { return append([]*Check(nil), checks...) }
 // LookupCheck finds a check by name (its diagnostic code), or returns nil.
 func LookupCheck(name string) *Check { return checkByName[name] }
 
+// runChecks runs every enabled check on the compiled network. Checks only
+// read the network, so they run side by side on the available processors,
+// each into its own buffer; the findings are appended in registry order, so
+// the result does not depend on scheduling.
 func runChecks(n *Network) {
+	var run []*Check
 	for _, c := range checks {
 		if c.Run == nil {
 			continue
@@ -86,7 +101,35 @@ func runChecks(n *Network) {
 		if sev, ok := n.Settings.Lint[c.Name]; ok && sev == lang.Off {
 			continue
 		}
-		c.Run(&Pass{Net: n, check: c})
+		run = append(run, c)
+	}
+	found := make([]lang.Diagnostics, len(run))
+	one := func(i int) { run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]}) }
+	workers := min(runtime.GOMAXPROCS(0), len(run))
+	if workers < 2 {
+		for i := range run {
+			one(i)
+		}
+	} else {
+		var next atomic.Int64
+		var wg sync.WaitGroup
+		for w := 0; w < workers; w++ {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				for {
+					i := int(next.Add(1)) - 1
+					if i >= len(run) {
+						return
+					}
+					one(i)
+				}
+			}()
+		}
+		wg.Wait()
+	}
+	for _, ds := range found {
+		n.Diagnostics = append(n.Diagnostics, ds...)
 	}
 }
 

@@ -112,6 +112,13 @@ const (
 // zeros is reported at its middle. NaN samples break the scan, and a sign change
 // that cannot be refined because f is NaN inside it is left out. Two sign changes
 // closer than one grid step can cancel and go unseen.
+//
+// Stretches of crossoverStride grid steps where f keeps well away from zero,
+// judged by its curvature over the neighbouring stretches, are passed over
+// without sampling their inner points; elsewhere every grid point is sampled.
+// A feature of f narrower than such a stretch that dips across zero and back
+// between samples far from zero can therefore go unseen; ΔrG° from
+// polynomial data bends far too gently for that.
 func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 	if !finite(Tmin) || !finite(Tmax) || !(Tmin < Tmax) {
 		return nil
@@ -125,12 +132,22 @@ func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 		}
 		return Tmin + float64(i)*step
 	}
+	// Samples are kept, since the look past a stretch reads points that the
+	// scan may come back to.
+	vals := make([]float64, n+1)
+	have := make([]bool, n+1)
+	sample := func(i int) float64 {
+		if !have[i] {
+			vals[i], have[i] = f(at(i)), true
+		}
+		return vals[i]
+	}
 	var out []Crossover
 	prev, fprev := -1, 0.0 // last grid point with a finite non-zero value
 	zeroFrom := -1         // first of the zeros seen since prev
 	for i := 0; i <= n; i++ {
 		x := at(i)
-		v := f(x)
+		v := sample(i)
 		switch {
 		case math.IsNaN(v):
 			prev, zeroFrom = -1, -1
@@ -157,6 +174,46 @@ func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 			out = append(out, Crossover{T: root, FavoredAbove: v < 0})
 		}
 		prev, fprev, zeroFrom = i, v, -1
+		if i%crossoverStride == 0 && clearAhead(sample, i, n, v) {
+			i += crossoverStride - 1
+		}
 	}
 	return out
+}
+
+// crossoverStride is how many grid steps Crossovers may pass over at once.
+const crossoverStride = 8
+
+// clearAhead reports whether f, sampled on the grid [0, n], stays clear of
+// zero between grid points i and i+crossoverStride, where its value is v
+// (finite, non-zero). The end of the stretch must have v's sign and be
+// farther from zero than twice the largest second difference of the
+// samples a stretch apart around it: on a stretch where the curvature is
+// within sixteen times that estimate, f cannot bend across zero.
+func clearAhead(sample func(int) float64, i, n int, v float64) bool {
+	const k = crossoverStride
+	j := i + k
+	if j > n {
+		return false
+	}
+	w := sample(j)
+	if !finite(w) || w == 0 || (w > 0) != (v > 0) {
+		return false
+	}
+	curv, seen := 0.0, false
+	if i-k >= 0 {
+		u := sample(i - k)
+		if !finite(u) {
+			return false
+		}
+		curv, seen = math.Abs(u-2*v+w), true
+	}
+	if j+k <= n {
+		z := sample(j + k)
+		if !finite(z) {
+			return false
+		}
+		curv, seen = math.Max(curv, math.Abs(v-2*w+z)), true
+	}
+	return seen && math.Min(math.Abs(v), math.Abs(w)) > 2*curv
 }

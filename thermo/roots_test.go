@@ -76,6 +76,9 @@ func TestCrossovers(t *testing.T) {
 			return T - 500
 		}, 300, 700, nil},
 		{"short range", func(T float64) float64 { return T - 300.25 }, 300, 301, []want{{300.25, false}}},
+		{"roots 3 K apart", func(T float64) float64 { return 1e6 * (T - 500.5) * (T - 503.5) }, 300, 700, []want{{500.5, true}, {503.5, false}}},
+		{"roots 1 K apart", func(T float64) float64 { return (T-600)*(T-600) - 0.25 }, 300, 700, []want{{599.5, true}, {600.5, false}}},
+		{"cubic far from its roots", func(T float64) float64 { return (T - 310.2) * (T - 690.7) * (T + 1000) }, 300, 700, []want{{310.2, true}, {690.7, false}}},
 		{"empty range", func(T float64) float64 { return T - 500 }, 700, 300, nil},
 	}
 	for _, tc := range tests {
