@@ -44,7 +44,7 @@ func main() {
 	// A compile allocates many small, short-lived nodes; collecting less
 	// often trades some memory (well under the budget) for speed on large
 	// networks.
-	debug.SetGCPercent(200)
+	debug.SetGCPercent(400)
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
