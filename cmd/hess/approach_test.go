@@ -14,25 +14,10 @@ import (
 // compares with testdata/approach/NAME.FORMAT.golden. Run with -update after
 // review.
 func TestApproachGolden(t *testing.T) {
-	golden := inRoot(t)
-	examples := map[string]string{
+	exampleGoldens(t, "approach", map[string]string{
 		"reformer": "examples/hydrogen-plant/reformer.hess",
 		"scrubber": "examples/flue-gas-scrubber.hess",
-	}
-	for name, path := range examples {
-		for _, format := range []string{"text", "csv", "json", "markdown"} {
-			t.Run(name+"."+format, func(t *testing.T) {
-				var stdout, stderr bytes.Buffer
-				if code := run([]string{"approach", "--format", format, path}, &stdout, &stderr); code != exitOK {
-					t.Fatalf("exit %d: %s", code, stderr.String())
-				}
-				if stderr.Len() != 0 {
-					t.Errorf("stderr for a clean example: %s", stderr.String())
-				}
-				compareGolden(t, filepath.Join(golden, "approach", name+"."+format+".golden"), stdout.Bytes())
-			})
-		}
-	}
+	})
 }
 
 // TestApproachJSONFields decodes the JSON document and checks the fields

@@ -30,23 +30,30 @@ func inRoot(t *testing.T) string {
 // TestTableGolden renders every example's table in every format and compares
 // with testdata/table/NAME.FORMAT.golden. Run with -update after review.
 func TestTableGolden(t *testing.T) {
-	golden := inRoot(t)
-	examples := map[string]string{
+	exampleGoldens(t, "table", map[string]string{
 		"reformer": "examples/hydrogen-plant/reformer.hess",
 		"scrubber": "examples/flue-gas-scrubber.hess",
 		"flame":    "examples/small-flame.hess",
-	}
+	})
+}
+
+// exampleGoldens runs `hess COMMAND --format F FILE` on each example in
+// every format and compares stdout with testdata/COMMAND/NAME.F.golden.
+// A clean example must write nothing to stderr.
+func exampleGoldens(t *testing.T, command string, examples map[string]string) {
+	t.Helper()
+	golden := inRoot(t)
 	for name, path := range examples {
 		for _, format := range []string{"text", "csv", "json", "markdown"} {
 			t.Run(name+"."+format, func(t *testing.T) {
 				var stdout, stderr bytes.Buffer
-				if code := run([]string{"table", "--format", format, path}, &stdout, &stderr); code != exitOK {
+				if code := run([]string{command, "--format", format, path}, &stdout, &stderr); code != exitOK {
 					t.Fatalf("exit %d: %s", code, stderr.String())
 				}
 				if stderr.Len() != 0 {
 					t.Errorf("stderr for a clean example: %s", stderr.String())
 				}
-				compareGolden(t, filepath.Join(golden, "table", name+"."+format+".golden"), stdout.Bytes())
+				compareGolden(t, filepath.Join(golden, command, name+"."+format+".golden"), stdout.Bytes())
 			})
 		}
 	}
