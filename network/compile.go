@@ -3,8 +3,11 @@ package network
 import (
 	"fmt"
 	"math/big"
+	"runtime"
 	"sort"
 	"strings"
+	"sync"
+	"sync/atomic"
 	"unicode/utf8"
 
 	"hess/lang"
@@ -13,24 +16,6 @@ import (
 // compiler turns the parsed files of a network into its model.
 type compiler struct {
 	net *Network
-	// refs caches the species each reference text names, once declared,
-	// so that a species written in many reactions is looked up once.
-	refs map[string]*Species
-}
-
-// lookupSpecies is net.LookupSpecies through the compiler's cache.
-func (c *compiler) lookupSpecies(ref string) *Species {
-	if sp, ok := c.refs[ref]; ok {
-		return sp
-	}
-	sp := c.net.LookupSpecies(ref)
-	if sp != nil {
-		if c.refs == nil {
-			c.refs = map[string]*Species{}
-		}
-		c.refs[ref] = sp
-	}
-	return sp
 }
 
 func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -86,11 +71,16 @@ func compile(n *Network) {
 			c.species(st.Species, st.Broken)
 		}
 	})
+	var reactions []*lang.Statement
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
-			c.reaction(st.Reaction, st.Broken)
+			reactions = append(reactions, st)
 		}
 	})
+	sides := c.resolveSides(reactions)
+	for i, st := range reactions {
+		c.reaction(st.Reaction, st.Broken, &sides[i])
+	}
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil && !st.Broken {
 			c.combination(st.Reaction)
@@ -541,19 +531,25 @@ func subSpan(span lang.Span, text string, from, to int) lang.Span {
 	return out
 }
 
-func (c *compiler) reaction(r *lang.Reaction, broken bool) {
+func (c *compiler) reaction(r *lang.Reaction, broken bool, sides *resolvedSides) {
 	if r.Name == nil {
 		return
 	}
 	validName := c.name(r.Name, "reaction")
 	rx := &Reaction{Name: r.Name.Name, NameSpan: r.Name.Span(), Span: r.Span()}
-	complete := !broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
+	complete := !broken && validName && sides.done
 	if complete {
 		rx.TwoWay = r.Arrow.TwoWay()
 		rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
-		rx.Resolved = true
-		rx.Left, rx.Resolved = c.side(r.Left, rx.Resolved)
-		rx.Right, rx.Resolved = c.side(r.Right, rx.Resolved)
+		rx.Left, rx.Right, rx.Resolved = sides.left, sides.right, sides.resolved
+		c.net.Diagnostics = append(c.net.Diagnostics, sides.diags...)
+		for _, side := range [][]Term{rx.Left, rx.Right} {
+			for _, t := range side {
+				if t.Species != nil {
+					t.Species.Used = true
+				}
+			}
+		}
 	}
 	if old, dup := c.net.reactionByName[rx.Name]; dup {
 		d := c.report("duplicate-reaction-name", rx.NameSpan, "reaction name %s is used twice", rx.Name)
@@ -568,30 +564,100 @@ func (c *compiler) reaction(r *lang.Reaction, broken bool) {
 	c.reactionProperties(rx, r.Props)
 }
 
-func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
+// resolvedSides are a reaction's two sides, resolved before the serial
+// pass over reactions: coefficients read, species looked up, and the
+// diagnostics that this produced.
+type resolvedSides struct {
+	done        bool // the statement has both sides to resolve
+	left, right []Term
+	resolved    bool
+	diags       lang.Diagnostics
+}
+
+// sideBatch is how many reactions one worker resolves at a time.
+const sideBatch = 512
+
+// resolveSides resolves the sides of every reaction statement, in
+// parallel: species are all declared by now, so lookups only read the
+// network. Each worker has its own lookup cache and diagnostics.
+func (c *compiler) resolveSides(sts []*lang.Statement) []resolvedSides {
+	out := make([]resolvedSides, len(sts))
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	workers := min(runtime.GOMAXPROCS(0), (len(sts)+sideBatch-1)/sideBatch)
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			res := &resolver{net: c.net, refs: map[string]*Species{}}
+			for {
+				start := int(next.Add(sideBatch)) - sideBatch
+				if start >= len(sts) {
+					return
+				}
+				for i := start; i < min(start+sideBatch, len(sts)); i++ {
+					r := sts[i].Reaction
+					if sts[i].Broken || r.Name == nil || r.Arrow == nil || len(r.Left) == 0 || len(r.Right) == 0 {
+						continue
+					}
+					res.diags = nil
+					left, ok := res.side(r.Left, true)
+					right, ok := res.side(r.Right, ok)
+					out[i] = resolvedSides{done: true, left: left, right: right, resolved: ok, diags: res.diags}
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	return out
+}
+
+// resolver resolves reaction sides against a network whose species are
+// all declared, reporting into its own list.
+type resolver struct {
+	net   *Network
+	refs  map[string]*Species
+	diags lang.Diagnostics
+}
+
+func (r *resolver) report(code string, span lang.Span, format string, args ...any) {
+	r.diags = append(r.diags, lang.Diagnostic{Code: code, Message: fmt.Sprintf(format, args...), Subject: span})
+}
+
+func (r *resolver) lookup(ref string) *Species {
+	if sp, ok := r.refs[ref]; ok {
+		return sp
+	}
+	sp := r.net.LookupSpecies(ref)
+	if sp != nil {
+		r.refs[ref] = sp
+	}
+	return sp
+}
+
+func (r *resolver) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
 	for i, t := range terms {
 		term := Term{Coef: ones[i].SetInt64(1), Span: t.Span()}
 		if t.Coef != nil {
-			r, err := parseRat(t.Coef.Text)
+			q, err := parseRat(t.Coef.Text)
 			switch {
 			case err != nil:
-				c.report("syntax", t.Coef.Span(), "%v", err)
+				r.report("syntax", t.Coef.Span(), "%v", err)
 				resolved = false
-			case r.Sign() <= 0:
-				c.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
+			case q.Sign() <= 0:
+				r.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
 				resolved = false
 			default:
-				term.Coef = r
+				term.Coef = q
 			}
 		}
-		sp := c.lookupSpecies(t.Species.Text)
+		sp := r.lookup(t.Species.Text)
 		if sp == nil {
-			c.undefinedSpecies(t.Species)
+			r.undefinedSpecies(t.Species)
 			resolved = false
 		} else {
-			sp.Used = true
 			term.Species = sp
 			if !sp.HasFormula {
 				resolved = false
@@ -603,14 +669,20 @@ func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 }
 
 func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
+	r := &resolver{net: c.net}
+	r.undefinedSpecies(ref)
+	c.net.Diagnostics = append(c.net.Diagnostics, r.diags...)
+}
+
+func (r *resolver) undefinedSpecies(ref *lang.SpeciesRef) {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		r.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
 		return
 	}
 	msg := fmt.Sprintf("species %s is not declared", parts.Canonical())
 	var near []string
-	for _, sp := range c.net.Species {
+	for _, sp := range r.net.Species {
 		if sp.Parts.Base == parts.Base && sp.Charge == parts.Charge {
 			near = append(near, sp.Key)
 		}
@@ -619,7 +691,7 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
 	}
-	c.report("undefined-species", ref.Span(), "%s", msg)
+	r.report("undefined-species", ref.Span(), "%s", msg)
 }
 
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
