@@ -41,20 +41,10 @@ func parseSpeciesStatement(lex *lexer.PeekingLexer, st *Statement) error {
 		_ = out.Label.Parse(lex)
 	}
 	if t := lex.Peek(); t.Type == Punct && t.Value == "{" {
-		lex.Next()
 		out.HasBody = true
-		for {
-			p := &SpeciesProperty{}
-			err := p.Parse(lex)
-			if err == participle.NextMatch {
-				break
-			}
-			if err != nil {
-				return err
-			}
-			out.Props = append(out.Props, p)
-		}
-		if err := expectLiteral(lex, "}", `"}"`); err != nil {
+		props, err := parseBlock[SpeciesProperty](lex)
+		out.Props = props
+		if err != nil {
 			return err
 		}
 	}
@@ -122,23 +112,36 @@ func parseReactionStatement(lex *lexer.PeekingLexer, st *Statement) error {
 		}
 	}
 	if t := lex.Peek(); t.Type == Punct && t.Value == "{" {
-		lex.Next()
 		out.HasBody = true
-		for {
-			p := &ReactionProperty{}
-			err := p.Parse(lex)
-			if err == participle.NextMatch {
-				break
-			}
-			if err != nil {
-				return err
-			}
-			out.Props = append(out.Props, p)
-		}
-		if err := expectLiteral(lex, "}", `"}"`); err != nil {
+		props, err := parseBlock[ReactionProperty](lex)
+		out.Props = props
+		if err != nil {
 			return err
 		}
 	}
 	out.Tokens = lex.Range(start, lex.RawCursor())
 	return nil
+}
+
+// parseBlock reads "{" P* "}" with lex at the "{": the properties of a
+// species or reaction block. It returns the properties read so far with
+// any error.
+func parseBlock[P any, PP interface {
+	*P
+	Parse(*lexer.PeekingLexer) error
+}](lex *lexer.PeekingLexer) ([]PP, error) {
+	lex.Next()
+	var props []PP
+	for {
+		p := PP(new(P))
+		err := p.Parse(lex)
+		if err == participle.NextMatch {
+			break
+		}
+		if err != nil {
+			return props, err
+		}
+		props = append(props, p)
+	}
+	return props, expectLiteral(lex, "}", `"}"`)
 }

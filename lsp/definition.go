@@ -10,17 +10,9 @@ import (
 // or included file under the cursor is declared. It answers null where no
 // declared name is under the cursor.
 func (s *server) definition(ctx context.Context, req *jsonrpc2.Request) (any, error) {
-	var p TextDocumentPositionParams
-	if err := params(req, &p); err != nil {
+	t, sym, ok, err := s.symbolAt(req)
+	if !ok || err != nil {
 		return nil, err
-	}
-	t, ok := s.locate(p.TextDocument.URI, p.Position)
-	if !ok {
-		return nil, nil
-	}
-	sym, ok := t.symbol()
-	if !ok {
-		return nil, nil
 	}
 	span, ok := sym.Definition()
 	if !ok {

@@ -22,17 +22,9 @@ const referenceT = 298.15
 // equation, balance, ΔrG° and K at 298.15 K and the kind of K. Over an
 // include: the file it reads. Elsewhere: null.
 func (s *server) hover(ctx context.Context, req *jsonrpc2.Request) (any, error) {
-	var p TextDocumentPositionParams
-	if err := params(req, &p); err != nil {
+	t, sym, ok, err := s.symbolAt(req)
+	if !ok || err != nil {
 		return nil, err
-	}
-	t, ok := s.locate(p.TextDocument.URI, p.Position)
-	if !ok {
-		return nil, nil
-	}
-	sym, ok := t.symbol()
-	if !ok {
-		return nil, nil
 	}
 	s.mu.Lock()
 	md := s.mdOK

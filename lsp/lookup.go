@@ -1,6 +1,8 @@
 package lsp
 
 import (
+	"github.com/sourcegraph/jsonrpc2"
+
 	"hess/network"
 )
 
@@ -34,4 +36,18 @@ func (s *server) locate(uri string, pos Position) (target, bool) {
 // symbol is the name at the target, if any.
 func (t target) symbol() (network.Symbol, bool) {
 	return t.net.SymbolAt(t.path, t.offset)
+}
+
+// symbolAt reads a position request and finds the name under its
+// position; ok is false (and the answer null) where there is none.
+func (s *server) symbolAt(req *jsonrpc2.Request) (t target, sym network.Symbol, ok bool, err error) {
+	var p TextDocumentPositionParams
+	if err := params(req, &p); err != nil {
+		return target{}, network.Symbol{}, false, err
+	}
+	if t, ok = s.locate(p.TextDocument.URI, p.Position); !ok {
+		return target{}, network.Symbol{}, false, nil
+	}
+	sym, ok = t.symbol()
+	return t, sym, ok, nil
 }
