@@ -21,7 +21,7 @@ element with its left and right counts.`,
 			if !rx.Resolved {
 				continue
 			}
-			if balanced, _, ok := balancesInIntegers(rx); ok && balanced {
+			if f := rx.facts(); f.intOK && f.elements {
 				continue
 			}
 			left, right := elementCounts(rx.Left), elementCounts(rx.Right)
@@ -54,7 +54,7 @@ The message gives both net charges.`,
 			if unchargedSpecies(rx) {
 				continue
 			}
-			if _, balanced, ok := balancesInIntegers(rx); ok && balanced {
+			if f := rx.facts(); f.intOK && f.charge {
 				continue
 			}
 			l, r := netCharge(rx.Left), netCharge(rx.Right)

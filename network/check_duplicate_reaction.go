@@ -1,12 +1,6 @@
 package network
 
-import (
-	"math/big"
-	"sort"
-	"strings"
-
-	"hess/lang"
-)
+import "hess/lang"
 
 var duplicateReactionCheck = &Check{
 	Name:     "duplicate-reaction",
@@ -17,66 +11,30 @@ describe the same process; keeping both usually means one was copied and
 not changed. A multiple of a reaction (2 H2 + O2 against H2 + 1/2 O2) is a
 different reaction and is not reported.`,
 	Run: func(p *Pass) {
-		seen := map[string]*Reaction{}
+		type seenAs struct {
+			rx       *Reaction
+			reversed bool
+		}
+		seen := map[string]seenAs{}
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
 				continue
 			}
-			fwd, rev := netKeys(rx)
-			if fwd == "" {
+			f := rx.facts()
+			if f.key == "" {
 				continue
 			}
-			if first, ok := seen[fwd]; ok {
-				p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span,
-					Message: "reaction " + rx.Name + " has the same equation as " + first.Name,
-					Related: []lang.Related{{Span: first.NameSpan, Message: first.Name + " defined here"}}})
+			first, ok := seen[f.key]
+			if !ok {
+				seen[f.key] = seenAs{rx, f.reversed}
 				continue
 			}
-			if first, ok := seen[rev]; ok {
-				p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span,
-					Message: "reaction " + rx.Name + " is " + first.Name + " reversed",
-					Related: []lang.Related{{Span: first.NameSpan, Message: first.Name + " defined here"}}})
-				continue
+			msg := "reaction " + rx.Name + " has the same equation as " + first.rx.Name
+			if first.reversed != f.reversed {
+				msg = "reaction " + rx.Name + " is " + first.rx.Name + " reversed"
 			}
-			seen[fwd] = rx
+			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg,
+				Related: []lang.Related{{Span: first.rx.NameSpan, Message: first.rx.Name + " defined here"}}})
 		}
 	},
-}
-
-// netKeys returns a canonical text of the reaction's net stoichiometry
-// (products positive) and of its reverse.
-func netKeys(rx *Reaction) (fwd, rev string) {
-	if f, r, ok := netKeysInt(rx); ok {
-		return f, r
-	}
-	net := map[string]*big.Rat{}
-	add := func(terms []Term, sign int64) {
-		for _, t := range terms {
-			acc, ok := net[t.Species.Key]
-			if !ok {
-				acc = new(big.Rat)
-				net[t.Species.Key] = acc
-			}
-			acc.Add(acc, new(big.Rat).Mul(t.Coef, big.NewRat(sign, 1)))
-		}
-	}
-	add(rx.Left, -1)
-	add(rx.Right, 1)
-	keys := make([]string, 0, len(net))
-	for k, v := range net {
-		if v.Sign() != 0 {
-			keys = append(keys, k)
-		}
-	}
-	if len(keys) == 0 {
-		return "", ""
-	}
-	sort.Strings(keys)
-	var f, r strings.Builder
-	for _, k := range keys {
-		v := net[k]
-		f.WriteString(k + "=" + v.RatString() + ";")
-		r.WriteString(k + "=" + new(big.Rat).Neg(v).RatString() + ";")
-	}
-	return f.String(), r.String()
 }

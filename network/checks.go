@@ -2,9 +2,6 @@ package network
 
 import (
 	"fmt"
-	"runtime"
-	"sync"
-	"sync/atomic"
 
 	"hess/lang"
 )
@@ -104,30 +101,9 @@ func runChecks(n *Network) {
 		run = append(run, c)
 	}
 	found := make([]lang.Diagnostics, len(run))
-	one := func(i int) { run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]}) }
-	workers := min(runtime.GOMAXPROCS(0), len(run))
-	if workers < 2 {
-		for i := range run {
-			one(i)
-		}
-	} else {
-		var next atomic.Int64
-		var wg sync.WaitGroup
-		for w := 0; w < workers; w++ {
-			wg.Add(1)
-			go func() {
-				defer wg.Done()
-				for {
-					i := int(next.Add(1)) - 1
-					if i >= len(run) {
-						return
-					}
-					one(i)
-				}
-			}()
-		}
-		wg.Wait()
-	}
+	parallel(len(run), 1, func() func(i int) {
+		return func(i int) { run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]}) }
+	})
 	for _, ds := range found {
 		n.Diagnostics = append(n.Diagnostics, ds...)
 	}

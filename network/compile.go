@@ -3,26 +3,37 @@ package network
 import (
 	"fmt"
 	"math/big"
-	"runtime"
 	"sort"
 	"strings"
-	"sync"
-	"sync/atomic"
 	"unicode/utf8"
 
 	"hess/lang"
 )
 
-// compiler turns the parsed files of a network into its model.
+// compiler turns the parsed files of a network into its model. The
+// parallel passes give each worker a compiler of its own that reports
+// into its own list and keeps its own cache of species lookups.
 type compiler struct {
-	net *Network
+	net  *Network
+	out  *lang.Diagnostics   // where report writes; nil for net.Diagnostics
+	refs map[string]*Species // species by reference as written, when caching
+}
+
+// worker returns a compiler for one worker of a parallel pass, reporting
+// into out.
+func (c *compiler) worker(out *lang.Diagnostics) *compiler {
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}}
 }
 
 func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
-	c.net.Diagnostics = append(c.net.Diagnostics, lang.Diagnostic{
+	out := c.out
+	if out == nil {
+		out = &c.net.Diagnostics
+	}
+	*out = append(*out, lang.Diagnostic{
 		Code: code, Message: fmt.Sprintf(format, args...), Subject: span,
 	})
-	return &c.net.Diagnostics[len(c.net.Diagnostics)-1]
+	return &(*out)[len(*out)-1]
 }
 
 // Built-in state tags and their conventions.
@@ -51,6 +62,7 @@ func compile(n *Network) {
 		}
 	})
 	var settingsSeen *lang.Settings
+	var species []declaredSpecies
 	c.each(func(st *lang.Statement) {
 		switch {
 		case st.Settings != nil:
@@ -68,18 +80,20 @@ func compile(n *Network) {
 				}
 			}
 		case st.Species != nil:
-			c.species(st.Species, st.Broken)
+			if d := c.declareAll(st.Species, st.Broken); d.declared != nil {
+				species = append(species, d)
+			}
 		}
 	})
+	c.speciesData(species)
 	var reactions []*lang.Statement
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
 			reactions = append(reactions, st)
 		}
 	})
-	sides := c.resolveSides(reactions)
-	for i, st := range reactions {
-		c.reaction(st.Reaction, st.Broken, &sides[i])
+	for _, b := range c.buildReactions(reactions) {
+		c.addReaction(b)
 	}
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil && !st.Broken {
@@ -350,6 +364,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		return nil
 	}
 	c.net.speciesByKey[sp.Key] = sp
+	sp.index = len(c.net.Species)
 	c.net.Species = append(c.net.Species, sp)
 	if parts.State != "" {
 		if ph, ok := c.net.Phases[parts.State]; ok {
@@ -361,7 +376,16 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 	return sp
 }
 
-func (c *compiler) species(s *lang.Species, broken bool) {
+// declaredSpecies is a species statement whose species are declared and
+// whose data remain to be read.
+type declaredSpecies struct {
+	st       *lang.Species
+	declared []*Species
+}
+
+// declareAll declares the species of a statement. Its result has no
+// species when there are no data to read.
+func (c *compiler) declareAll(s *lang.Species, broken bool) declaredSpecies {
 	var declared []*Species
 	for _, ref := range s.Refs {
 		if ref == nil {
@@ -372,25 +396,44 @@ func (c *compiler) species(s *lang.Species, broken bool) {
 		}
 	}
 	if broken {
-		return
+		return declaredSpecies{}
 	}
 	if len(s.Refs) > 1 && s.HasBody {
 		c.report("syntax", keywordSpan(&s.Node), "a species list declares species without data; give each species with data its own statement")
-		return
+		return declaredSpecies{}
 	}
-	if len(declared) == 0 {
-		return
+	return declaredSpecies{st: s, declared: declared}
+}
+
+// speciesData reads the data and formulas of declared species, in
+// parallel: each statement touches only its own species.
+func (c *compiler) speciesData(list []declaredSpecies) {
+	diags := make([]lang.Diagnostics, len(list))
+	parallel(len(list), 256, func() func(i int) {
+		w := &compiler{net: c.net}
+		return func(i int) {
+			w.out = &diags[i]
+			w.speciesStatement(list[i])
+		}
+	})
+	for _, ds := range diags {
+		c.net.Diagnostics = append(c.net.Diagnostics, ds...)
 	}
+}
+
+// speciesStatement reads one statement's data and formulas.
+func (c *compiler) speciesStatement(d declaredSpecies) {
+	s := d.st
 	var formulaText string
 	var formulaSpan lang.Span
-	if len(declared) == 1 {
-		sp := declared[0]
+	if len(d.declared) == 1 {
+		sp := d.declared[0]
 		if s.Label != nil {
 			sp.Label, _ = lang.Unquote(s.Label.Raw)
 		}
 		formulaText, formulaSpan = c.properties(sp, s.Props)
 	}
-	for _, sp := range declared {
+	for _, sp := range d.declared {
 		c.formula(sp, formulaText, formulaSpan)
 	}
 }
@@ -531,18 +574,64 @@ func subSpan(span lang.Span, text string, from, to int) lang.Span {
 	return out
 }
 
-func (c *compiler) reaction(r *lang.Reaction, broken bool, sides *resolvedSides) {
+// builtReaction is a reaction statement compiled on its own, before the
+// serial pass that names it in the network.
+type builtReaction struct {
+	rx       *Reaction // nil when the statement has no name
+	complete bool      // the statement has a valid name and two sides
+	diags    lang.Diagnostics
+	// propDiags come from the reaction's properties; they are reported
+	// only when the reaction is kept.
+	propDiags lang.Diagnostics
+}
+
+// buildReactions compiles every reaction statement on its own, in
+// parallel: species are all declared by now, so lookups only read the
+// network.
+func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
+	out := make([]builtReaction, len(sts))
+	parallel(len(sts), 512, func() func(i int) {
+		w := c.worker(nil)
+		return func(i int) { w.buildReaction(sts[i], &out[i]) }
+	})
+	return out
+}
+
+// buildReaction compiles one reaction statement into b.
+func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
+	r := st.Reaction
 	if r.Name == nil {
 		return
 	}
+	c.out = &b.diags
 	validName := c.name(r.Name, "reaction")
 	rx := &Reaction{Name: r.Name.Name, NameSpan: r.Name.Span(), Span: r.Span()}
-	complete := !broken && validName && sides.done
-	if complete {
-		rx.TwoWay = r.Arrow.TwoWay()
-		rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
-		rx.Left, rx.Right, rx.Resolved = sides.left, sides.right, sides.resolved
-		c.net.Diagnostics = append(c.net.Diagnostics, sides.diags...)
+	b.rx = rx
+	b.complete = !st.Broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
+	if !b.complete {
+		return
+	}
+	rx.TwoWay = r.Arrow.TwoWay()
+	rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
+	left, ok := c.side(r.Left, true)
+	right, ok := c.side(r.Right, ok)
+	rx.Left, rx.Right, rx.Resolved = left, right, ok
+	if ok {
+		rx.stoich = factsOf(rx)
+	}
+	c.out = &b.propDiags
+	c.reactionProperties(rx, r.Props)
+}
+
+// addReaction names a built reaction in the network, in source order, so
+// that the first of two reactions with one name is the one kept.
+func (c *compiler) addReaction(b builtReaction) {
+	rx := b.rx
+	if rx == nil {
+		return
+	}
+	c.net.Diagnostics = append(c.net.Diagnostics, b.diags...)
+	if b.complete {
 		for _, side := range [][]Term{rx.Left, rx.Right} {
 			for _, t := range side {
 				if t.Species != nil {
@@ -557,85 +646,33 @@ func (c *compiler) reaction(r *lang.Reaction, broken bool, sides *resolvedSides)
 		return
 	}
 	c.net.reactionByName[rx.Name] = rx
-	if !complete {
+	if !b.complete {
 		return
 	}
 	c.net.Reactions = append(c.net.Reactions, rx)
-	c.reactionProperties(rx, r.Props)
+	c.net.Diagnostics = append(c.net.Diagnostics, b.propDiags...)
 }
 
-// resolvedSides are a reaction's two sides, resolved before the serial
-// pass over reactions: coefficients read, species looked up, and the
-// diagnostics that this produced.
-type resolvedSides struct {
-	done        bool // the statement has both sides to resolve
-	left, right []Term
-	resolved    bool
-	diags       lang.Diagnostics
-}
-
-// sideBatch is how many reactions one worker resolves at a time.
-const sideBatch = 512
-
-// resolveSides resolves the sides of every reaction statement, in
-// parallel: species are all declared by now, so lookups only read the
-// network. Each worker has its own lookup cache and diagnostics.
-func (c *compiler) resolveSides(sts []*lang.Statement) []resolvedSides {
-	out := make([]resolvedSides, len(sts))
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	workers := min(runtime.GOMAXPROCS(0), (len(sts)+sideBatch-1)/sideBatch)
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			res := &resolver{net: c.net, refs: map[string]*Species{}}
-			for {
-				start := int(next.Add(sideBatch)) - sideBatch
-				if start >= len(sts) {
-					return
-				}
-				for i := start; i < min(start+sideBatch, len(sts)); i++ {
-					r := sts[i].Reaction
-					if sts[i].Broken || r.Name == nil || r.Arrow == nil || len(r.Left) == 0 || len(r.Right) == 0 {
-						continue
-					}
-					res.diags = nil
-					left, ok := res.side(r.Left, true)
-					right, ok := res.side(r.Right, ok)
-					out[i] = resolvedSides{done: true, left: left, right: right, resolved: ok, diags: res.diags}
-				}
-			}
-		}()
+// lookup finds a declared species by reference, through the compiler's
+// cache when it keeps one.
+func (c *compiler) lookup(ref string) *Species {
+	if c.refs == nil {
+		return c.net.LookupSpecies(ref)
 	}
-	wg.Wait()
-	return out
-}
-
-// resolver resolves reaction sides against a network whose species are
-// all declared, reporting into its own list.
-type resolver struct {
-	net   *Network
-	refs  map[string]*Species
-	diags lang.Diagnostics
-}
-
-func (r *resolver) report(code string, span lang.Span, format string, args ...any) {
-	r.diags = append(r.diags, lang.Diagnostic{Code: code, Message: fmt.Sprintf(format, args...), Subject: span})
-}
-
-func (r *resolver) lookup(ref string) *Species {
-	if sp, ok := r.refs[ref]; ok {
+	if sp, ok := c.refs[ref]; ok {
 		return sp
 	}
-	sp := r.net.LookupSpecies(ref)
+	sp := c.net.LookupSpecies(ref)
 	if sp != nil {
-		r.refs[ref] = sp
+		c.refs[ref] = sp
 	}
 	return sp
 }
 
-func (r *resolver) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
+// side resolves one side of a reaction: coefficients read and species
+// looked up. resolved stays true while every species is declared and has
+// a formula.
+func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
 	for i, t := range terms {
@@ -644,18 +681,18 @@ func (r *resolver) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 			q, err := parseRat(t.Coef.Text)
 			switch {
 			case err != nil:
-				r.report("syntax", t.Coef.Span(), "%v", err)
+				c.report("syntax", t.Coef.Span(), "%v", err)
 				resolved = false
 			case q.Sign() <= 0:
-				r.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
+				c.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
 				resolved = false
 			default:
 				term.Coef = q
 			}
 		}
-		sp := r.lookup(t.Species.Text)
+		sp := c.lookup(t.Species.Text)
 		if sp == nil {
-			r.undefinedSpecies(t.Species)
+			c.undefinedSpecies(t.Species)
 			resolved = false
 		} else {
 			term.Species = sp
@@ -669,20 +706,14 @@ func (r *resolver) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 }
 
 func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
-	r := &resolver{net: c.net}
-	r.undefinedSpecies(ref)
-	c.net.Diagnostics = append(c.net.Diagnostics, r.diags...)
-}
-
-func (r *resolver) undefinedSpecies(ref *lang.SpeciesRef) {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		r.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
 		return
 	}
 	msg := fmt.Sprintf("species %s is not declared", parts.Canonical())
 	var near []string
-	for _, sp := range r.net.Species {
+	for _, sp := range c.net.Species {
 		if sp.Parts.Base == parts.Base && sp.Charge == parts.Charge {
 			near = append(near, sp.Key)
 		}
@@ -691,7 +722,7 @@ func (r *resolver) undefinedSpecies(ref *lang.SpeciesRef) {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
 	}
-	r.report("undefined-species", ref.Span(), "%s", msg)
+	c.report("undefined-species", ref.Span(), "%s", msg)
 }
 
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {

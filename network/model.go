@@ -122,6 +122,7 @@ type Species struct {
 
 	Used bool // appears in some reaction
 
+	index int          // declaration order in the network
 	model thermo.Model // built once the species is compiled; see Model
 	built bool
 }
@@ -175,6 +176,8 @@ type Reaction struct {
 
 	// Resolved reports that every species of the equation is declared.
 	Resolved bool
+
+	stoich stoichFacts // worked out by the compiler once resolved
 }
 
 // Mixture is a named composition at a temperature and pressure.

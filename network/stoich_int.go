@@ -1,10 +1,9 @@
 package network
 
 import (
+	"encoding/binary"
 	"math/big"
 	"slices"
-	"strconv"
-	"strings"
 )
 
 // smallIntLimit bounds the integers the fast paths below accept, so that
@@ -75,40 +74,6 @@ func balancesInIntegers(rx *Reaction) (elements, charge, ok bool) {
 	return elements, q == 0, true
 }
 
-// netKeysInt is netKeys for a reaction whose coefficients are all small
-// integers, with the same result; ok is false for any other reaction.
-func netKeysInt(rx *Reaction) (fwd, rev string, ok bool) {
-	var buf [12]symbolCount
-	cs := buf[:0]
-	for side, terms := range [2][]Term{rx.Left, rx.Right} {
-		sign := int64(2*side - 1)
-		for _, t := range terms {
-			c, isInt := smallInt(t.Coef)
-			if !isInt || t.Species == nil {
-				return "", "", false
-			}
-			cs = addSymbolCount(cs, t.Species.Key, sign*c)
-		}
-	}
-	cs = slices.DeleteFunc(cs, func(c symbolCount) bool { return c.n == 0 })
-	if len(cs) == 0 {
-		return "", "", true
-	}
-	slices.SortFunc(cs, func(a, b symbolCount) int { return strings.Compare(a.key, b.key) })
-	var f, r []byte
-	for _, c := range cs {
-		f = append(f, c.key...)
-		f = append(f, '=')
-		f = strconv.AppendInt(f, c.n, 10)
-		f = append(f, ';')
-		r = append(r, c.key...)
-		r = append(r, '=')
-		r = strconv.AppendInt(r, -c.n, 10)
-		r = append(r, ';')
-	}
-	return string(f), string(r), true
-}
-
 // unchargedSpecies reports whether every species of the reaction is
 // neutral, so that it balances in charge whatever its coefficients.
 func unchargedSpecies(rx *Reaction) bool {
@@ -120,4 +85,151 @@ func unchargedSpecies(rx *Reaction) bool {
 		}
 	}
 	return true
+}
+
+// stoichFacts are what the balance and duplicate checks need of a
+// reaction's equation, worked out once when the reaction is compiled (in
+// parallel) so that the checks only read them.
+type stoichFacts struct {
+	known bool // the facts have been worked out
+
+	// intOK reports that every coefficient and formula count is a small
+	// integer; elements and charge are then whether the reaction balances.
+	intOK, elements, charge bool
+
+	// key is the net equation (see netKey), reversed whether it is the
+	// equation as written reversed; key is "" when everything cancels.
+	key      string
+	reversed bool
+}
+
+// factsOf works out a resolved reaction's stoichFacts.
+func factsOf(rx *Reaction) stoichFacts {
+	f := stoichFacts{known: true}
+	f.elements, f.charge, f.intOK = balancesInIntegers(rx)
+	f.key, f.reversed = netKey(rx)
+	return f
+}
+
+// facts returns the reaction's stoichFacts, from the compiler when it
+// worked them out, else fresh.
+func (rx *Reaction) facts() stoichFacts {
+	if rx.stoich.known {
+		return rx.stoich
+	}
+	return factsOf(rx)
+}
+
+// speciesCount is a species' net coefficient in integer arithmetic.
+type speciesCount struct {
+	sp *Species
+	n  int64
+}
+
+// netKey returns a canonical encoding of the reaction's net equation
+// (products positive, species written on both sides cancelled), oriented
+// so that its first species in declaration order counts positive;
+// reversed reports that this orientation is the reaction written
+// backwards. Two reactions have the same key exactly when their net
+// equations are equal or one is the other reversed. The key is "" when
+// the net equation is empty.
+func netKey(rx *Reaction) (key string, reversed bool) {
+	var buf [12]speciesCount
+	cs := buf[:0]
+	for side, terms := range [2][]Term{rx.Left, rx.Right} {
+		sign := int64(2*side - 1)
+		for _, t := range terms {
+			c, isInt := smallInt(t.Coef)
+			if !isInt || t.Species == nil {
+				return netKeyRat(rx)
+			}
+			cs = addSpeciesCount(cs, t.Species, sign*c)
+		}
+	}
+	cs = slices.DeleteFunc(cs, func(c speciesCount) bool { return c.n == 0 })
+	return intKey(cs)
+}
+
+func addSpeciesCount(cs []speciesCount, sp *Species, n int64) []speciesCount {
+	for i := range cs {
+		if cs[i].sp == sp {
+			cs[i].n += n
+			return cs
+		}
+	}
+	return append(cs, speciesCount{sp, n})
+}
+
+// intKey encodes nonzero integer net coefficients: a tag byte, then each
+// species' declaration index and coefficient as varints, in index order.
+func intKey(cs []speciesCount) (string, bool) {
+	if len(cs) == 0 {
+		return "", false
+	}
+	slices.SortFunc(cs, func(a, b speciesCount) int { return a.sp.index - b.sp.index })
+	sign := int64(1)
+	if cs[0].n < 0 {
+		sign = -1
+	}
+	b := make([]byte, 1, 1+len(cs)*4)
+	b[0] = 'i'
+	for _, c := range cs {
+		b = binary.AppendUvarint(b, uint64(c.sp.index))
+		b = binary.AppendVarint(b, sign*c.n)
+	}
+	return string(b), sign < 0
+}
+
+// netKeyRat is netKey in exact rational arithmetic, for reactions with a
+// coefficient that is not a small integer. A net equation whose
+// coefficients all come out as small integers gets the integer key.
+func netKeyRat(rx *Reaction) (string, bool) {
+	type net struct {
+		sp *Species
+		nu *big.Rat
+	}
+	var nets []net
+	for side, terms := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range terms {
+			if t.Species == nil || t.Coef == nil {
+				continue
+			}
+			c := new(big.Rat).Set(t.Coef)
+			if side == 0 {
+				c.Neg(c)
+			}
+			i := slices.IndexFunc(nets, func(x net) bool { return x.sp == t.Species })
+			if i < 0 {
+				nets = append(nets, net{t.Species, c})
+			} else {
+				nets[i].nu.Add(nets[i].nu, c)
+			}
+		}
+	}
+	nets = slices.DeleteFunc(nets, func(x net) bool { return x.nu.Sign() == 0 })
+	if len(nets) == 0 {
+		return "", false
+	}
+	ints := make([]speciesCount, 0, len(nets))
+	for _, x := range nets {
+		if n, ok := smallInt(x.nu); ok {
+			ints = append(ints, speciesCount{x.sp, n})
+		}
+	}
+	if len(ints) == len(nets) {
+		return intKey(ints)
+	}
+	slices.SortFunc(nets, func(a, b net) int { return a.sp.index - b.sp.index })
+	reversed := nets[0].nu.Sign() < 0
+	b := []byte{'r'}
+	for _, x := range nets {
+		nu := x.nu
+		if reversed {
+			nu = new(big.Rat).Neg(nu)
+		}
+		b = binary.AppendUvarint(b, uint64(x.sp.index))
+		b = append(b, nu.RatString()...)
+		b = append(b, ';')
+	}
+	return string(b), reversed
 }

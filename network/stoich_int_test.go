@@ -44,10 +44,15 @@ func TestIntegerFastPathsAgree(t *testing.T) {
 			if !el {
 				unbalanced++
 			}
-			f, r, _ := netKeysInt(v)
-			wf, wr := netKeysRat(v)
-			if f != wf || r != wr {
-				t.Fatalf("%s: keys %q %q, exact %q %q", v.Name, f, r, wf, wr)
+			k, rev := netKey(v)
+			wk, wrev := netKeyByRats(v)
+			if k != wk || rev != wrev || k == "" || k[0] != 'i' {
+				t.Fatalf("%s: key %q reversed %v, exact %q %v", v.Name, k, rev, wk, wrev)
+			}
+			back := *v
+			back.Left, back.Right = v.Right, v.Left
+			if bk, brev := netKey(&back); bk != k || brev == rev {
+				t.Fatalf("%s reversed: key %q reversed %v, want %q %v", v.Name, bk, brev, k, !rev)
 			}
 		}
 	}
@@ -60,20 +65,20 @@ func TestIntegerFastPathsAgree(t *testing.T) {
 	if _, _, ok := balancesInIntegers(&half); ok {
 		t.Error("a fractional coefficient was taken by the integer fast path")
 	}
-	if _, _, ok := netKeysInt(&half); ok {
-		t.Error("a fractional coefficient was taken by the integer key path")
+	if k, _ := netKey(&half); k == "" || k[0] != 'r' {
+		t.Errorf("a fractional net coefficient has key %q, want the rational encoding", k)
 	}
 }
 
-// netKeysRat is netKeys by its exact rational route: a third of a species
+// netKeyByRats is netKey by its exact rational route: a third of a species
 // added to both sides cancels out of the net equation but keeps the
 // integer path from applying.
-func netKeysRat(rx *Reaction) (fwd, rev string) {
+func netKeyByRats(rx *Reaction) (string, bool) {
 	third := Term{Coef: big.NewRat(1, 3), Species: rx.Left[0].Species}
 	probe := *rx
 	probe.Left = append(append([]Term(nil), rx.Left...), third)
 	probe.Right = append(append([]Term(nil), rx.Right...), third)
-	return netKeys(&probe)
+	return netKey(&probe)
 }
 
 func TestUnchargedSpecies(t *testing.T) {
