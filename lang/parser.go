@@ -7,7 +7,6 @@ import (
 	"runtime"
 	"strings"
 	"sync"
-	"sync/atomic"
 
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
@@ -94,27 +93,32 @@ func isEnd(t lexer.Token) bool { return t.EOF() || t.Type == endOfStatement }
 // [start, end), followed by an endOfStatement token at end.
 type chunk struct{ start, end int }
 
-// batchLexer feeds participle one batch of statements from the lexer, each
-// statement's tokens followed by an endOfStatement token, and EOF after
-// batchSize statements or at the end of the input. It cuts statements at
-// statement keywords that stand at brace depth 0 or first on their line.
-// One batchLexer serves all batches of a file, since tokens the lexer has
-// read may wait in its queue from one batch to the next.
+// batchLexer feeds participle one group of statements from the lexer,
+// each statement's tokens followed by an endOfStatement token, and EOF
+// once the group is full or at the end of the input. It cuts statements
+// at statement keywords that stand at brace depth 0 or first on their
+// line. One batchLexer serves all groups of a file, since tokens the lexer
+// has read may wait in its queue from one group to the next.
 type batchLexer struct {
 	l        *lexState
 	queue    int // index in l.toks of the next token to hand out
 	chunks   []chunk
-	n        int         // tokens handed out in this batch
+	n        int         // tokens handed out in this group
 	open     bool        // a statement has started and not yet ended
 	last     lexer.Token // the last token of the open statement
 	depth    int         // brace depth in the open statement
-	full     bool        // the batch has batchSize statements
+	full     bool        // the group is full
 	finished bool        // the input is exhausted
 }
 
-// batchSize is how many statements are parsed together, spread over the
-// available processors.
-const batchSize = 256
+// A group is full after groupStatements statements, or once its
+// statements reach groupTokens tokens. Small groups keep each one's tokens
+// in the cache between lexing and parsing, and keep participle's token
+// slice, which grows by appending, in its doubling range.
+const (
+	groupStatements = 32
+	groupTokens     = 200
+)
 
 // peek returns the next token of the input without taking it.
 func (b *batchLexer) peek() (lexer.Token, bool) {
@@ -166,7 +170,7 @@ func (b *batchLexer) end() lexer.Token {
 	b.open = false
 	b.chunks[len(b.chunks)-1].end = b.n
 	b.n++
-	if len(b.chunks) == batchSize {
+	if len(b.chunks) >= groupStatements || b.n >= groupTokens {
 		b.full = true
 	}
 	e := TokenSpan(b.last).End
@@ -191,25 +195,54 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 	l := newLexState(file, src)
 	f := &File{Name: file}
 	var diags Diagnostics
-	// The input is lexed as the parser needs it, one batch of statements at
-	// a time, so memory beyond the syntax tree stays bounded.
+	// The input is lexed on this goroutine, a small group of statements at
+	// a time, while workers parse the groups already lexed. Groups are
+	// small so that each one's tokens stay in the cache from lexing to
+	// parsing, and at most lexAhead groups wait, so memory beyond the
+	// syntax tree stays bounded.
+	groups := make(chan *lexedGroup, lexAhead)
+	var wg sync.WaitGroup
+	for range max(1, runtime.GOMAXPROCS(0)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for g := range groups {
+				g.results = parseGroup(g.peek, g.chunks, src, cache)
+			}
+		}()
+	}
+	var order []*lexedGroup
 	b := &batchLexer{l: l}
-	for {
+	for !b.finished {
 		b.chunks, b.n, b.full = nil, 0, false
 		peek, _ := lexer.Upgrade(b) // batchLexer.Next never fails
-		results := parseBatch(peek, b.chunks, src, cache)
-		for _, r := range results {
+		g := &lexedGroup{peek: peek, chunks: b.chunks}
+		order = append(order, g)
+		groups <- g
+	}
+	close(groups)
+	wg.Wait()
+	for _, g := range order {
+		for _, r := range g.results {
 			if r.st != nil {
 				f.Statements = append(f.Statements, r.st)
 			}
 			diags = append(diags, r.diags...)
 		}
-		if b.finished {
-			break
-		}
 	}
 	f.Comments = l.comments
 	return f, append(l.diags, diags...)
+}
+
+// lexAhead is how many lexed groups may wait for a worker.
+const lexAhead = 16
+
+// lexedGroup is one group of statements, lexed, and once a worker has
+// parsed it, its results.
+type lexedGroup struct {
+	peek    *lexer.PeekingLexer
+	chunks  []chunk
+	results []result
 }
 
 // result is what parsing one statement gave.
@@ -218,65 +251,32 @@ type result struct {
 	diags Diagnostics
 }
 
-// parseBatch parses the statements of one batch, in parallel when there are
-// several processors and enough statements.
-// With a cache, a statement whose text it holds is taken from it.
-func parseBatch(peek *lexer.PeekingLexer, chunks []chunk, src []byte, cache *Cache) []result {
+// parseGroup parses the statements of one group in order. With a cache, a
+// statement whose text it holds is taken from it.
+func parseGroup(peek *lexer.PeekingLexer, chunks []chunk, src []byte, cache *Cache) []result {
 	results := make([]result, len(chunks))
-	// A checkpoint at the start of each statement, so that each can be
-	// parsed on its own.
-	starts := make([]lexer.Checkpoint, len(chunks))
-	walk := *peek
+	walk := *peek // stands at the start of each statement in turn
 	for i, c := range chunks {
 		if c.start > 0 {
 			walk.FastForward(lexer.RawCursor(c.start - 1))
 		}
-		starts[i] = walk.MakeCheckpoint()
-	}
-	parseOne := func(i int) {
-		var key cacheKey
-		keyed := false
+		lx := walk
 		if cache != nil {
-			c := chunks[i]
 			if toks := peek.Range(lexer.RawCursor(c.start), lexer.RawCursor(c.end)); len(toks) > 0 {
-				if key, keyed = statementKey(src, toks); keyed {
+				if key, keyed := statementKey(src, toks); keyed {
 					if st := cache.lookup(key, toks[0].Pos); st != nil {
 						results[i] = result{st: st}
-						return
+						continue
 					}
+					r := parseStatement(&lx, c)
+					cache.store(key, r.st, len(r.diags) == 0)
+					results[i] = r
+					continue
 				}
 			}
 		}
-		lx := *peek
-		lx.LoadCheckpoint(starts[i])
-		results[i] = parseStatement(&lx, chunks[i])
-		if keyed {
-			cache.store(key, results[i].st, len(results[i].diags) == 0)
-		}
+		results[i] = parseStatement(&lx, c)
 	}
-	workers := min(runtime.GOMAXPROCS(0), len(chunks)/16)
-	if workers < 2 {
-		for i := range chunks {
-			parseOne(i)
-		}
-		return results
-	}
-	var next atomic.Int64
-	var wg sync.WaitGroup
-	for w := 0; w < workers; w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for {
-				i := int(next.Add(1)) - 1
-				if i >= len(chunks) {
-					return
-				}
-				parseOne(i)
-			}
-		}()
-	}
-	wg.Wait()
 	return results
 }
 

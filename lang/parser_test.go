@@ -638,9 +638,9 @@ func TestEveryStatementKeywordHasAParser(t *testing.T) {
 }
 
 func TestBatchBoundary(t *testing.T) {
-	// Statements are parsed in batches; a batch can end between two tokens
+	// Statements are parsed in groups; a group can end between two tokens
 	// that the lexer read in one go (`2species` is a number and a keyword).
-	for _, n := range []int{batchSize - 2, batchSize - 1, batchSize, 2*batchSize - 1} {
+	for _, n := range []int{groupStatements - 2, groupStatements - 1, groupStatements, 2*groupStatements - 1, 500} {
 		src := strings.Repeat("species A(g)\n", n) + "species X(g) 2species Y(g)\nspecies Z(g)\n"
 		t.Run(fmt.Sprint(n), func(t *testing.T) { checkConformance(t, []byte(src)) })
 		f, diags := Parse("t.hess", []byte(src))

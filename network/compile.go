@@ -550,6 +550,8 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span)
 	}
 	sp.Formula = f
 	sp.HasFormula = true
+	sp.ints.counts, sp.ints.ok = formulaInts(f)
+	sp.ints.known = true
 }
 
 // subSpan narrows a one-line span that starts with text to the bytes
@@ -613,11 +615,12 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	}
 	rx.TwoWay = r.Arrow.TwoWay()
 	rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
-	left, ok := c.side(r.Left, true)
-	right, ok := c.side(r.Right, ok)
+	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
+	left, ok := c.side(r.Left, true, &coefs)
+	right, ok := c.side(r.Right, ok, &coefs)
 	rx.Left, rx.Right, rx.Resolved = left, right, ok
 	if ok {
-		rx.stoich = factsOf(rx)
+		rx.stoich = factsWith(rx, coefs)
 	}
 	c.out = &b.propDiags
 	c.reactionProperties(rx, r.Props)
@@ -671,8 +674,9 @@ func (c *compiler) lookup(ref string) *Species {
 
 // side resolves one side of a reaction: coefficients read and species
 // looked up. resolved stays true while every species is declared and has
-// a formula.
-func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
+// a formula. The coefficients are appended to coefs while all are small
+// integers; coefs becomes nil at the first that is not.
+func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
 	for i, t := range terms {
@@ -688,6 +692,13 @@ func (c *compiler) side(terms []*lang.Term, resolved bool) ([]Term, bool) {
 				resolved = false
 			default:
 				term.Coef = q
+			}
+		}
+		if *coefs != nil {
+			if n, ok := smallInt(term.Coef); ok {
+				*coefs = append(*coefs, n)
+			} else {
+				*coefs = nil
 			}
 		}
 		sp := c.lookup(t.Species.Text)

@@ -123,6 +123,7 @@ type Species struct {
 	Used bool // appears in some reaction
 
 	index int          // declaration order in the network
+	ints  speciesInts  // the formula in small integers
 	model thermo.Model // built once the species is compiled; see Model
 	built bool
 }

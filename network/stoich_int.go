@@ -44,24 +44,51 @@ func addSymbolCount(cs []symbolCount, key string, n int64) []symbolCount {
 // charge. ok is false when some number is not such an integer, and the
 // exact rational check must decide.
 func balancesInIntegers(rx *Reaction) (elements, charge, ok bool) {
+	coefs, ok := intCoefficients(rx)
+	if !ok {
+		return false, false, false
+	}
+	return intBalance(rx, coefs)
+}
+
+// intCoefficients returns the reaction's coefficients, left side then
+// right, when all are small integers.
+func intCoefficients(rx *Reaction) ([]int64, bool) {
+	out := make([]int64, 0, len(rx.Left)+len(rx.Right))
+	for _, terms := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range terms {
+			c, isInt := smallInt(t.Coef)
+			if !isInt {
+				return nil, false
+			}
+			out = append(out, c)
+		}
+	}
+	return out, true
+}
+
+// intBalance is balancesInIntegers with the coefficients given, left side
+// then right.
+func intBalance(rx *Reaction, coefs []int64) (elements, charge, ok bool) {
 	var buf [16]symbolCount
 	cs := buf[:0]
 	var q int64
+	i := 0
 	for side, terms := range [2][]Term{rx.Left, rx.Right} {
 		sign := int64(1 - 2*side)
 		for _, t := range terms {
-			c, isInt := smallInt(t.Coef)
-			if !isInt || t.Species == nil {
+			c := sign * coefs[i]
+			i++
+			if t.Species == nil {
 				return false, false, false
 			}
-			c *= sign
+			counts, isInt := t.Species.elementInts()
+			if !isInt {
+				return false, false, false
+			}
 			q += c * int64(t.Species.Charge)
-			for _, ec := range t.Species.Formula.Elements {
-				k, isInt := smallInt(ec.Count)
-				if !isInt {
-					return false, false, false
-				}
-				cs = addSymbolCount(cs, ec.Symbol, c*k)
+			for _, ec := range counts {
+				cs = addSymbolCount(cs, ec.key, c*ec.n)
 			}
 		}
 	}
@@ -72,6 +99,35 @@ func balancesInIntegers(rx *Reaction) (elements, charge, ok bool) {
 		}
 	}
 	return elements, q == 0, true
+}
+
+// formulaInts is a formula's element counts as small integers; ok is false
+// when some count is not one.
+func formulaInts(f Formula) (counts []symbolCount, ok bool) {
+	counts = make([]symbolCount, 0, len(f.Elements))
+	for _, ec := range f.Elements {
+		k, isInt := smallInt(ec.Count)
+		if !isInt {
+			return nil, false
+		}
+		counts = append(counts, symbolCount{ec.Symbol, k})
+	}
+	return counts, true
+}
+
+// elementInts returns the species' formula as small integers, as the
+// compiler worked it out, or fresh when it did not.
+func (sp *Species) elementInts() ([]symbolCount, bool) {
+	if sp.ints.known {
+		return sp.ints.counts, sp.ints.ok
+	}
+	return formulaInts(sp.Formula)
+}
+
+// speciesInts caches a species' formulaInts.
+type speciesInts struct {
+	known, ok bool
+	counts    []symbolCount
 }
 
 // unchargedSpecies reports whether every species of the reaction is
@@ -105,9 +161,20 @@ type stoichFacts struct {
 
 // factsOf works out a resolved reaction's stoichFacts.
 func factsOf(rx *Reaction) stoichFacts {
+	coefs, _ := intCoefficients(rx)
+	return factsWith(rx, coefs)
+}
+
+// factsWith is factsOf with the coefficients given as small integers, left
+// side then right, or nil when some coefficient is not one.
+func factsWith(rx *Reaction, coefs []int64) stoichFacts {
 	f := stoichFacts{known: true}
-	f.elements, f.charge, f.intOK = balancesInIntegers(rx)
-	f.key, f.reversed = netKey(rx)
+	if coefs != nil {
+		f.elements, f.charge, f.intOK = intBalance(rx, coefs)
+		f.key, f.reversed = intNetKey(rx, coefs)
+	} else {
+		f.key, f.reversed = netKeyRat(rx)
+	}
 	return f
 }
 
@@ -134,13 +201,24 @@ type speciesCount struct {
 // equations are equal or one is the other reversed. The key is "" when
 // the net equation is empty.
 func netKey(rx *Reaction) (key string, reversed bool) {
+	if coefs, ok := intCoefficients(rx); ok {
+		return intNetKey(rx, coefs)
+	}
+	return netKeyRat(rx)
+}
+
+// intNetKey is netKey with the coefficients given as small integers, left
+// side then right.
+func intNetKey(rx *Reaction, coefs []int64) (string, bool) {
 	var buf [12]speciesCount
 	cs := buf[:0]
+	i := 0
 	for side, terms := range [2][]Term{rx.Left, rx.Right} {
 		sign := int64(2*side - 1)
 		for _, t := range terms {
-			c, isInt := smallInt(t.Coef)
-			if !isInt || t.Species == nil {
+			c := coefs[i]
+			i++
+			if t.Species == nil {
 				return netKeyRat(rx)
 			}
 			cs = addSpeciesCount(cs, t.Species, sign*c)

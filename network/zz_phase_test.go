@@ -48,3 +48,23 @@ func TestZZPhases(t *testing.T) {
 		}
 	}
 }
+
+func TestZZCompile(t *testing.T) {
+	if os.Getenv("ZZC") == "" {
+		t.Skip()
+	}
+	root, src, _ := synthSource(t, 10000, 50000)
+	var files []*File
+	{
+		n := &Network{Root: root}
+		l := &loader{net: n, src: src, index: map[string]int{}}
+		l.load(root, nil, lang.Span{})
+		files = n.Files
+	}
+	for it := 0; it < 10; it++ {
+		n := &Network{Root: root, Files: files}
+		s := time.Now()
+		compile(n)
+		fmt.Println("compile", time.Since(s))
+	}
+}
