@@ -12,13 +12,13 @@ import (
 // grammar documentation says, with lookahead one.
 
 // take consumes the next token and returns it with its one-token slice.
-func take(lex *lexer.PeekingLexer) (lexer.Token, []lexer.Token) {
+func take(lex tokenStream) (lexer.Token, []lexer.Token) {
 	start := lex.RawCursor()
 	t := *lex.Next()
 	return t, lex.Range(start, lex.RawCursor())
 }
 
-func unexpected(lex *lexer.PeekingLexer, expect string) error {
+func unexpected(lex tokenStream, expect string) error {
 	return &participle.UnexpectedTokenError{Unexpected: *lex.Peek(), Expect: expect}
 }
 
@@ -27,7 +27,9 @@ func isNameToken(t *lexer.Token) bool { return t.Type == Word || t.Type == Keywo
 func isRefToken(t *lexer.Token) bool { return t.Type == Ref || t.Type == Word || t.Type == Keyword }
 
 // Parse reads a number token.
-func (n *Num) Parse(lex *lexer.PeekingLexer) error {
+func (n *Num) Parse(lex *lexer.PeekingLexer) error { return n.read(lex) }
+
+func (n *Num) read(lex tokenStream) error {
 	if lex.Peek().Type != Number {
 		return participle.NextMatch
 	}
@@ -37,7 +39,9 @@ func (n *Num) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads a unit word.
-func (u *Unit) Parse(lex *lexer.PeekingLexer) error {
+func (u *Unit) Parse(lex *lexer.PeekingLexer) error { return u.read(lex) }
+
+func (u *Unit) read(lex tokenStream) error {
 	if lex.Peek().Type != Word {
 		return participle.NextMatch
 	}
@@ -47,7 +51,9 @@ func (u *Unit) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads a name.
-func (id *Ident) Parse(lex *lexer.PeekingLexer) error {
+func (id *Ident) Parse(lex *lexer.PeekingLexer) error { return id.read(lex) }
+
+func (id *Ident) read(lex tokenStream) error {
 	if !isNameToken(lex.Peek()) {
 		return participle.NextMatch
 	}
@@ -57,7 +63,9 @@ func (id *Ident) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads a string literal.
-func (s *Str) Parse(lex *lexer.PeekingLexer) error {
+func (s *Str) Parse(lex *lexer.PeekingLexer) error { return s.read(lex) }
+
+func (s *Str) read(lex tokenStream) error {
 	if lex.Peek().Type != String {
 		return participle.NextMatch
 	}
@@ -67,7 +75,9 @@ func (s *Str) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads a species reference.
-func (r *SpeciesRef) Parse(lex *lexer.PeekingLexer) error {
+func (r *SpeciesRef) Parse(lex *lexer.PeekingLexer) error { return r.read(lex) }
+
+func (r *SpeciesRef) read(lex tokenStream) error {
 	if !isRefToken(lex.Peek()) {
 		return participle.NextMatch
 	}
@@ -77,7 +87,9 @@ func (r *SpeciesRef) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads a reaction arrow.
-func (a *Arrow) Parse(lex *lexer.PeekingLexer) error {
+func (a *Arrow) Parse(lex *lexer.PeekingLexer) error { return a.read(lex) }
+
+func (a *Arrow) read(lex tokenStream) error {
 	t := lex.Peek()
 	if t.Type != Punct {
 		return participle.NextMatch
@@ -97,24 +109,26 @@ func isPlusMinus(t *lexer.Token) bool {
 }
 
 // Parse reads Num [ ("±" | "+-") Num ] [ Unit ].
-func (q *Quantity) Parse(lex *lexer.PeekingLexer) error {
+func (q *Quantity) Parse(lex *lexer.PeekingLexer) error { return q.read(lex) }
+
+func (q *Quantity) read(lex tokenStream) error {
 	if lex.Peek().Type != Number {
 		return participle.NextMatch
 	}
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	out := Quantity{Value: &Num{}}
-	_ = out.Value.Parse(lex)
+	_ = out.Value.read(lex)
 	if isPlusMinus(lex.Peek()) {
 		lex.Next()
 		out.Sigma = &Num{}
-		if out.Sigma.Parse(lex) != nil {
+		if out.Sigma.read(lex) != nil {
 			return unexpected(lex, "Num")
 		}
 	}
 	if lex.Peek().Type == Word {
 		out.Unit = &Unit{}
-		_ = out.Unit.Parse(lex)
+		_ = out.Unit.read(lex)
 	}
 	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
 	*q = out
@@ -122,16 +136,18 @@ func (q *Quantity) Parse(lex *lexer.PeekingLexer) error {
 }
 
 // Parse reads [ Num ] SpeciesRef.
-func (tm *Term) Parse(lex *lexer.PeekingLexer) error {
+func (tm *Term) Parse(lex *lexer.PeekingLexer) error { return tm.read(lex) }
+
+func (tm *Term) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	var out Term
 	if first.Type == Number {
 		out.Coef = &Num{}
-		_ = out.Coef.Parse(lex)
+		_ = out.Coef.read(lex)
 	}
 	out.Species = &SpeciesRef{}
-	if out.Species.Parse(lex) != nil {
+	if out.Species.read(lex) != nil {
 		if out.Coef == nil {
 			return participle.NextMatch
 		}
@@ -145,12 +161,12 @@ func (tm *Term) Parse(lex *lexer.PeekingLexer) error {
 // unexpectedRest is the error for a required element that is missing,
 // expecting rest, the part of the production from that element on (as the
 // grammar's EBNF writes it).
-func unexpectedRest(lex *lexer.PeekingLexer, rest string) error {
+func unexpectedRest(lex tokenStream, rest string) error {
 	return &participle.UnexpectedTokenError{Unexpected: *lex.Peek(), Expect: rest}
 }
 
 // expectLiteral consumes the token with text s or fails expecting rest.
-func expectLiteral(lex *lexer.PeekingLexer, s, rest string) error {
+func expectLiteral(lex tokenStream, s, rest string) error {
 	if lex.Peek().Value != s || lex.Peek().EOF() {
 		return unexpectedRest(lex, rest)
 	}
@@ -160,9 +176,9 @@ func expectLiteral(lex *lexer.PeekingLexer, s, rest string) error {
 
 // requireQuantity parses a quantity that must be there, or fails
 // expecting rest.
-func requireQuantity(lex *lexer.PeekingLexer, rest string) (*Quantity, error) {
+func requireQuantity(lex tokenStream, rest string) (*Quantity, error) {
 	q := &Quantity{}
-	if err := q.Parse(lex); err != nil {
+	if err := q.read(lex); err != nil {
 		if err == participle.NextMatch {
 			return nil, unexpectedRest(lex, rest)
 		}
@@ -172,7 +188,9 @@ func requireQuantity(lex *lexer.PeekingLexer, rest string) (*Quantity, error) {
 }
 
 // Parse reads ("shomate" | "nasa7") Quantity "to" Quantity "{" Num* "}".
-func (p *Polynomial) Parse(lex *lexer.PeekingLexer) error {
+func (p *Polynomial) Parse(lex *lexer.PeekingLexer) error { return p.read(lex) }
+
+func (p *Polynomial) read(lex tokenStream) error {
 	if v := lex.Peek().Value; v != "shomate" && v != "nasa7" {
 		return participle.NextMatch
 	}
@@ -194,7 +212,7 @@ func (p *Polynomial) Parse(lex *lexer.PeekingLexer) error {
 	}
 	for lex.Peek().Type == Number {
 		n := &Num{}
-		_ = n.Parse(lex)
+		_ = n.read(lex)
 		out.Coeffs = append(out.Coeffs, n)
 	}
 	if err := expectLiteral(lex, "}", `"}"`); err != nil {
@@ -207,7 +225,9 @@ func (p *Polynomial) Parse(lex *lexer.PeekingLexer) error {
 
 // Parse reads one species property, chosen by its keyword: FormulaProp,
 // SpeciesValue, Polynomial or TextProp.
-func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error {
+func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error { return sp.read(lex) }
+
+func (sp *SpeciesProperty) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	var out SpeciesProperty
@@ -216,7 +236,7 @@ func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error {
 	case "formula":
 		lex.Next()
 		ref := &SpeciesRef{}
-		if ref.Parse(lex) != nil {
+		if ref.read(lex) != nil {
 			return unexpectedRest(lex, "SpeciesRef")
 		}
 		out.Formula = &FormulaProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
@@ -230,13 +250,13 @@ func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error {
 		out.Value = v
 	case "shomate", "nasa7":
 		out.Poly = &Polynomial{}
-		if err := out.Poly.Parse(lex); err != nil {
+		if err := out.Poly.read(lex); err != nil {
 			return err
 		}
 	case "source", "note":
 		lex.Next()
 		s := &Str{}
-		if s.Parse(lex) != nil {
+		if s.read(lex) != nil {
 			return unexpectedRest(lex, "Str")
 		}
 		out.Text = &TextProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}
@@ -250,13 +270,13 @@ func (sp *SpeciesProperty) Parse(lex *lexer.PeekingLexer) error {
 
 // optionalNum reads Num after the literal lit when lit comes next; a
 // missing Num is an error.
-func optionalNum(lex *lexer.PeekingLexer, lit string) (*Num, error) {
+func optionalNum(lex tokenStream, lit string) (*Num, error) {
 	if lex.Peek().Value != lit || lex.Peek().EOF() {
 		return nil, nil
 	}
 	lex.Next()
 	n := &Num{}
-	if n.Parse(lex) != nil {
+	if n.read(lex) != nil {
 		return nil, unexpectedRest(lex, "Num")
 	}
 	return n, nil
@@ -264,7 +284,9 @@ func optionalNum(lex *lexer.PeekingLexer, lit string) (*Num, error) {
 
 // Parse reads one reaction property, chosen by its keyword: ReactionValue,
 // LogK, Rate or TextProp.
-func (rp *ReactionProperty) Parse(lex *lexer.PeekingLexer) error {
+func (rp *ReactionProperty) Parse(lex *lexer.PeekingLexer) error { return rp.read(lex) }
+
+func (rp *ReactionProperty) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	node := func() Node { return Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())} }
@@ -282,13 +304,13 @@ func (rp *ReactionProperty) Parse(lex *lexer.PeekingLexer) error {
 	case "logk":
 		lex.Next()
 		lk := &LogK{Value: &Num{}}
-		if lk.Value.Parse(lex) != nil {
+		if lk.Value.read(lex) != nil {
 			return unexpectedRest(lex, `Num (("±" | "+-") Num)? ("at" Quantity)?`)
 		}
 		if isPlusMinus(lex.Peek()) {
 			lex.Next()
 			lk.Sigma = &Num{}
-			if lk.Sigma.Parse(lex) != nil {
+			if lk.Sigma.read(lex) != nil {
 				return unexpectedRest(lex, "Num")
 			}
 		}
@@ -323,7 +345,7 @@ func (rp *ReactionProperty) Parse(lex *lexer.PeekingLexer) error {
 	case "source", "note":
 		lex.Next()
 		s := &Str{}
-		if s.Parse(lex) != nil {
+		if s.read(lex) != nil {
 			return unexpectedRest(lex, "Str")
 		}
 		out.Text = &TextProp{Node: node(), Key: first.Value, Text: s}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"runtime"
+	"slices"
 	"strings"
 	"sync"
 
@@ -33,17 +34,21 @@ var parserOptions = []participle.Option{
 // statementParser is the whole grammar, for Grammar.
 var statementParser = participle.MustBuild[Statement](parserOptions...)
 
-// kindParser parses one kind of statement into st, leaving peek after it.
-type kindParser func(peek *lexer.PeekingLexer, st *Statement) error
+// kindParser parses one kind of statement into st, leaving the cursor at
+// the token after it.
+type kindParser func(c *tokenCursor, st *Statement) error
 
+// kind is the kindParser that participle builds for G.
 func kind[G any](set func(*Statement, *G)) kindParser {
 	p := participle.MustBuild[G](parserOptions...)
-	return func(peek *lexer.PeekingLexer, st *Statement) error {
-		v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
-		if v != nil {
-			set(st, v)
-		}
-		return err
+	return func(c *tokenCursor, st *Statement) error {
+		return c.withPeeking(func(peek *lexer.PeekingLexer) error {
+			v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
+			if v != nil {
+				set(st, v)
+			}
+			return err
+		})
 	}
 }
 
@@ -89,17 +94,17 @@ const endOfStatement lexer.TokenType = -64
 // isEnd reports whether t ends the statement being parsed.
 func isEnd(t lexer.Token) bool { return t.EOF() || t.Type == endOfStatement }
 
-// chunk is one statement's place in a batch's token stream: tokens
+// chunk is one statement's place in a group's token stream: tokens
 // [start, end), followed by an endOfStatement token at end.
 type chunk struct{ start, end int }
 
-// batchLexer feeds participle one group of statements from the lexer,
-// each statement's tokens followed by an endOfStatement token, and EOF
-// once the group is full or at the end of the input. It cuts statements
+// groupLexer hands out one group of statements from the lexer, each
+// statement's tokens followed by an endOfStatement token, and EOF once
+// the group is full or at the end of the input. It cuts statements
 // at statement keywords that stand at brace depth 0 or first on their
-// line. One batchLexer serves all groups of a file, since tokens the lexer
+// line. One groupLexer serves all groups of a file, since tokens the lexer
 // has read may wait in its queue from one group to the next.
-type batchLexer struct {
+type groupLexer struct {
 	l        *lexState
 	queue    int // index in l.toks of the next token to hand out
 	chunks   []chunk
@@ -112,16 +117,16 @@ type batchLexer struct {
 }
 
 // A group is full after groupStatements statements, or once its
-// statements reach groupTokens tokens. Small groups keep each one's tokens
-// in the cache between lexing and parsing, and keep participle's token
-// slice, which grows by appending, in its doubling range.
+// statements reach groupTokens tokens: small enough that a group's tokens
+// (64 bytes each) are still in the cache when a worker parses them, large
+// enough that handing groups to workers costs little.
 const (
-	groupStatements = 32
-	groupTokens     = 200
+	groupStatements = 64
+	groupTokens     = 1024
 )
 
 // peek returns the next token of the input without taking it.
-func (b *batchLexer) peek() (lexer.Token, bool) {
+func (b *groupLexer) peek() (lexer.Token, bool) {
 	for b.queue == len(b.l.toks) {
 		b.l.toks, b.queue = b.l.toks[:0], 0
 		if !b.l.more() {
@@ -131,7 +136,7 @@ func (b *batchLexer) peek() (lexer.Token, bool) {
 	return b.l.toks[b.queue], true
 }
 
-func (b *batchLexer) Next() (lexer.Token, error) {
+func (b *groupLexer) Next() (lexer.Token, error) {
 	if b.full || b.finished {
 		return lexer.Token{Type: lexer.EOF, Pos: b.last.Pos}, nil
 	}
@@ -166,7 +171,7 @@ func (b *batchLexer) Next() (lexer.Token, error) {
 
 // end closes the open statement and returns its endOfStatement token,
 // placed just after the statement's last token.
-func (b *batchLexer) end() lexer.Token {
+func (b *groupLexer) end() lexer.Token {
 	b.open = false
 	b.chunks[len(b.chunks)-1].end = b.n
 	b.n++
@@ -207,16 +212,26 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		go func() {
 			defer wg.Done()
 			for g := range groups {
-				g.results = parseGroup(g.peek, g.chunks, src, cache)
+				g.results = parseGroup(g.toks, g.chunks, src, cache)
 			}
 		}()
 	}
 	var order []*lexedGroup
-	b := &batchLexer{l: l}
+	var scratch []lexer.Token
+	b := &groupLexer{l: l}
 	for !b.finished {
 		b.chunks, b.n, b.full = nil, 0, false
-		peek, _ := lexer.Upgrade(b) // batchLexer.Next never fails
-		g := &lexedGroup{peek: peek, chunks: b.chunks}
+		scratch = scratch[:0]
+		for {
+			t, _ := b.Next() // groupLexer.Next never fails
+			scratch = append(scratch, t)
+			if t.EOF() {
+				break
+			}
+		}
+		// The syntax tree keeps the group's tokens: copy them out of the
+		// scratch buffer at their exact size.
+		g := &lexedGroup{toks: slices.Clone(scratch), chunks: b.chunks}
 		order = append(order, g)
 		groups <- g
 	}
@@ -240,7 +255,7 @@ const lexAhead = 16
 // lexedGroup is one group of statements, lexed, and once a worker has
 // parsed it, its results.
 type lexedGroup struct {
-	peek    *lexer.PeekingLexer
+	toks    []lexer.Token // each statement's, then endOfStatement; EOF last
 	chunks  []chunk
 	results []result
 }
@@ -253,37 +268,29 @@ type result struct {
 
 // parseGroup parses the statements of one group in order. With a cache, a
 // statement whose text it holds is taken from it.
-func parseGroup(peek *lexer.PeekingLexer, chunks []chunk, src []byte, cache *Cache) []result {
+func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []result {
 	results := make([]result, len(chunks))
-	walk := *peek // stands at the start of each statement in turn
 	for i, c := range chunks {
-		if c.start > 0 {
-			walk.FastForward(lexer.RawCursor(c.start - 1))
-		}
-		lx := walk
-		if cache != nil {
-			if toks := peek.Range(lexer.RawCursor(c.start), lexer.RawCursor(c.end)); len(toks) > 0 {
-				if key, keyed := statementKey(src, toks); keyed {
-					if st := cache.lookup(key, toks[0].Pos); st != nil {
-						results[i] = result{st: st}
-						continue
-					}
-					r := parseStatement(&lx, c)
-					cache.store(key, r.st, len(r.diags) == 0)
-					results[i] = r
+		if cache != nil && c.end > c.start {
+			if key, keyed := statementKey(src, toks[c.start:c.end]); keyed {
+				if st := cache.lookup(key, toks[c.start].Pos); st != nil {
+					results[i] = result{st: st}
 					continue
 				}
+				r := parseStatement(toks, c)
+				cache.store(key, r.st, len(r.diags) == 0)
+				results[i] = r
+				continue
 			}
 		}
-		results[i] = parseStatement(&lx, c)
+		results[i] = parseStatement(toks, c)
 	}
 	return results
 }
 
-// parseStatement parses the statement c from lx, which stands at its first
-// token.
-func parseStatement(lx *lexer.PeekingLexer, c chunk) result {
-	toks := lx.Range(lexer.RawCursor(c.start), lexer.RawCursor(c.end))
+// parseStatement parses the statement c of a group's tokens.
+func parseStatement(group []lexer.Token, c chunk) result {
+	toks := group[c.start:c.end:c.end]
 	first := toks[0]
 	if first.Type != Keyword || !statementKeywords[first.Value] {
 		span := TokenSpan(first)
@@ -296,9 +303,10 @@ func parseStatement(lx *lexer.PeekingLexer, c chunk) result {
 		}}}
 	}
 	st := &Statement{Node: Node{Pos: first.Pos, Tokens: toks}}
-	err := statementParsers[first.Value](lx, st)
-	if err == nil && !isEnd(*lx.Peek()) {
-		err = &participle.UnexpectedTokenError{Unexpected: *lx.Peek()}
+	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1]}
+	err := statementParsers[first.Value](cur, st)
+	if err == nil && !isEnd(*cur.Peek()) {
+		err = &participle.UnexpectedTokenError{Unexpected: *cur.Peek()}
 	}
 	if err != nil {
 		st.Broken = true

@@ -16,7 +16,7 @@ var comboParser = participle.MustBuild[Combination](parserOptions...)
 
 // parseSpeciesStatement reads
 // "species" SpeciesRef ("," SpeciesRef)* Str? ("{" SpeciesProperty* "}")?.
-func parseSpeciesStatement(lex *lexer.PeekingLexer, st *Statement) error {
+func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	first := *lex.Next() // "species"
 	out := &Species{Node: Node{Pos: first.Pos}}
@@ -24,7 +24,7 @@ func parseSpeciesStatement(lex *lexer.PeekingLexer, st *Statement) error {
 	const refsRest = `SpeciesRef ("," SpeciesRef)* Str? ("{" SpeciesProperty* "}")?`
 	for {
 		ref := &SpeciesRef{}
-		if ref.Parse(lex) != nil {
+		if ref.read(lex) != nil {
 			if len(out.Refs) == 0 {
 				return unexpectedRest(lex, refsRest)
 			}
@@ -38,7 +38,7 @@ func parseSpeciesStatement(lex *lexer.PeekingLexer, st *Statement) error {
 	}
 	if lex.Peek().Type == String {
 		out.Label = &Str{}
-		_ = out.Label.Parse(lex)
+		_ = out.Label.read(lex)
 	}
 	if t := lex.Peek(); t.Type == Punct && t.Value == "{" {
 		out.HasBody = true
@@ -54,10 +54,10 @@ func parseSpeciesStatement(lex *lexer.PeekingLexer, st *Statement) error {
 
 // parseTerms reads Term ("+" Term)* into *terms, failing expecting rest
 // when no term starts the list.
-func parseTerms(lex *lexer.PeekingLexer, terms *[]*Term, rest string) error {
+func parseTerms(lex *tokenCursor, terms *[]*Term, rest string) error {
 	for {
 		tm := &Term{}
-		if err := tm.Parse(lex); err != nil {
+		if err := tm.read(lex); err != nil {
 			if err != participle.NextMatch {
 				return err
 			}
@@ -77,13 +77,13 @@ func parseTerms(lex *lexer.PeekingLexer, terms *[]*Term, rest string) error {
 // parseReactionStatement reads
 // "reaction" Ident ":" Term ("+" Term)* Arrow Term ("+" Term)*
 // ("=" Combination)? ("{" ReactionProperty* "}")?.
-func parseReactionStatement(lex *lexer.PeekingLexer, st *Statement) error {
+func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	first := *lex.Next() // "reaction"
 	out := &Reaction{Node: Node{Pos: first.Pos}}
 	st.Reaction = out
 	name := &Ident{}
-	if name.Parse(lex) != nil {
+	if name.read(lex) != nil {
 		return unexpectedRest(lex, `Ident ":" Term ("+" Term)* Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`)
 	}
 	out.Name = name
@@ -94,7 +94,7 @@ func parseReactionStatement(lex *lexer.PeekingLexer, st *Statement) error {
 		return err
 	}
 	arrow := &Arrow{}
-	if arrow.Parse(lex) != nil {
+	if arrow.read(lex) != nil {
 		return unexpectedRest(lex, `Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`)
 	}
 	out.Arrow = arrow
@@ -103,10 +103,13 @@ func parseReactionStatement(lex *lexer.PeekingLexer, st *Statement) error {
 	}
 	if t := lex.Peek(); t.Type == Punct && t.Value == "=" {
 		lex.Next()
-		c, err := comboParser.ParseFromLexer(lex, participle.AllowTrailing(true))
-		if c != nil {
-			out.Combo = c
-		}
+		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
+			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
+			if c != nil {
+				out.Combo = c
+			}
+			return err
+		})
 		if err != nil {
 			return err
 		}
@@ -128,13 +131,13 @@ func parseReactionStatement(lex *lexer.PeekingLexer, st *Statement) error {
 // any error.
 func parseBlock[P any, PP interface {
 	*P
-	Parse(*lexer.PeekingLexer) error
-}](lex *lexer.PeekingLexer) ([]PP, error) {
+	read(tokenStream) error
+}](lex *tokenCursor) ([]PP, error) {
 	lex.Next()
 	var props []PP
 	for {
 		p := PP(new(P))
-		err := p.Parse(lex)
+		err := p.read(lex)
 		if err == participle.NextMatch {
 			break
 		}
