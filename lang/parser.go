@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"runtime"
-	"slices"
 	"strings"
 	"sync"
 
@@ -217,21 +216,23 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		}()
 	}
 	var order []*lexedGroup
-	var scratch []lexer.Token
 	b := &groupLexer{l: l}
+	last := 0 // tokens in the group before
 	for !b.finished {
 		b.chunks, b.n, b.full = nil, 0, false
-		scratch = scratch[:0]
+		// The syntax tree keeps the group's tokens. Groups of one file are
+		// much alike in size, so room for the last one's and a little more
+		// seldom needs to grow and wastes little.
+		toks := make([]lexer.Token, 0, last+64)
 		for {
 			t, _ := b.Next() // groupLexer.Next never fails
-			scratch = append(scratch, t)
+			toks = append(toks, t)
 			if t.EOF() {
 				break
 			}
 		}
-		// The syntax tree keeps the group's tokens: copy them out of the
-		// scratch buffer at their exact size.
-		g := &lexedGroup{toks: slices.Clone(scratch), chunks: b.chunks}
+		last = len(toks)
+		g := &lexedGroup{toks: toks, chunks: b.chunks}
 		order = append(order, g)
 		groups <- g
 	}
