@@ -5,6 +5,7 @@ import (
 	"os"
 	"path/filepath"
 	"reflect"
+	"runtime"
 	"strings"
 	"testing"
 
@@ -647,5 +648,43 @@ func TestBatchBoundary(t *testing.T) {
 		if len(diags) != 1 || len(f.Statements) != n+3 {
 			t.Errorf("n=%d: %d statements, diagnostics:\n%s", n, len(f.Statements), diagList(diags))
 		}
+	}
+}
+
+// TestParallelParseMatchesSerial parses a file of many groups, with syntax
+// errors spread through it, on one processor and on four: the statements,
+// their text and the diagnostics must be the same, in the same order.
+func TestParallelParseMatchesSerial(t *testing.T) {
+	var b strings.Builder
+	for i := range 3000 {
+		switch i % 97 {
+		case 13:
+			fmt.Fprintf(&b, "reaction r%d: A(g) -> -> B(g)\n", i)
+		case 41:
+			fmt.Fprintf(&b, "species S%d(g) { hf 1 kJ/mol\n", i) // missing }
+		default:
+			fmt.Fprintf(&b, "reaction r%d: 2 A(g) + B(g) <-> C(g) { dg %d kJ/mol }\n", i, i)
+		}
+	}
+	src := []byte(b.String())
+	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(0))
+	var runs [2]string
+	for i, procs := range []int{1, 4} {
+		runtime.GOMAXPROCS(procs)
+		f, diags := Parse("t.hess", src)
+		var out strings.Builder
+		for _, st := range f.Statements {
+			fmt.Fprintf(&out, "%v %v %q\n", st.Span(), st.Broken, src[st.Span().Start.Offset:st.Span().End.Offset])
+		}
+		for _, d := range diags {
+			fmt.Fprintf(&out, "%s %v %s\n", d.Code, d.Subject, d.Message)
+		}
+		runs[i] = out.String()
+	}
+	if runs[0] != runs[1] {
+		t.Errorf("one processor and four parse differently")
+	}
+	if n := strings.Count(runs[0], "\n"); n < 3000+60 {
+		t.Errorf("%d lines of statements and diagnostics, want at least 3060", n)
 	}
 }
