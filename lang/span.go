@@ -7,12 +7,16 @@ import (
 )
 
 // TokenSpan is the exact source range of one token.
-func TokenSpan(t lexer.Token) Span {
+func TokenSpan(t lexer.Token) Span { return tokenSpan(&t) }
+
+func tokenSpan(t *lexer.Token) Span {
 	start := Pos{Line: t.Pos.Line, Column: t.Pos.Column, Offset: t.Pos.Offset}
-	end := start
-	end.Offset += len(t.Value)
-	end.Column += utf8.RuneCountInString(t.Value)
-	return Span{File: t.Pos.Filename, Start: start, End: end}
+	return Span{File: t.Pos.Filename, Start: start, End: tokenEnd(t)}
+}
+
+// tokenEnd is the position just after a token.
+func tokenEnd(t *lexer.Token) Pos {
+	return Pos{Line: t.Pos.Line, Column: t.Pos.Column + utf8.RuneCountInString(t.Value), Offset: t.Pos.Offset + len(t.Value)}
 }
 
 // Span is the exact source range of the node, from the start of its first
@@ -26,9 +30,12 @@ func (n *Node) Span() Span {
 		p := Pos{Line: n.Pos.Line, Column: n.Pos.Column, Offset: n.Pos.Offset}
 		return Span{File: n.Pos.Filename, Start: p, End: p}
 	}
-	first := TokenSpan(n.Tokens[0])
-	last := TokenSpan(n.Tokens[len(n.Tokens)-1])
-	return Span{File: first.File, Start: first.Start, End: last.End}
+	first := &n.Tokens[0]
+	return Span{
+		File:  first.Pos.Filename,
+		Start: Pos{Line: first.Pos.Line, Column: first.Pos.Column, Offset: first.Pos.Offset},
+		End:   tokenEnd(&n.Tokens[len(n.Tokens)-1]),
+	}
 }
 
 // EndSpan is an empty span just after the node's last token, where a

@@ -438,21 +438,42 @@ func (c *compiler) speciesStatement(d declaredSpecies) {
 	}
 }
 
+// givenOnce records where each property of a block was first given.
+// Blocks are short, so a list serves.
+type givenOnce []struct {
+	name string
+	at   lang.Span
+}
+
+// add records name given at at, unless it was given before; then it
+// returns where, and dup is true.
+func (g *givenOnce) add(name string, at lang.Span) (first lang.Span, dup bool) {
+	for _, e := range *g {
+		if e.name == name {
+			return e.at, true
+		}
+	}
+	*g = append(*g, struct {
+		name string
+		at   lang.Span
+	}{name, at})
+	return lang.Span{}, false
+}
+
 // properties reads a species block. It returns the explicit formula, if any.
 func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (string, lang.Span) {
-	seen := map[string]lang.Span{}
+	var seen givenOnce
 	var formula string
 	var formulaSpan lang.Span
 	for _, pr := range props {
 		key := keywordSpan(&pr.Node)
 		name := pr.Tokens[0].Value
 		if name != "shomate" && name != "nasa7" {
-			if first, dup := seen[name]; dup {
+			if first, dup := seen.add(name, key); dup {
 				d := c.report("syntax", key, "%s is given twice for %s", name, sp.Key)
 				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
 				continue
 			}
-			seen[name] = key
 		}
 		switch {
 		case pr.Formula != nil:
@@ -737,17 +758,16 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 }
 
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
-	seen := map[string]lang.Span{}
+	var seen givenOnce
 	for _, pr := range props {
 		key := keywordSpan(&pr.Node)
 		name := pr.Tokens[0].Value
 		if name != "logk" {
-			if first, dup := seen[name]; dup {
+			if first, dup := seen.add(name, key); dup {
 				d := c.report("syntax", key, "%s is given twice for reaction %s", name, rx.Name)
 				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
 				continue
 			}
-			seen[name] = key
 		}
 		switch {
 		case pr.Value != nil:
@@ -838,8 +858,11 @@ func (c *compiler) rate(r *lang.Rate) *Rate {
 }
 
 func (c *compiler) combination(r *lang.Reaction) {
+	if r.Combo == nil {
+		return
+	}
 	rx := c.net.reactionByName[r.Name.Name]
-	if r.Combo == nil || rx == nil || rx.Span != r.Span() {
+	if rx == nil || rx.Span != r.Span() {
 		return
 	}
 	for i, t := range r.Combo.Terms {
