@@ -48,8 +48,19 @@ func compile(n *Network) {
 	for tag, conv := range builtinPhases {
 		n.Phases[tag] = &Phase{Tag: tag, Convention: conv, Builtin: true}
 	}
-	n.speciesByKey = map[string]*Species{}
-	n.reactionByName = map[string]*Reaction{}
+	// Room for every species and reaction statement, so that the maps do
+	// not grow on large networks.
+	nSpecies, nReactions := 0, 0
+	c.each(func(st *lang.Statement) {
+		switch {
+		case st.Species != nil:
+			nSpecies += len(st.Species.Refs)
+		case st.Reaction != nil:
+			nReactions++
+		}
+	})
+	n.speciesByKey = make(map[string]*Species, nSpecies)
+	n.reactionByName = make(map[string]*Reaction, nReactions)
 	n.Settings = Settings{Pressure: 1e5, Temperatures: []float64{298.15}, Tolerance: 500}
 
 	// Elements and phases first: formulas and state tags depend on them.
@@ -86,7 +97,7 @@ func compile(n *Network) {
 		}
 	})
 	c.speciesData(species)
-	var reactions []*lang.Statement
+	reactions := make([]*lang.Statement, 0, nReactions)
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
 			reactions = append(reactions, st)
