@@ -383,10 +383,10 @@ func (c *rxCalc) crossovers() []thermo.Crossover {
 	if !(lo < hi) || math.IsInf(hi, 0) {
 		return nil
 	}
+	if c.absOK {
+		return thermo.ScanCrossovers(c.abs.SummedDeltaG(), c.abs.DeltaG, lo, hi)
+	}
 	return thermo.Crossovers(func(T float64) float64 {
-		if c.absOK {
-			return c.abs.DeltaG(T)
-		}
 		p := c.at(T)
 		if !p.ok() {
 			return math.NaN()

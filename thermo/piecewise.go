@@ -13,6 +13,10 @@ import (
 // range extrapolates. Whether ranges join cleanly is reported by Joins.
 type Piecewise struct {
 	pieces []Model
+	bounds [][2]float64 // each piece's Tmin and Tmax
+	// hiBefore[k] is the highest Tmax of the pieces before k (−Inf for
+	// the first): piece k answers at T in its bounds above hiBefore[k].
+	hiBefore []float64
 }
 
 // NewPiecewise orders the ranges by their lower bound and checks that each has
@@ -41,7 +45,15 @@ func NewPiecewise(pieces ...Model) (*Piecewise, error) {
 		}
 		return 0
 	})
-	return &Piecewise{pieces: ps}, nil
+	bounds := make([][2]float64, len(ps))
+	hiBefore := make([]float64, len(ps))
+	hi := math.Inf(-1)
+	for i, m := range ps {
+		bounds[i][0], bounds[i][1] = m.Range()
+		hiBefore[i] = hi
+		hi = math.Max(hi, bounds[i][1])
+	}
+	return &Piecewise{pieces: ps, bounds: bounds, hiBefore: hiBefore}, nil
 }
 
 func checkRange(lo, hi float64) error {
@@ -60,16 +72,26 @@ func checkRange(lo, hi float64) error {
 func (p *Piecewise) Pieces() []Model { return slices.Clone(p.pieces) }
 
 // piece chooses the range that answers at T.
-func (p *Piecewise) piece(T float64) Model {
-	best, dist := p.pieces[0], math.Inf(1)
-	for _, m := range p.pieces {
-		lo, hi := m.Range()
+func (p *Piecewise) piece(T float64) Model { return p.pieces[p.pieceIndex(T)] }
+
+// answers reports whether piece k answers at T because T lies within it:
+// the pieces are in order of their lower bound, so none before k holds T.
+func (p *Piecewise) answers(k int, T float64) bool {
+	b := p.bounds[k]
+	return T >= b[0] && T <= b[1] && T > p.hiBefore[k]
+}
+
+// pieceIndex is the index of the range that answers at T.
+func (p *Piecewise) pieceIndex(T float64) int {
+	best, dist := 0, math.Inf(1)
+	for i, b := range p.bounds {
+		lo, hi := b[0], b[1]
 		if T >= lo && T <= hi {
-			return m
+			return i
 		}
 		d := math.Min(math.Abs(T-lo), math.Abs(T-hi))
 		if d < dist {
-			best, dist = m, d
+			best, dist = i, d
 		}
 	}
 	return best

@@ -120,6 +120,14 @@ const (
 // between samples far from zero can therefore go unseen; ΔrG° from
 // polynomial data bends far too gently for that.
 func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
+	return ScanCrossovers(f, f, Tmin, Tmax)
+}
+
+// ScanCrossovers is Crossovers with the grid sampled through scan, a
+// faster evaluation of f that agrees with it to rounding (such as
+// Reaction.SummedDeltaG); f itself refines each sign change, so the
+// crossovers are those of f.
+func ScanCrossovers(scan, f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 	if !finite(Tmin) || !finite(Tmax) || !(Tmin < Tmax) {
 		return nil
 	}
@@ -132,15 +140,22 @@ func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 		}
 		return Tmin + float64(i)*step
 	}
-	// Samples are kept, since the look past a stretch reads points that the
-	// scan may come back to.
-	vals := make([]float64, n+1)
-	have := make([]bool, n+1)
+	// The last samples are kept, since the look past a stretch reads
+	// points that the scan comes back to; it reads no farther than one
+	// stretch behind and two ahead of the scan.
+	var kept [4 * crossoverStride]struct {
+		i int
+		v float64
+	}
+	for k := range kept {
+		kept[k].i = -1
+	}
 	sample := func(i int) float64 {
-		if !have[i] {
-			vals[i], have[i] = f(at(i)), true
+		k := &kept[i%len(kept)]
+		if k.i != i {
+			k.i, k.v = i, scan(at(i))
 		}
-		return vals[i]
+		return k.v
 	}
 	var out []Crossover
 	prev, fprev := -1, 0.0 // last grid point with a finite non-zero value
