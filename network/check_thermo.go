@@ -78,8 +78,9 @@ K(T) needs ΔrG°(T): every species of the reaction with data that reach T
 or the reaction's own data (logk at T, two of dh, ds and dg), or for a
 coupled reaction its parts. The message names the temperatures and the
 species whose data fall short; its table rows are empty. A reaction none
-of whose species carries any data is a kinetics-only step and is not
-reported.`,
+of whose species carries any data is not reported when its own data are
+at most a dh (an enthalpy for Hess's law) or a rate (a kinetics-only
+step).`,
 	Run: func(p *Pass) {
 		temps := p.Net.Settings.Temperatures
 		known := map[*Species]bool{}
@@ -121,8 +122,8 @@ reported.`,
 	},
 }
 
-// thermoIntent reports whether a reaction is meant to have thermodynamics:
-// a species of it, or it or a part of it, carries data.
+// thermoIntent reports whether a reaction is meant to have a K: a species
+// of it carries data, or it or a part of it carries data beyond a dh.
 func thermoIntent(rx *Reaction) bool {
 	return thermoIntentWithin(rx, map[*Reaction]bool{})
 }
@@ -132,7 +133,8 @@ func thermoIntentWithin(rx *Reaction, seen map[*Reaction]bool) bool {
 		return false
 	}
 	seen[rx] = true
-	if rx.Dg != nil || rx.Dh != nil || rx.Ds != nil || len(rx.LogK) > 0 {
+	// A dh alone is an enthalpy for Hess's law, not a request for K.
+	if rx.Dg != nil || rx.Ds != nil || len(rx.LogK) > 0 {
 		return true
 	}
 	for _, t := range netTerms(rx) {
