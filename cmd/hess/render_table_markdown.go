@@ -7,8 +7,8 @@ import (
 )
 
 // renderTableMarkdown writes the tables as a Markdown document: a heading
-// per reaction, its equation and quotient in code spans, its crossovers,
-// and a pipe table with right-aligned columns.
+// per reaction, its equation and quotient in code spans, its crossovers
+// and fitted reverse rate, and a pipe table with right-aligned columns.
 func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 	var b strings.Builder
 	fmt.Fprintf(&b, "# Equilibrium constants of %s\n\nStandard pressure p° = %s.\n", mdEscape(doc.Network), pressureText(doc.Pressure))
@@ -17,6 +17,9 @@ func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 		fmt.Fprintf(&b, "- %s = `%s`, Δn(gas) = %s\n", t.Kind, t.Quotient, rational(t.DeltaGasMoles))
 		for _, line := range summaryLines(t)[1:] {
 			fmt.Fprintf(&b, "- %s\n", line)
+		}
+		if rr := doc.Reverse[t.Reaction]; rr != nil {
+			fmt.Fprintf(&b, "- %s\n", mdEscape(reverseRateLine(rr)))
 		}
 		cols := tableColumns(kcHeader(t.DeltaGasMoles))
 		b.WriteString("\n|")

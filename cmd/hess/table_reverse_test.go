@@ -37,8 +37,8 @@ reaction wgs: CO(g) + H2O(g) <-> CO2(g) + H2(g) {
 }
 `
 
-// TestTableReverseRate checks the fitted reverse rate in the JSON and text
-// tables: in JSON it reproduces kf/K (K from the table's own rows; Δn = 0,
+// TestTableReverseRate checks the fitted reverse rate in the JSON, text and
+// Markdown tables: in JSON it reproduces kf/K (K from the table's own rows; Δn = 0,
 // so Kc = K) within its maxRelError at every row, and against the
 // published log10 K of the water-gas shift (derived from NIST-JANAF log Kf,
 // ±0.002) within maxRelError plus that rounding.
@@ -97,5 +97,13 @@ func TestTableReverseRate(t *testing.T) {
 	}
 	if want := "  reverse rate fitted to kf/Kc from 600 K to 1200 K: A = "; !strings.Contains(out.String(), want) {
 		t.Errorf("text table lacks %q:\n%s", want, out.String())
+	}
+
+	out.Reset()
+	if code := run([]string{"table", "--format", "markdown", path}, &out, &errb); code != exitOK {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if want := "\n- reverse rate fitted to kf/Kc from 600 K to 1200 K: A = "; !strings.Contains(out.String(), want) {
+		t.Errorf("Markdown table lacks %q:\n%s", want, out.String())
 	}
 }
