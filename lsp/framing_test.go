@@ -202,7 +202,7 @@ func TestServerSurvivesGarbage(t *testing.T) {
 	if m := rc.next(t); m["id"] != 6.0 || errorCode(m) != jsonrpc2.CodeInvalidParams {
 		t.Errorf("bad params: %v, want InvalidParams", m)
 	}
-	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didOpen","params":{"textDocument":{"uri":"untitled:1","text":"x"}}}`))
+	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didOpen","params":{"textDocument":{"uri":"git:/x.hess","text":"x"}}}`))
 	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didChange","params":{"textDocument":{"uri":"file:///nowhere/x.hess","version":2},"contentChanges":[{"text":"y"}]}}`))
 	// A length shorter than the body: the cut body is not JSON, and the
 	// rest of it is garbage before the next header.
@@ -233,7 +233,7 @@ func TestServerSurvivesGarbage(t *testing.T) {
 	case <-time.After(waitLimit):
 		t.Fatal("server did not exit")
 	}
-	for _, want := range []string{"skipping garbage", "bad Content-Length", "skipping malformed message", "only file: URIs", "not open"} {
+	for _, want := range []string{"skipping garbage", "bad Content-Length", "skipping malformed message", "only file: and untitled: URIs", "not open"} {
 		if !strings.Contains(rc.log.String(), want) {
 			t.Errorf("log lacks %q:\n%s", want, rc.log.String())
 		}

@@ -1,6 +1,7 @@
 package lsp
 
 import (
+	"path/filepath"
 	"testing"
 	"unicode/utf16"
 	"unicode/utf8"
@@ -123,7 +124,12 @@ func TestURIs(t *testing.T) {
 	if got, err := uriToPath("file:///tmp/a%20b/x.hess"); err != nil || got != "/tmp/a b/x.hess" {
 		t.Errorf("escaped URI: %q, %v", got, err)
 	}
-	for _, bad := range []string{"untitled:Untitled-1", "file://elsewhere/x.hess", "file:x.hess", "%zz"} {
+	a, errA := uriToPath("untitled:Untitled-1")
+	b, errB := uriToPath("untitled:Untitled-2")
+	if errA != nil || errB != nil || a == b || !filepath.IsAbs(a) || filepath.Base(filepath.Dir(a)) != untitledDir {
+		t.Errorf("untitled buffers: %q, %v; %q, %v", a, errA, b, errB)
+	}
+	for _, bad := range []string{"untitled:", "git:/x.hess", "file://elsewhere/x.hess", "file:x.hess", "%zz"} {
 		if _, err := uriToPath(bad); err == nil {
 			t.Errorf("%q accepted", bad)
 		}

@@ -245,3 +245,31 @@ func isCode(err error, code int64) bool {
 	e, ok := err.(*jsonrpc2.Error)
 	return ok && e.Code == code
 }
+
+// TestUntitledBuffer drafts a network in a buffer that has no file yet: it
+// gets its diagnostics, hover answers in it, and an include in it is
+// reported as not found.
+func TestUntitledBuffer(t *testing.T) {
+	const uri = "untitled:Untitled-1"
+	text := "species H2(g) { hf 0 kJ/mol  s 130.68 J/mol/K }\n" +
+		"species O2(g) { hf 0 kJ/mol  s 205.15 J/mol/K }\n" +
+		"species H2O(g) { hf -241.826 kJ/mol  s 188.835 J/mol/K }\n" +
+		"reaction burn: H2(g) + O2(g) -> H2O(g)\n"
+	c := startServer(t, Options{Debounce: -1})
+	c.initialize()
+	c.open(uri, text, 1)
+	p := c.waitDiagnostics(uri, atVersion(1))
+	if !slices.Equal(codes(p), []string{"element-imbalance"}) {
+		t.Fatalf("untitled buffer: %+v", p.Diagnostics)
+	}
+	var h Hover
+	c.mustCall("textDocument/hover", TextDocumentPositionParams{TextDocument: TextDocumentIdentifier{URI: uri}, Position: pos(3, 17)}, &h)
+	if !strings.Contains(h.Contents.Value, "species H2(g)") {
+		t.Errorf("hover in an untitled buffer:\n%s", h.Contents.Value)
+	}
+	c.change(uri, 2, TextDocumentContentChangeEvent{Text: "include \"gases.hess\"\n" + text})
+	p = c.waitDiagnostics(uri, atVersion(2))
+	if !slices.Contains(codes(p), "include-missing") {
+		t.Errorf("include in an untitled buffer: %+v", p.Diagnostics)
+	}
+}

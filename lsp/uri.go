@@ -8,15 +8,24 @@ import (
 	"strings"
 )
 
-// uriToPath turns a file: URI into a clean absolute path. Other schemes are
-// an error: the compiler reads files by path.
+// uriToPath turns a file: URI into a clean absolute path, and an untitled:
+// URI (a buffer not yet saved) into a path under untitledDir, where no
+// file is ever read: the compiler reads files by path, open buffers
+// first. Other schemes are an error.
 func uriToPath(uri string) (string, error) {
 	u, err := url.Parse(uri)
 	if err != nil {
 		return "", fmt.Errorf("document URI %q: %w", uri, err)
 	}
+	if u.Scheme == "untitled" {
+		name := u.Opaque + u.Path
+		if name == "" {
+			return "", fmt.Errorf("document URI %q names no buffer", uri)
+		}
+		return filepath.Abs(filepath.Join(string(filepath.Separator), untitledDir, url.PathEscape(name)))
+	}
 	if u.Scheme != "file" {
-		return "", fmt.Errorf("document URI %q: only file: URIs are supported", uri)
+		return "", fmt.Errorf("document URI %q: only file: and untitled: URIs are supported", uri)
 	}
 	p := u.Path
 	if runtime.GOOS == "windows" {
@@ -36,6 +45,11 @@ func uriToPath(uri string) (string, error) {
 	}
 	return filepath.Clean(p), nil
 }
+
+// untitledDir is the folder, at the root of the file system, in which
+// unsaved buffers are taken to lie. An include in such a buffer is looked
+// for there, and is not found.
+const untitledDir = "hess-untitled"
 
 // pathToURI turns an absolute path into a file: URI.
 func pathToURI(path string) string {
