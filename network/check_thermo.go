@@ -19,7 +19,9 @@ temperatures, or hess table --temperatures) outside every range of a
 species used in a reaction is computed by extending the nearest range,
 and such values can be far off, above all for Cp°. The message names the
 temperatures and the span the data cover; the table marks those rows as
-extrapolated.`,
+extrapolated. A mixture's temperature counts for each species it lists
+that a reaction evaluated in the mixture uses; hess approach marks those
+values as extrapolated.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Settings.Temperatures
 		for _, sp := range p.Net.Species {
@@ -43,7 +45,60 @@ extrapolated.`,
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
 		}
+		for _, mx := range p.Net.Mixtures {
+			extrapolatedInMixture(p, mx)
+		}
 	},
+}
+
+// extrapolatedInMixture reports the members of a mixture whose data do not
+// reach its temperature, where some reaction evaluated in the mixture (one
+// whose species it all lists) uses them.
+func extrapolatedInMixture(p *Pass, mx *Mixture) {
+	if !mx.Usable() {
+		return
+	}
+	T := mx.Temperature.V
+	used := map[*Species]bool{}
+	for _, rx := range p.Net.Reactions {
+		if !rx.Resolved || !listsAll(mx, rx) {
+			continue
+		}
+		for _, side := range [2][]Term{rx.Left, rx.Right} {
+			for _, t := range side {
+				used[t.Species] = true
+			}
+		}
+	}
+	for _, mm := range mx.Members {
+		sp := mm.Species
+		if sp == nil || !used[sp] {
+			continue
+		}
+		if m := sp.Model(); m != nil && !isGibbsOnly(m) && !covers(m, T) {
+			p.Reportf(mm.Span, "%s, the temperature of mixture %s, is outside the data of %s (%s); its approach values are extrapolated",
+				kelvin(T), mx.Name, sp.Key, coverageText(sp, m))
+		}
+	}
+}
+
+// listsAll reports whether the mixture lists every species of the
+// reaction's net equation, so that the reaction is evaluated in it.
+func listsAll(mx *Mixture, rx *Reaction) bool {
+	for _, side := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range side {
+			if mx.Member(t.Species) == nil {
+				// A species written on both sides cancels out.
+				for _, nt := range netTerms(rx) {
+					if mx.Member(nt.species) == nil {
+						return false
+					}
+				}
+				return true
+			}
+		}
+	}
+	return true
 }
 
 // coverageText says which temperatures a species' data cover.
