@@ -113,12 +113,13 @@ const (
 // that cannot be refined because f is NaN inside it is left out. Two sign changes
 // closer than one grid step can cancel and go unseen.
 //
-// Stretches of crossoverStride grid steps where f keeps well away from zero,
-// judged by its curvature over the neighbouring stretches, are passed over
-// without sampling their inner points; elsewhere every grid point is sampled.
-// A feature of f narrower than such a stretch that dips across zero and back
-// between samples far from zero can therefore go unseen; ΔrG° from
-// polynomial data bends far too gently for that.
+// Stretches of crossoverStrides grid steps (long ones first, then short)
+// where f keeps well away from zero, judged by its curvature over the
+// neighbouring stretches, are passed over without sampling their inner
+// points; elsewhere every grid point is sampled. A feature of f narrower
+// than such a stretch that dips across zero and back between samples far
+// from zero can therefore go unseen; ΔrG° from polynomial data bends far
+// too gently for that.
 func Crossovers(f func(T float64) float64, Tmin, Tmax float64) []Crossover {
 	return ScanCrossovers(f, f, Tmin, Tmax)
 }
@@ -142,8 +143,8 @@ func ScanCrossovers(scan, f func(T float64) float64, Tmin, Tmax float64) []Cross
 	}
 	// The last samples are kept, since the look past a stretch reads
 	// points that the scan comes back to; it reads no farther than one
-	// stretch behind and two ahead of the scan.
-	var kept [4 * crossoverStride]struct {
+	// long stretch behind and two ahead of the scan.
+	var kept [4 * longStride]struct {
 		i int
 		v float64
 	}
@@ -189,24 +190,29 @@ func ScanCrossovers(scan, f func(T float64) float64, Tmin, Tmax float64) []Cross
 			out = append(out, Crossover{T: root, FavoredAbove: v < 0})
 		}
 		prev, fprev, zeroFrom = i, v, -1
-		if i%crossoverStride == 0 && clearAhead(sample, i, n, v) {
-			i += crossoverStride - 1
+		for _, k := range crossoverStrides {
+			if i%k == 0 && clearAhead(sample, i, n, v, k) {
+				i += k - 1
+				break
+			}
 		}
 	}
 	return out
 }
 
-// crossoverStride is how many grid steps Crossovers may pass over at once.
-const crossoverStride = 8
+// crossoverStrides are how many grid steps Crossovers may pass over at
+// once, longest first; each divides the one before.
+var crossoverStrides = [...]int{longStride, 8}
+
+const longStride = 64
 
 // clearAhead reports whether f, sampled on the grid [0, n], stays clear of
-// zero between grid points i and i+crossoverStride, where its value is v
+// zero between grid points i and i+k, where its value is v
 // (finite, non-zero). The end of the stretch must have v's sign and be
 // farther from zero than twice the largest second difference of the
 // samples a stretch apart around it: on a stretch where the curvature is
 // within sixteen times that estimate, f cannot bend across zero.
-func clearAhead(sample func(int) float64, i, n int, v float64) bool {
-	const k = crossoverStride
+func clearAhead(sample func(int) float64, i, n int, v float64, k int) bool {
 	j := i + k
 	if j > n {
 		return false

@@ -80,6 +80,10 @@ func TestCrossovers(t *testing.T) {
 		{"roots 1 K apart", func(T float64) float64 { return (T-600)*(T-600) - 0.25 }, 300, 700, []want{{599.5, true}, {600.5, false}}},
 		{"cubic far from its roots", func(T float64) float64 { return (T - 310.2) * (T - 690.7) * (T + 1000) }, 300, 700, []want{{310.2, true}, {690.7, false}}},
 		{"empty range", func(T float64) float64 { return T - 500 }, 700, 300, nil},
+		// Wide ranges, where the long stretches are passed over.
+		{"wide, roots 40 K apart", func(T float64) float64 { return (T - 2000) * (T - 2040) }, 200, 6000, []want{{2000, true}, {2040, false}}},
+		{"wide, roots 3 K apart", func(T float64) float64 { return 1e6 * (T - 3000.5) * (T - 3003.5) }, 200, 6000, []want{{3000.5, true}, {3003.5, false}}},
+		{"wide, gentle", func(T float64) float64 { return 9e4 - 80*T + 2e-3*T*T }, 200, 6000, []want{{1158.556, true}}},
 	}
 	for _, tc := range tests {
 		got := Crossovers(tc.f, tc.lo, tc.hi)
