@@ -34,7 +34,7 @@ type worker struct {
 
 	// Touched only by the worker goroutine.
 	cache      map[string]*compiled // by root path
-	parsed     *network.ParseCaches // parsed statements of every file compiled
+	parsed     *network.ParseCaches // parsed statements of the files the networks read
 	cacheEpoch uint64               // the store's open/close/save count the cache is for
 	owners     map[string]string    // file path -> root path, from the last cycle
 	published  map[string]published // by path
@@ -67,6 +67,7 @@ func newWorker(s *server) *worker {
 		force:     map[string]bool{},
 		done:      make(chan struct{}),
 		cache:     map[string]*compiled{},
+		parsed:    network.NewParseCaches(),
 		owners:    map[string]string{},
 		published: map[string]published{},
 	}
@@ -171,6 +172,9 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 		}
 	}
 	w.owners = owners
+	// Files that no network reads any more need not keep their parsed
+	// statements.
+	w.parsed.Retain(func(path string) bool { return owners[cleanPath(path)] != "" })
 
 	snap := &snapshot{nets: map[string]*network.Network{}, lines: map[string]*lines{}}
 	for p, root := range owners {
@@ -297,9 +301,6 @@ func (w *worker) compile(path string, open map[string]document, src network.Sour
 	w.compiles.Add(1)
 	if w.beforeCompile != nil {
 		w.beforeCompile(path)
-	}
-	if w.parsed == nil {
-		w.parsed = network.NewParseCaches()
 	}
 	net := network.LoadCached(path, src, w.parsed)
 	c = &compiled{net: net, key: inputKey(net, open)}

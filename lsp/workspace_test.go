@@ -53,9 +53,15 @@ func TestOpenIncludeBuffersCount(t *testing.T) {
 			t.Errorf("gases.hess alone: %+v", d)
 		}
 	}
+	if n := c.srv.worker.parsed.Len(); n != 1 {
+		t.Errorf("parsed statements kept for %d files while gases.hess alone is read, want 1", n)
+	}
 	c.notify("textDocument/didClose", DidCloseTextDocumentParams{TextDocument: TextDocumentIdentifier{URI: gases}})
 	if g := c.waitDiagnostics(gases, anyPublish); len(g.Diagnostics) != 0 {
 		t.Errorf("gases.hess after close: %+v", g)
+	}
+	if n := c.srv.worker.parsed.Len(); n != 0 {
+		t.Errorf("parsed statements kept for %d files with nothing open", n)
 	}
 }
 

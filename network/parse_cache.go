@@ -34,6 +34,32 @@ func (p *ParseCaches) file(id string) *lang.Cache {
 	return c
 }
 
+// Retain drops the caches of the files for whose path keep is false, so
+// that files no longer read stop holding their parsed statements. Paths
+// are compared as Load identifies files (absolute and clean).
+func (p *ParseCaches) Retain(keep func(path string) bool) {
+	if p == nil {
+		return
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	for id := range p.files {
+		if !keep(id) {
+			delete(p.files, id)
+		}
+	}
+}
+
+// Len reports how many files' caches are held.
+func (p *ParseCaches) Len() int {
+	if p == nil {
+		return 0
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	return len(p.files)
+}
+
 // LoadCached is Load, taking unchanged statements of each file from caches
 // and keeping the new ones there.
 func LoadCached(root string, src Source, caches *ParseCaches) *Network {

@@ -40,3 +40,23 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 		t.Errorf("third load of an unchanged file parsed %d statements and reused %d", parsed, hits)
 	}
 }
+
+// TestParseCachesRetain drops the caches of files not kept.
+func TestParseCachesRetain(t *testing.T) {
+	root, src, _ := synthSource(t, 50, 100)
+	caches := NewParseCaches()
+	n := LoadCached(root, src, caches)
+	if caches.Len() != len(n.Files) {
+		t.Fatalf("%d caches for %d files", caches.Len(), len(n.Files))
+	}
+	keep := identity(root)
+	caches.Retain(func(path string) bool { return path == keep })
+	if caches.Len() != 1 {
+		t.Errorf("%d caches after keeping the root's alone", caches.Len())
+	}
+	var none *ParseCaches
+	none.Retain(func(string) bool { return false })
+	if none.Len() != 0 {
+		t.Error("nil caches hold something")
+	}
+}
