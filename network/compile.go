@@ -699,7 +699,9 @@ func (c *compiler) lookup(ref string) *Species {
 	}
 	sp := c.net.LookupSpecies(ref)
 	if sp != nil {
-		c.refs[ref] = sp
+		// A copy of the key: ref lies somewhere in the source, and the
+		// comparisons of later lookups would read it from there.
+		c.refs[strings.Clone(ref)] = sp
 	}
 	return sp
 }
