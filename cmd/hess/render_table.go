@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/big"
 	"strconv"
+	"io"
 	"strings"
 
 	"hess/network"
@@ -148,4 +149,15 @@ func anyExtrapolated(doc *tableDoc) bool {
 		}
 	}
 	return false
+}
+
+// flushLarge writes out what b holds once it is large and empties it, so
+// that the tables of a large network are not all held in memory at once.
+func flushLarge(w io.Writer, b *strings.Builder) error {
+	if b.Len() < 1<<16 {
+		return nil
+	}
+	_, err := io.WriteString(w, b.String())
+	b.Reset()
+	return err
 }

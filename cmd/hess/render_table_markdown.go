@@ -38,6 +38,9 @@ func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 			}
 			b.WriteString("\n")
 		}
+		if err := flushLarge(w, &b); err != nil {
+			return fmt.Errorf("writing Markdown table: %w", err)
+		}
 	}
 	if anyExtrapolated(doc) {
 		b.WriteString("\nRows marked extrapolated use some data outside their temperature range.\n")

@@ -53,6 +53,9 @@ func renderTableText(w io.Writer, doc *tableDoc) error {
 			}
 			b.WriteString("\n")
 		}
+		if err := flushLarge(w, &b); err != nil {
+			return fmt.Errorf("writing table: %w", err)
+		}
 	}
 	if anyExtrapolated(doc) {
 		b.WriteString("\nextrapolated: some data are used outside their temperature range\n")
