@@ -2,10 +2,10 @@ package main
 
 import (
 	"fmt"
+	"io"
 	"math"
 	"math/big"
 	"strconv"
-	"io"
 	"strings"
 
 	"hess/network"
