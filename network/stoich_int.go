@@ -39,18 +39,6 @@ func addSymbolCount(cs []symbolCount, key string, n int64) []symbolCount {
 	return append(cs, symbolCount{key, n})
 }
 
-// balancesInIntegers reports whether a reaction whose coefficients and
-// formula counts are all small integers balances in every element and in
-// charge. ok is false when some number is not such an integer, and the
-// exact rational check must decide.
-func balancesInIntegers(rx *Reaction) (elements, charge, ok bool) {
-	coefs, ok := intCoefficients(rx)
-	if !ok {
-		return false, false, false
-	}
-	return intBalance(rx, coefs)
-}
-
 // intCoefficients returns the reaction's coefficients, left side then
 // right, when all are small integers.
 func intCoefficients(rx *Reaction) ([]int64, bool) {
@@ -67,8 +55,10 @@ func intCoefficients(rx *Reaction) ([]int64, bool) {
 	return out, true
 }
 
-// intBalance is balancesInIntegers with the coefficients given, left side
-// then right.
+// intBalance reports whether a reaction whose coefficients (given, left
+// side then right) and formula counts are all small integers balances in
+// every element and in charge. ok is false when some formula count is not
+// such an integer, and the exact rational check must decide.
 func intBalance(rx *Reaction, coefs []int64) (elements, charge, ok bool) {
 	var buf [16]symbolCount
 	cs := buf[:0]
@@ -153,7 +143,7 @@ type stoichFacts struct {
 	// integer; elements and charge are then whether the reaction balances.
 	intOK, elements, charge bool
 
-	// key is the net equation (see netKey), reversed whether it is the
+	// key is the net equation (see intNetKey), reversed whether it is the
 	// equation as written reversed; key is "" when everything cancels.
 	key      string
 	reversed bool
@@ -193,22 +183,14 @@ type speciesCount struct {
 	n  int64
 }
 
-// netKey returns a canonical encoding of the reaction's net equation
-// (products positive, species written on both sides cancelled), oriented
-// so that its first species in declaration order counts positive;
-// reversed reports that this orientation is the reaction written
+// intNetKey returns a canonical encoding of the reaction's net equation
+// (products positive, species written on both sides cancelled), given its
+// coefficients as small integers, left side then right. The encoding is
+// oriented so that its first species in declaration order counts
+// positive; reversed reports that this orientation is the reaction written
 // backwards. Two reactions have the same key exactly when their net
 // equations are equal or one is the other reversed. The key is "" when
 // the net equation is empty.
-func netKey(rx *Reaction) (key string, reversed bool) {
-	if coefs, ok := intCoefficients(rx); ok {
-		return intNetKey(rx, coefs)
-	}
-	return netKeyRat(rx)
-}
-
-// intNetKey is netKey with the coefficients given as small integers, left
-// side then right.
 func intNetKey(rx *Reaction, coefs []int64) (string, bool) {
 	var buf [12]speciesCount
 	cs := buf[:0]
@@ -258,7 +240,7 @@ func intKey(cs []speciesCount) (string, bool) {
 	return string(b), sign < 0
 }
 
-// netKeyRat is netKey in exact rational arithmetic, for reactions with a
+// netKeyRat is intNetKey in exact rational arithmetic, for reactions with a
 // coefficient that is not a small integer. A net equation whose
 // coefficients all come out as small integers gets the integer key.
 func netKeyRat(rx *Reaction) (string, bool) {

@@ -33,7 +33,8 @@ func TestIntegerFastPathsAgree(t *testing.T) {
 		bumped.Left[0].Coef = new(big.Rat).Add(rx.Left[0].Coef, big.NewRat(int64(1+i%3), 1))
 		variants = append(variants, &bumped)
 		for _, v := range variants {
-			el, ch, ok := balancesInIntegers(v)
+			f := factsOf(v)
+			el, ch, ok := f.elements, f.charge, f.intOK
 			if !ok {
 				t.Fatalf("%s: integer reaction not taken by the fast path", v.Name)
 			}
@@ -44,15 +45,15 @@ func TestIntegerFastPathsAgree(t *testing.T) {
 			if !el {
 				unbalanced++
 			}
-			k, rev := netKey(v)
+			k, rev := f.key, f.reversed
 			wk, wrev := netKeyByRats(v)
 			if k != wk || rev != wrev || k == "" || k[0] != 'i' {
 				t.Fatalf("%s: key %q reversed %v, exact %q %v", v.Name, k, rev, wk, wrev)
 			}
 			back := *v
 			back.Left, back.Right = v.Right, v.Left
-			if bk, brev := netKey(&back); bk != k || brev == rev {
-				t.Fatalf("%s reversed: key %q reversed %v, want %q %v", v.Name, bk, brev, k, !rev)
+			if b := factsOf(&back); b.key != k || b.reversed == rev {
+				t.Fatalf("%s reversed: key %q reversed %v, want %q %v", v.Name, b.key, b.reversed, k, !rev)
 			}
 		}
 	}
@@ -62,15 +63,15 @@ func TestIntegerFastPathsAgree(t *testing.T) {
 	half := *n.Reactions[0]
 	half.Left = append([]Term(nil), half.Left...)
 	half.Left[0].Coef = big.NewRat(1, 2)
-	if _, _, ok := balancesInIntegers(&half); ok {
+	if factsOf(&half).intOK {
 		t.Error("a fractional coefficient was taken by the integer fast path")
 	}
-	if k, _ := netKey(&half); k == "" || k[0] != 'r' {
+	if k := factsOf(&half).key; k == "" || k[0] != 'r' {
 		t.Errorf("a fractional net coefficient has key %q, want the rational encoding", k)
 	}
 }
 
-// netKeyByRats is netKey by its exact rational route: a third of a species
+// netKeyByRats is the net key by its exact rational route: a third of a species
 // added to both sides cancels out of the net equation but keeps the
 // integer path from applying.
 func netKeyByRats(rx *Reaction) (string, bool) {
@@ -78,7 +79,8 @@ func netKeyByRats(rx *Reaction) (string, bool) {
 	probe := *rx
 	probe.Left = append(append([]Term(nil), rx.Left...), third)
 	probe.Right = append(append([]Term(nil), rx.Right...), third)
-	return netKey(&probe)
+	f := factsOf(&probe)
+	return f.key, f.reversed
 }
 
 func TestUnchargedSpecies(t *testing.T) {

@@ -22,6 +22,11 @@ func (r Reaction) SummedDeltaG() func(T float64) float64 {
 		s.terms = append(s.terms, summedTerm{nu: t.Nu, model: t.Model, pw: pw})
 	}
 	s.choice = make([]int, len(s.terms))
+	for i, t := range s.terms {
+		if t.pw == nil {
+			s.choice[i] = -1
+		}
+	}
 	return s.deltaG
 }
 
@@ -50,11 +55,7 @@ func (s *summed) deltaG(T float64) float64 {
 	}
 	same := s.valid
 	for i, t := range s.terms {
-		if t.pw == nil {
-			s.choice[i] = -1
-			continue
-		}
-		if k := s.choice[i]; k >= 0 && t.pw.answers(k, T) {
+		if t.pw == nil || t.pw.answers(s.choice[i], T) {
 			continue
 		}
 		if k := t.pw.pieceIndex(T); k != s.choice[i] {

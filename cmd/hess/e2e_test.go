@@ -49,7 +49,14 @@ type result struct {
 // runHess runs the built binary in the module root.
 func runHess(t *testing.T, args ...string) result {
 	t.Helper()
+	return runHessInput(t, "", args...)
+}
+
+// runHessInput is runHess with stdin as the binary's standard input.
+func runHessInput(t *testing.T, stdin string, args ...string) result {
+	t.Helper()
 	cmd := exec.Command(hessBinary(t), args...)
+	cmd.Stdin = strings.NewReader(stdin)
 	cmd.Dir = filepath.Join("..", "..")
 	cmd.Env = append(os.Environ(), "NO_COLOR=1")
 	var stdout, stderr bytes.Buffer

@@ -3,7 +3,6 @@ package main
 import (
 	"bytes"
 	"fmt"
-	"os/exec"
 	"strings"
 	"testing"
 )
@@ -28,22 +27,12 @@ func TestLSPCommand(t *testing.T) {
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			cmd := exec.Command(hessBinary(t), "lsp")
-			cmd.Stdin = strings.NewReader(c.input)
-			var stdout, stderr bytes.Buffer
-			cmd.Stdout, cmd.Stderr = &stdout, &stderr
-			err := cmd.Run()
-			code := 0
-			if ee, ok := err.(*exec.ExitError); ok {
-				code = ee.ExitCode()
-			} else if err != nil {
-				t.Fatal(err)
-			}
-			if code != c.code {
-				t.Errorf("exit %d, want %d; stderr:\n%s", code, c.code, stderr.String())
+			r := runHessInput(t, c.input, "lsp")
+			if r.code != c.code {
+				t.Errorf("exit %d, want %d; stderr:\n%s", r.code, c.code, r.stderr)
 			}
 			// Standard output carries protocol messages only.
-			out := stdout.String()
+			out := r.stdout
 			if !strings.HasPrefix(out, "Content-Length: ") || !strings.Contains(out, `"id":1,"result":{"capabilities"`) {
 				t.Errorf("stdout:\n%s", out)
 			}
