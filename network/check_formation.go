@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"hess/chem"
 	"hess/lang"
 	"hess/thermo"
 )
@@ -20,7 +21,7 @@ convention that H+(aq) has ΔfH°, ΔfG° and S° zero, so an ion of charge z
 forms with z H+(aq) and releases z/2 H2(g). ΔfH° and S° come from hf and s,
 or from the species' polynomial at 298.15 K. The check is skipped for a
 species with an element of no tabulated reference entropy (those covered:
-` + referenceElementList() + `), for charged species outside an aqueous phase, and for e-.
+` + chem.ReferenceElements() + `), for charged species outside an aqueous phase, and for e-.
 It reports when the two values differ by more than the tolerance setting
 and by more than twice their combined uncertainty.`,
 	Run: func(p *Pass) {

@@ -7,6 +7,7 @@ import (
 	"strings"
 	"unicode/utf8"
 
+	"hess/chem"
 	"hess/lang"
 )
 
@@ -43,7 +44,7 @@ var builtinPhases = map[string]Convention{
 
 func compile(n *Network) {
 	c := &compiler{net: n}
-	n.Elements = BuiltinElements()
+	n.Elements = chem.BuiltinElements()
 	n.Phases = map[string]*Phase{}
 	for tag, conv := range builtinPhases {
 		n.Phases[tag] = &Phase{Tag: tag, Convention: conv, Builtin: true}
@@ -162,7 +163,7 @@ func (c *compiler) element(e *lang.Element) {
 		return
 	}
 	sym := e.Symbol.Name
-	if !isElementSymbol(sym) {
+	if !chem.IsElementSymbol(sym) {
 		c.report("syntax", e.Symbol.Span(), "element symbol %q must be an upper-case letter followed by up to two lower-case letters", sym)
 		return
 	}
@@ -183,21 +184,6 @@ func (c *compiler) element(e *lang.Element) {
 		return
 	}
 	c.net.Elements = c.net.Elements.With(sym, v.V*1000) // g/mol
-}
-
-func isElementSymbol(s string) bool {
-	if n := utf8.RuneCountInString(s); n < 1 || n > 3 {
-		return false
-	}
-	if s[0] < 'A' || s[0] > 'Z' {
-		return false
-	}
-	for i := 1; i < len(s); i++ {
-		if s[i] < 'a' || s[i] > 'z' {
-			return false
-		}
-	}
-	return true
 }
 
 var conventionNames = map[string]Convention{
@@ -570,7 +556,7 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span)
 		}
 		text, span = explicit, explicitSpan
 	}
-	f, ferr := ParseFormula(text, c.net.Elements)
+	f, ferr := chem.ParseFormula(text, c.net.Elements)
 	if ferr != nil {
 		sub := subSpan(span, text, offset+ferr.Offset, offset+ferr.End)
 		msg := ferr.Message

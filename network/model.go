@@ -3,6 +3,7 @@ package network
 import (
 	"math/big"
 
+	"hess/chem"
 	"hess/lang"
 	"hess/thermo"
 )
@@ -13,7 +14,7 @@ type Network struct {
 	Root      string
 	Files     []*File
 	Settings  Settings
-	Elements  *ElementTable
+	Elements  *chem.ElementTable
 	Phases    map[string]*Phase
 	Species   []*Species
 	Reactions []*Reaction
@@ -111,7 +112,7 @@ type Species struct {
 	Parts      lang.RefParts
 	Span       lang.Span // the reference in its declaration
 	Label      string
-	Formula    Formula
+	Formula    chem.Formula
 	HasFormula bool // the formula parsed
 	Charge     int
 	Phase      *Phase // nil when untagged or the tag is unknown

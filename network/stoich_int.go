@@ -4,6 +4,8 @@ import (
 	"encoding/binary"
 	"math/big"
 	"slices"
+
+	"hess/chem"
 )
 
 // smallIntLimit bounds the integers the fast paths below accept, so that
@@ -93,7 +95,7 @@ func intBalance(rx *Reaction, coefs []int64) (elements, charge, ok bool) {
 
 // formulaInts is a formula's element counts as small integers; ok is false
 // when some count is not one.
-func formulaInts(f Formula) (counts []symbolCount, ok bool) {
+func formulaInts(f chem.Formula) (counts []symbolCount, ok bool) {
 	counts = make([]symbolCount, 0, len(f.Elements))
 	for _, ec := range f.Elements {
 		k, isInt := smallInt(ec.Count)

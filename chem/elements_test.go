@@ -1,4 +1,4 @@
-package network
+package chem
 
 import (
 	"math"

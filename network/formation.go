@@ -3,64 +3,10 @@ package network
 import (
 	"math"
 	"math/big"
-	"sort"
-	"strings"
 
+	"hess/chem"
 	"hess/thermo"
 )
-
-// referenceState is an element's standard reference state at 298.15 K:
-// the substance (atoms per formula unit and phase) whose ΔfH° and ΔfG° are
-// zero by convention, and its standard entropy.
-type referenceState struct {
-	atoms  int64
-	phase  string  // "g", "l" or "cr" (cr also matches s)
-	S      float64 // S° of the substance at 298.15 K, J/(mol·K) per formula unit
-	sigmaS float64
-	source string
-}
-
-// Reference-state entropies, from the CODATA Key Values for Thermodynamics
-// (Cox, Wagman and Medvedev, 1989) unless noted. Values marked "from
-// memory" were recalled, not read from a copy of the tables.
-var referenceStates = map[string]referenceState{
-	"H":  {2, "g", 130.680, 0.003, "CODATA 1989"},
-	"O":  {2, "g", 205.152, 0.005, "CODATA 1989"},
-	"N":  {2, "g", 191.609, 0.004, "CODATA 1989"},
-	"C":  {1, "cr", 5.74, 0.10, "CODATA 1989 (graphite)"},
-	"Cl": {2, "g", 223.081, 0.010, "CODATA 1989"},
-	"Ag": {1, "cr", 42.55, 0.20, "CODATA 1989"},
-	"Ca": {1, "cr", 41.59, 0.40, "CODATA 1989 (from memory; NIST-JANAF 41.588)"},
-	"F":  {2, "g", 202.791, 0.005, "CODATA 1989 (from memory)"},
-	"Br": {2, "l", 152.21, 0.30, "CODATA 1989 (from memory)"},
-	"I":  {2, "cr", 116.14, 0.30, "CODATA 1989 (from memory)"},
-	"S":  {1, "cr", 32.054, 0.050, "CODATA 1989 (rhombic; from memory)"},
-	"Na": {1, "cr", 51.30, 0.20, "CODATA 1989 (from memory)"},
-	"K":  {1, "cr", 64.68, 0.20, "CODATA 1989 (from memory)"},
-	"Mg": {1, "cr", 32.67, 0.10, "CODATA 1989 (from memory)"},
-	"Al": {1, "cr", 28.30, 0.10, "CODATA 1989 (from memory)"},
-	"Si": {1, "cr", 18.81, 0.08, "CODATA 1989 (from memory)"},
-	"Zn": {1, "cr", 41.63, 0.15, "CODATA 1989 (from memory)"},
-	"Cu": {1, "cr", 33.15, 0.08, "CODATA 1989 (from memory)"},
-	"Hg": {1, "l", 75.90, 0.12, "CODATA 1989 (from memory)"},
-	"Pb": {1, "cr", 64.80, 0.30, "CODATA 1989 (from memory)"},
-	"He": {1, "g", 126.153, 0.002, "CODATA 1989 (from memory)"},
-	"Ne": {1, "g", 146.328, 0.003, "CODATA 1989 (from memory)"},
-	"Ar": {1, "g", 154.846, 0.003, "CODATA 1989 (from memory)"},
-	"Kr": {1, "g", 164.085, 0.003, "CODATA 1989 (from memory)"},
-	"Xe": {1, "g", 169.685, 0.003, "CODATA 1989 (from memory)"},
-}
-
-// referenceElementList names the elements with a reference entropy, for
-// the explanation of formation-inconsistent.
-func referenceElementList() string {
-	syms := make([]string, 0, len(referenceStates))
-	for s := range referenceStates {
-		syms = append(syms, s)
-	}
-	sort.Strings(syms)
-	return strings.Join(syms, " ")
-}
 
 // isReferenceElement reports whether the species is an element in its
 // reference state (H2(g), C(cr), Br2(l), …), whose ΔfH° and ΔfG° are zero
@@ -70,15 +16,15 @@ func isReferenceElement(sp *Species) bool {
 		return false
 	}
 	ec := sp.Formula.Elements[0]
-	rs, ok := referenceStates[ec.Symbol]
-	if !ok || ec.Count.Cmp(big.NewRat(rs.atoms, 1)) != 0 {
+	rs, ok := chem.LookupReferenceState(ec.Symbol)
+	if !ok || ec.Count.Cmp(big.NewRat(rs.Atoms, 1)) != 0 {
 		return false
 	}
-	switch tag := sp.Phase.Tag; rs.phase {
+	switch tag := sp.Phase.Tag; rs.Phase {
 	case "cr":
 		return tag == "cr" || tag == "s"
 	default:
-		return tag == rs.phase
+		return tag == rs.Phase
 	}
 }
 
@@ -95,23 +41,23 @@ func formationEntropyOffset(sp *Species) (offset, sigma float64, ok bool) {
 	}
 	variance := 0.0
 	for _, ec := range sp.Formula.Elements {
-		rs, found := referenceStates[ec.Symbol]
+		rs, found := chem.LookupReferenceState(ec.Symbol)
 		if !found {
 			return 0, 0, false
 		}
 		n, _ := ec.Count.Float64()
-		f := n / float64(rs.atoms)
+		f := n / float64(rs.Atoms)
 		offset += f * rs.S
-		variance += f * f * rs.sigmaS * rs.sigmaS
+		variance += f * f * rs.SigmaS * rs.SigmaS
 	}
 	if sp.Charge != 0 {
 		if sp.Phase == nil || sp.Phase.Convention != Solute {
 			return 0, 0, false
 		}
-		h := referenceStates["H"]
+		h, _ := chem.LookupReferenceState("H")
 		f := -float64(sp.Charge) / 2
 		offset += f * h.S
-		variance += f * f * h.sigmaS * h.sigmaS
+		variance += f * f * h.SigmaS * h.SigmaS
 	}
 	return offset, math.Sqrt(variance), true
 }
