@@ -11,6 +11,7 @@ import (
 
 	"github.com/sourcegraph/jsonrpc2"
 
+	"hess/equilibrium"
 	"hess/network"
 )
 
@@ -240,7 +241,7 @@ func reactionHover(w *hoverText, net *network.Network, sym network.Symbol) {
 	}
 	w.line()
 
-	table := net.ReactionTable(rx, []float64{referenceT})
+	table := equilibrium.ReactionTable(net, rx, []float64{referenceT})
 	if len(table.Rows) == 1 && table.Rows[0].Valid {
 		row := table.Rows[0]
 		w.text("ΔrG°(298.15 K) = %s kJ/mol, K = %s (%s)", number(row.DG/1000, 4), number(row.K, 3), table.Kind)

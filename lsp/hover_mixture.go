@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"hess/equilibrium"
 	"hess/network"
 )
 
@@ -18,7 +19,7 @@ func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
 		w.line()
 		return
 	}
-	a := net.Approach(m)
+	a := equilibrium.Approach(net, m)
 	w.text("mixture ")
 	w.name(m.Name)
 	if a == nil {
@@ -34,7 +35,7 @@ func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
 	fwd, rev, eq, unknown := a.Counts()
 	for _, r := range a.Reactions {
 		w.name(r.Reaction.Name)
-		if r.Direction == network.DirectionUnknown {
+		if r.Direction == equilibrium.DirectionUnknown {
 			w.text(": Q = %s; K cannot be computed at this temperature", number(math.Exp(r.LnQ), 4))
 			w.line()
 			continue

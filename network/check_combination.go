@@ -30,9 +30,9 @@ coefficient differs, as written and in the sum.`,
 			}
 			written := map[*Species]*big.Rat{}
 			var order []*Species
-			for _, t := range netTerms(rx) {
-				written[t.species] = t.nu
-				order = append(order, t.species)
+			for _, t := range rx.NetTerms() {
+				written[t.Species] = t.Nu
+				order = append(order, t.Species)
 			}
 			for _, sp := range sum.order {
 				if _, seen := written[sp]; !seen {
@@ -74,14 +74,14 @@ func comboSum(rx *Reaction) (netSum, bool) {
 		if ct.Reaction == nil || ct.Weight == nil || !ct.Reaction.Resolved {
 			return s, false
 		}
-		for _, t := range netTerms(ct.Reaction) {
-			acc, ok := s.nu[t.species]
+		for _, t := range ct.Reaction.NetTerms() {
+			acc, ok := s.nu[t.Species]
 			if !ok {
 				acc = new(big.Rat)
-				s.nu[t.species] = acc
-				s.order = append(s.order, t.species)
+				s.nu[t.Species] = acc
+				s.order = append(s.order, t.Species)
 			}
-			acc.Add(acc, new(big.Rat).Mul(ct.Weight, t.nu))
+			acc.Add(acc, new(big.Rat).Mul(ct.Weight, t.Nu))
 		}
 	}
 	return s, true

@@ -44,9 +44,9 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 	}
 	row298 := rows[0]
 	var sH, sS float64 // species uncertainties of ΔrH° and ΔrS°
-	for _, t := range netTerms(rx) {
-		nu, _ := t.nu.Float64()
-		sg := t.species.Sigma()
+	for _, t := range rx.NetTerms() {
+		nu, _ := t.Nu.Float64()
+		sg := t.Species.Sigma()
 		sH += nu * nu * sg.H * sg.H
 		sS += nu * nu * sg.S * sg.S
 	}

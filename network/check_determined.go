@@ -67,8 +67,8 @@ func determinedSpecies(n *Network) []lang.Diagnostic {
 			continue
 		}
 		unknowns, opaque := 0, false
-		for _, t := range netTerms(rx) {
-			switch classify(t.species) {
+		for _, t := range rx.NetTerms() {
+			switch classify(t.Species) {
 			case 2:
 				unknowns++
 			case 3:
@@ -90,19 +90,19 @@ func determinedSpecies(n *Network) []lang.Diagnostic {
 	b := make([]float64, len(rxs))
 	for j, rx := range rxs {
 		b[j] = data[j].v
-		for _, t := range netTerms(rx) {
-			nu, _ := t.nu.Float64()
-			if status[t.species] == 1 {
-				b[j] -= nu * knowns[t.species].g
+		for _, t := range rx.NetTerms() {
+			nu, _ := t.Nu.Float64()
+			if status[t.Species] == 1 {
+				b[j] -= nu * knowns[t.Species].g
 				continue
 			}
-			i, ok := m.row[t.species]
+			i, ok := m.row[t.Species]
 			if !ok {
 				i = len(m.Species)
-				m.row[t.species] = i
-				m.Species = append(m.Species, t.species)
+				m.row[t.Species] = i
+				m.Species = append(m.Species, t.Species)
 			}
-			m.Columns[j] = append(m.Columns[j], StoichEntry{Row: i, Coef: t.nu})
+			m.Columns[j] = append(m.Columns[j], StoichEntry{Row: i, Coef: t.Nu})
 		}
 		sortEntries(m.Columns[j])
 	}
@@ -198,13 +198,13 @@ func determinedSpecies(n *Network) []lang.Diagnostic {
 			}
 			value += l * b[col]
 			variance += l * l * data[col].sigma * data[col].sigma
-			for _, t := range netTerms(rxs[col]) {
-				if status[t.species] == 1 {
-					nu, _ := t.nu.Float64()
-					if _, seen := speciesWeight[t.species]; !seen {
-						order = append(order, t.species)
+			for _, t := range rxs[col].NetTerms() {
+				if status[t.Species] == 1 {
+					nu, _ := t.Nu.Float64()
+					if _, seen := speciesWeight[t.Species]; !seen {
+						order = append(order, t.Species)
 					}
-					speciesWeight[t.species] -= l * nu
+					speciesWeight[t.Species] -= l * nu
 				}
 			}
 		}

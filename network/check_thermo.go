@@ -89,8 +89,8 @@ func listsAll(mx *Mixture, rx *Reaction) bool {
 		for _, t := range side {
 			if mx.Member(t.Species) == nil {
 				// A species written on both sides cancels out.
-				for _, nt := range netTerms(rx) {
-					if mx.Member(nt.species) == nil {
+				for _, nt := range rx.NetTerms() {
+					if mx.Member(nt.Species) == nil {
 						return false
 					}
 				}
@@ -143,7 +143,7 @@ step).`,
 			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) {
 				continue
 			}
-			c := p.Net.calc(rx)
+			c := p.Net.ReactionK(rx)
 			var bad []float64
 			var lacking []*Species
 			seen := map[*Species]bool{}
@@ -192,8 +192,8 @@ func thermoIntentWithin(rx *Reaction, seen map[*Reaction]bool) bool {
 	if rx.Dg != nil || rx.Ds != nil || len(rx.LogK) > 0 {
 		return true
 	}
-	for _, t := range netTerms(rx) {
-		if t.species.hasThermoData() {
+	for _, t := range rx.NetTerms() {
+		if t.Species.hasThermoData() {
 			return true
 		}
 	}

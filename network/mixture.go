@@ -2,7 +2,6 @@ package network
 
 import (
 	"fmt"
-	"math"
 	"sort"
 	"strings"
 
@@ -227,75 +226,4 @@ func untaggedMessage(n *Network, word, number string) string {
 		msg += ", such as " + strings.Join(near, " or ")
 	}
 	return msg
-}
-
-// Member returns the mixture's member for a species, or nil when the
-// species is not listed.
-func (m *Mixture) Member(sp *Species) *MixMember {
-	for i := range m.Members {
-		if m.Members[i].Species == sp {
-			return &m.Members[i]
-		}
-	}
-	return nil
-}
-
-// gasFractionSum is the sum of the gas mole fractions given as bare
-// numbers, and how many there are.
-func (m *Mixture) gasFractionSum() (sum float64, count int) {
-	for _, mm := range m.Members {
-		if mm.Kind == AmountFraction {
-			sum += mm.Amount.V
-			count++
-		}
-	}
-	return sum, count
-}
-
-// TotalPressure is the mixture's total pressure in Pa: its pressure as
-// given, else the sum of its gases' partial pressures; NaN when neither
-// gives one.
-func (m *Mixture) TotalPressure() float64 {
-	if m.Pressure != nil {
-		return m.Pressure.V
-	}
-	sum := 0.0
-	for _, mm := range m.Members {
-		if mm.Kind == AmountPartialPressure {
-			sum += mm.Amount.V
-		}
-	}
-	if sum > 0 {
-		return sum
-	}
-	return math.NaN()
-}
-
-// Activity returns a member's activity in the mixture on the network's
-// conventions: p_i/p° for a gas (p_i = y_i·P for a mole fraction, the
-// fractions normalised over the mixture's gases), m/(1 mol/kg) for a
-// solute, the mole fraction for a solution member and 1 for a pure phase.
-// It is NaN when the member's amount is unusable.
-func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
-	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) {
-		return math.NaN()
-	}
-	switch mm.Kind {
-	case AmountFraction:
-		sum, _ := m.gasFractionSum()
-		P := m.TotalPressure()
-		if !(sum > 0) || !(P > 0) {
-			return math.NaN()
-		}
-		return mm.Amount.V / sum * P / p0
-	case AmountPartialPressure:
-		return mm.Amount.V / p0
-	case AmountMolality:
-		return mm.Amount.V / thermo.MStd
-	case AmountSolution:
-		return mm.Amount.V
-	case AmountPresent:
-		return 1
-	}
-	return math.NaN()
 }

@@ -46,6 +46,25 @@ func (n *Network) LookupSpecies(ref string) *Species {
 // LookupReaction finds a reaction by name.
 func (n *Network) LookupReaction(name string) *Reaction { return n.reactionByName[name] }
 
+// LookupMixture finds a mixture by name.
+func (n *Network) LookupMixture(name string) *Mixture {
+	for _, m := range n.Mixtures {
+		if m.Name == name {
+			return m
+		}
+	}
+	return nil
+}
+
+// StandardPressure is p° in Pa, the pressure the network's gas data and
+// equilibrium constants refer to: its pressure setting, else 1 bar.
+func (n *Network) StandardPressure() float64 {
+	if p := n.Settings.Pressure; p > 0 {
+		return p
+	}
+	return thermo.Bar
+}
+
 // Settings are the network's settings in SI units, defaults filled in.
 type Settings struct {
 	Pressure     float64   // standard-state pressure p°, Pa

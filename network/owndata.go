@@ -92,8 +92,8 @@ func ownDatum(n *Network, rx *Reaction, q quantity) (datum, bool) {
 // speciesGiveG reports whether every species of the reaction has a model
 // that gives G° at T.
 func speciesGiveG(rx *Reaction, T float64) bool {
-	for _, t := range netTerms(rx) {
-		m := t.species.Model()
+	for _, t := range rx.NetTerms() {
+		m := t.Species.Model()
 		if m == nil {
 			return false
 		}
@@ -110,7 +110,7 @@ func speciesGiveG(rx *Reaction, T float64) bool {
 // 1 mol/L of a dilute aqueous solute is close to 1 mol/kg (common
 // practice). Pure phases do not enter a rate law: ok is false.
 func concentrationFactor(sp *Species, T, p0 float64) (f float64, ok bool) {
-	a := quotientActivity(sp)
+	a := sp.QuotientActivity()
 	switch {
 	case a.Pure():
 		return 0, false
@@ -128,12 +128,12 @@ func lnActivityFromConcentration(n *Network, rx *Reaction, T float64) float64 {
 		p0 = thermo.Bar
 	}
 	s := 0.0
-	for _, t := range netTerms(rx) {
-		f, ok := concentrationFactor(t.species, T, p0)
+	for _, t := range rx.NetTerms() {
+		f, ok := concentrationFactor(t.Species, T, p0)
 		if !ok {
 			continue
 		}
-		nu, _ := t.nu.Float64()
+		nu, _ := t.Nu.Float64()
 		s += nu * math.Log(f)
 	}
 	return s

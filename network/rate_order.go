@@ -15,7 +15,7 @@ import (
 func stepOrder(terms []Term) *big.Rat {
 	o := new(big.Rat)
 	for _, t := range terms {
-		if t.Species == nil || t.Coef == nil || quotientActivity(t.Species).Pure() {
+		if t.Species == nil || t.Coef == nil || t.Species.QuotientActivity().Pure() {
 			continue
 		}
 		o.Add(o, t.Coef)

@@ -94,10 +94,10 @@ func TestReverseRateFit(t *testing.T) {
 	if !(rr.Fit.MaxRelErr < 0.02) {
 		t.Errorf("maxRelError %g: a modified Arrhenius form should fit kf/K over 600 to 1200 K to 2%%", rr.Fit.MaxRelErr)
 	}
-	tab := n.ReactionTable(rx, wgsTemps)
+	rows := n.reactionRows(rx, wgsTemps)
 	for i, T := range wgsTemps {
 		k := rr.Fit.Rate(T)
-		model := wgsKf(T) / tab.Rows[i].K
+		model := wgsKf(T) / rows[i].K
 		if e := math.Abs(k/model - 1); e > rr.Fit.MaxRelErr+1e-9 {
 			t.Errorf("%g K: fit %g against kf/K %g: error %g beyond maxRelError %g", T, k, model, e, rr.Fit.MaxRelErr)
 		}

@@ -38,9 +38,8 @@ func (n *Network) FitReverseRate(rx *Reaction, temps []float64) (*ReverseRate, e
 	if !ok {
 		return nil, fmt.Errorf("reverse rate of %s: the right side's order %s is not a whole number from 0 to %d", rx.Name, ratText(stepOrder(rx.Right)), maxOrder)
 	}
-	tab := n.ReactionTable(rx, temps)
 	var ts, ks []float64
-	for _, row := range tab.Rows {
+	for _, row := range n.reactionRows(rx, temps) {
 		if !row.Valid || !(row.T > 0) {
 			continue
 		}

@@ -66,27 +66,6 @@ func BenchmarkChecksSynthetic(b *testing.B) {
 	}
 }
 
-// BenchmarkTableSynthetic computes the K(T) table of every reaction of
-// the generated network at its 10 temperatures (300 K to 1200 K), crossover
-// search included, as `hess table` does.
-func BenchmarkTableSynthetic(b *testing.B) {
-	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
-	temps := n.Settings.Temperatures
-	if len(temps) != 10 {
-		b.Fatalf("%d temperatures", len(temps))
-	}
-	b.ReportAllocs()
-	for b.Loop() {
-		for _, rx := range n.Reactions {
-			if t := n.ReactionTable(rx, temps); !t.Rows[0].Valid {
-				b.Fatalf("%s: no K at %g K", rx.Name, temps[0])
-			}
-		}
-	}
-	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(len(n.Reactions)), "ns/reaction")
-}
-
 // BenchmarkCycleCheckSynthetic runs the cycle check alone on the generated
 // network, whose 5 000 reactions with own data close cycles among
 // themselves.

@@ -25,16 +25,16 @@ type StoichEntry struct {
 func NewStoichMatrix(rxs []*Reaction) *StoichMatrix {
 	m := &StoichMatrix{Reactions: rxs, Columns: make([][]StoichEntry, len(rxs)), row: map[*Species]int{}}
 	for j, rx := range rxs {
-		terms := netTerms(rx)
+		terms := rx.NetTerms()
 		col := make([]StoichEntry, 0, len(terms))
 		for _, t := range terms {
-			i, ok := m.row[t.species]
+			i, ok := m.row[t.Species]
 			if !ok {
 				i = len(m.Species)
-				m.row[t.species] = i
-				m.Species = append(m.Species, t.species)
+				m.row[t.Species] = i
+				m.Species = append(m.Species, t.Species)
 			}
-			col = append(col, StoichEntry{Row: i, Coef: t.nu})
+			col = append(col, StoichEntry{Row: i, Coef: t.Nu})
 		}
 		sortEntries(col)
 		m.Columns[j] = col

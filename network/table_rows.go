@@ -7,23 +7,23 @@ import (
 )
 
 // reactionRows computes a reaction's table rows at the given temperatures
-// (K), as ReactionTable does, without the crossover search: checks that
+// (K), as the tables do, without their crossover search: checks that
 // compare values at given temperatures need only the rows.
 func (n *Network) reactionRows(rx *Reaction, temps []float64) []TableRow {
 	if rx == nil {
 		return nil
 	}
-	c := n.calc(rx)
+	c := n.ReactionK(rx)
 	rows := make([]TableRow, 0, len(temps))
 	for _, T := range temps {
-		rows = append(rows, c.row(T))
+		rows = append(rows, c.Row(T))
 	}
 	return rows
 }
 
 // okAt reports whether the reaction's ΔrG° is known at T, as at(T).ok()
 // does, computing only ΔrG° from the species when their models give it.
-func (c *rxCalc) okAt(T float64) bool {
+func (c *ReactionK) okAt(T float64) bool {
 	if c.absOK && T > 0 {
 		if g := c.abs.DeltaG(T); !math.IsNaN(g) && !math.IsInf(g, 0) {
 			return true

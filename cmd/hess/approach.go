@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 
+	"hess/equilibrium"
 	"hess/network"
 )
 
@@ -52,7 +53,7 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 type approachDoc struct {
 	Network    string  // display name of the root file
 	Pressure   float64 // standard pressure p°, Pa
-	Approaches []*network.MixtureApproach
+	Approaches []*equilibrium.MixtureApproach
 }
 
 // approachDocument compiles root, reports its diagnostics on stderr and
@@ -83,7 +84,7 @@ func approachDocument(root, name string, stderr io.Writer) (*approachDoc, int) {
 	}
 	doc := &approachDoc{Network: displayName(root), Pressure: net.Settings.Pressure}
 	for _, m := range mixtures {
-		a := net.Approach(m)
+		a := equilibrium.Approach(net, m)
 		if a == nil {
 			// A mixture is refused only for what error diagnostics report,
 			// so its diagnostics were turned off by lint settings.

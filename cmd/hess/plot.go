@@ -16,6 +16,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"hess/equilibrium"
 	"hess/network"
 )
 
@@ -222,8 +223,8 @@ func emptiestCorner(pts plotter.XYs, xLo, xHi float64) (top, left bool) {
 }
 
 // tableAt recomputes a reaction's table at the plot's sample temperatures.
-func tableAt(doc *tableDoc, t *network.ReactionTable, temps []float64) []network.TableRow {
-	return doc.net.ReactionTable(t.Reaction, temps).Rows
+func tableAt(doc *tableDoc, t *equilibrium.Table, temps []float64) []network.TableRow {
+	return equilibrium.ReactionTable(doc.net, t.Reaction, temps).Rows
 }
 
 // segment is a run of samples drawn as one line: all inside the data's

@@ -8,6 +8,7 @@ import (
 	"strings"
 	"unicode/utf8"
 
+	"hess/equilibrium"
 	"hess/network"
 )
 
@@ -16,25 +17,25 @@ import (
 // written at the mixture's temperature T.
 type approachColumn struct {
 	header string
-	cell   func(r network.ReactionApproach, T float64) string
+	cell   func(r equilibrium.ReactionApproach, T float64) string
 }
 
 // approachColumns are the columns every approach format carries, the same
 // numbers as the JSON fields of CLI.md.
 func approachColumns() []approachColumn {
 	return []approachColumn{
-		{"reaction", func(r network.ReactionApproach, _ float64) string { return r.Reaction.Name }},
-		{"Q", func(r network.ReactionApproach, _ float64) string { return sci(math.Exp(r.LnQ)) }},
-		{"K", func(r network.ReactionApproach, _ float64) string { return sci(math.Exp(r.LnK)) }},
-		{"log10(Q/K)", func(r network.ReactionApproach, _ float64) string { return fixed(r.Log10QOverK(), 4) }},
-		{"dG [kJ/mol]", func(r network.ReactionApproach, _ float64) string { return fixed(r.DG/1000, 3) }},
-		{"direction", func(r network.ReactionApproach, _ float64) string { return directionText(r.Direction) }},
-		{"T_eq [K]", func(r network.ReactionApproach, _ float64) string { return fixed(r.EquilibriumT, 2) }},
-		{"approach [K]", func(r network.ReactionApproach, T float64) string { return fixed(r.ApproachK(T), 2) }},
+		{"reaction", func(r equilibrium.ReactionApproach, _ float64) string { return r.Reaction.Name }},
+		{"Q", func(r equilibrium.ReactionApproach, _ float64) string { return sci(math.Exp(r.LnQ)) }},
+		{"K", func(r equilibrium.ReactionApproach, _ float64) string { return sci(math.Exp(r.LnK)) }},
+		{"log10(Q/K)", func(r equilibrium.ReactionApproach, _ float64) string { return fixed(r.Log10QOverK(), 4) }},
+		{"dG [kJ/mol]", func(r equilibrium.ReactionApproach, _ float64) string { return fixed(r.DG/1000, 3) }},
+		{"direction", func(r equilibrium.ReactionApproach, _ float64) string { return directionText(r.Direction) }},
+		{"T_eq [K]", func(r equilibrium.ReactionApproach, _ float64) string { return fixed(r.EquilibriumT, 2) }},
+		{"approach [K]", func(r equilibrium.ReactionApproach, T float64) string { return fixed(r.ApproachK(T), 2) }},
 	}
 }
 
-func directionText(d network.Direction) string {
+func directionText(d equilibrium.Direction) string {
 	if s := d.String(); s != "" {
 		return s
 	}
@@ -42,7 +43,7 @@ func directionText(d network.Direction) string {
 }
 
 // mixtureHeading names a mixture with its temperature and total pressure.
-func mixtureHeading(a *network.MixtureApproach) string {
+func mixtureHeading(a *equilibrium.MixtureApproach) string {
 	s := fmt.Sprintf("mixture %s at %s", a.Mixture.Name, kelvinText(a.T))
 	if finite(a.P) {
 		s += ", " + pressureText(a.P)
@@ -53,7 +54,7 @@ func mixtureHeading(a *network.MixtureApproach) string {
 // approachSummary is the line that ends a mixture: "3 reactions run
 // forward, 1 reverse, 1 at equilibrium", then how many have no K and how
 // many have no quotient there.
-func approachSummary(a *network.MixtureApproach) string {
+func approachSummary(a *equilibrium.MixtureApproach) string {
 	fwd, rev, eq, unknown := a.Counts()
 	verb := "reactions run"
 	if fwd == 1 {
@@ -71,14 +72,14 @@ func approachSummary(a *network.MixtureApproach) string {
 
 // approachNotes explain what the rows leave out: reactions with no
 // quotient, reactions with no K, extrapolated data.
-func approachNotes(a *network.MixtureApproach) []string {
+func approachNotes(a *equilibrium.MixtureApproach) []string {
 	var notes []string
 	for _, ab := range a.Absent {
 		notes = append(notes, fmt.Sprintf("%s: no quotient here (the mixture lacks %s)", ab.Reaction.Name, speciesNames(ab.Lacking)))
 	}
 	var extrapolated []string
 	for _, r := range a.Reactions {
-		if r.Direction == network.DirectionUnknown {
+		if r.Direction == equilibrium.DirectionUnknown {
 			notes = append(notes, fmt.Sprintf("%s: K cannot be computed at %s (no data for %s)", r.Reaction.Name, kelvinText(a.T), speciesNames(r.Missing)))
 		}
 		if r.Extrapolated {

@@ -7,7 +7,7 @@ import (
 	"io"
 	"math"
 
-	"hess/network"
+	"hess/equilibrium"
 	"hess/thermo"
 )
 
@@ -56,7 +56,7 @@ func renderApproachJSON(w io.Writer, doc *approachDoc) error {
 	return nil
 }
 
-func jsonMixture(a *network.MixtureApproach) jsonMixtureResult {
+func jsonMixture(a *equilibrium.MixtureApproach) jsonMixtureResult {
 	jm := jsonMixtureResult{Name: a.Mixture.Name, T: jsonNumber(a.T), PressureBar: jsonNumber(a.P / thermo.Bar),
 		Reactions: make([]jsonReactionApproach, 0, len(a.Reactions))}
 	for _, r := range a.Reactions {

@@ -8,6 +8,7 @@ import (
 	"strconv"
 	"strings"
 
+	"hess/equilibrium"
 	"hess/network"
 	"hess/thermo"
 )
@@ -110,7 +111,7 @@ func pressureText(p float64) string {
 
 // summaryLines describe a reaction above its rows: its constant's kind and
 // quotient, Δn, and where ΔrG° changes sign.
-func summaryLines(t *network.ReactionTable) []string {
+func summaryLines(t *equilibrium.Table) []string {
 	lines := []string{fmt.Sprintf("%s = %s, Δn(gas) = %s", t.Kind, t.Quotient, rational(t.DeltaGasMoles))}
 	valid := false
 	for _, r := range t.Rows {

@@ -8,7 +8,7 @@ import (
 	"math"
 	"strconv"
 
-	"hess/network"
+	"hess/equilibrium"
 	"hess/thermo"
 )
 
@@ -87,7 +87,7 @@ func renderTableJSON(w io.Writer, doc *tableDoc) error {
 	return nil
 }
 
-func jsonTable(t *network.ReactionTable) jsonReactionTable {
+func jsonTable(t *equilibrium.Table) jsonReactionTable {
 	jt := jsonReactionTable{
 		Name:          t.Reaction.Name,
 		Equation:      t.Reaction.EquationText(),

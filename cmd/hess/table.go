@@ -7,6 +7,7 @@ import (
 	"os"
 	"strings"
 
+	"hess/equilibrium"
 	"hess/lang"
 	"hess/network"
 )
@@ -107,7 +108,7 @@ type tableDoc struct {
 	Network  string  // display name of the root file
 	Pressure float64 // standard pressure p°, Pa
 	Temps    []float64
-	Tables   []*network.ReactionTable
+	Tables   []*equilibrium.Table
 	// Reverse holds the fitted reverse rates of the two-way steps that have
 	// only a forward rate (see reverseRates).
 	Reverse map[*network.Reaction]*network.ReverseRate
@@ -181,7 +182,7 @@ func newTableDoc(net *network.Network, root string, temps []float64, names []str
 	}
 	doc := &tableDoc{Network: displayName(root), Pressure: net.Settings.Pressure, Temps: temps, net: net}
 	for _, rx := range rxs {
-		doc.Tables = append(doc.Tables, net.ReactionTable(rx, temps))
+		doc.Tables = append(doc.Tables, equilibrium.ReactionTable(net, rx, temps))
 	}
 	doc.Reverse = reverseRates(net, rxs, temps)
 	return doc, nil

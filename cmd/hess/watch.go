@@ -16,6 +16,7 @@ import (
 
 	"github.com/fsnotify/fsnotify"
 
+	"hess/equilibrium"
 	"hess/lang"
 	"hess/network"
 )
@@ -250,7 +251,7 @@ func (w *watcher) writeTable(net *network.Network) error {
 	temps := net.Settings.Temperatures
 	doc := &tableDoc{Network: displayName(net.Root), Pressure: net.Settings.Pressure, Temps: temps, net: net}
 	for _, rx := range net.Reactions {
-		doc.Tables = append(doc.Tables, net.ReactionTable(rx, temps))
+		doc.Tables = append(doc.Tables, equilibrium.ReactionTable(net, rx, temps))
 	}
 	data, err := renderTableFormat(doc, w.opts.format)
 	if err != nil {

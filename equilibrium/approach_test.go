@@ -1,4 +1,4 @@
-package network
+package equilibrium
 
 import (
 	"fmt"
@@ -8,13 +8,14 @@ import (
 	"strings"
 	"testing"
 
+	"hess/network"
 	"hess/thermo"
 )
 
 // loadPlant compiles a network that includes the hydrogen plant's gas
 // library (NIST WebBook Shomate fits and a NASA 7-term steam set) followed
 // by body, and fails on any error.
-func loadPlant(t *testing.T, body string) *Network {
+func loadPlant(t *testing.T, body string) *network.Network {
 	t.Helper()
 	gases, err := filepath.Abs(filepath.Join("..", "examples", "hydrogen-plant", "gases.hess"))
 	if err != nil {
@@ -27,7 +28,7 @@ func loadPlant(t *testing.T, body string) *Network {
 	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	n := Load(path, Disk{})
+	n := network.Load(path, network.Disk{})
 	if n.Diagnostics.HasErrors() {
 		for _, d := range n.Diagnostics {
 			t.Errorf("%s:%d:%d: %s[%s]: %s", d.Subject.File, d.Subject.Start.Line, d.Subject.Start.Column, d.Severity, d.Code, d.Message)
@@ -37,13 +38,13 @@ func loadPlant(t *testing.T, body string) *Network {
 	return n
 }
 
-func approachOf(t *testing.T, n *Network, mixture, reaction string) (*MixtureApproach, ReactionApproach) {
+func approachOf(t *testing.T, n *network.Network, mixture, reaction string) (*MixtureApproach, ReactionApproach) {
 	t.Helper()
 	m := n.LookupMixture(mixture)
 	if m == nil {
 		t.Fatalf("no mixture %s", mixture)
 	}
-	a := n.Approach(m)
+	a := Approach(n, m)
 	if a == nil {
 		t.Fatalf("mixture %s cannot be evaluated", mixture)
 	}
@@ -79,7 +80,7 @@ mixture unit {
 		if r.DG != r.DG0 {
 			t.Errorf("%s: ΔrG = %g J/mol, ΔrG° = %g J/mol; want equal at Q = 1", tc.name, r.DG, r.DG0)
 		}
-		table := n.ReactionTable(n.LookupReaction(tc.name), nil)
+		table := ReactionTable(n, n.LookupReaction(tc.name), nil)
 		if len(table.Crossovers) != 1 {
 			t.Fatalf("%s: crossovers %v, want one", tc.name, table.Crossovers)
 		}
@@ -202,7 +203,7 @@ mixture melt {
 	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	n := Load(path, Disk{})
+	n := network.Load(path, network.Disk{})
 	for _, d := range n.Diagnostics {
 		if d.Code != "not-in-mixture" { // each mixture holds one reaction's species
 			t.Errorf("%s[%s]: %s", d.Severity, d.Code, d.Message)
@@ -245,7 +246,7 @@ func TestApproachRefusesBadMixtures(t *testing.T) {
 			if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
 				t.Fatal(err)
 			}
-			n := Load(path, Disk{})
+			n := network.Load(path, network.Disk{})
 			found := false
 			for _, d := range n.Diagnostics {
 				if d.Code == tc.code && strings.Contains(d.Message, tc.text) {
@@ -255,7 +256,7 @@ func TestApproachRefusesBadMixtures(t *testing.T) {
 			if !found {
 				t.Errorf("no %s %q among %v", tc.code, tc.text, n.Diagnostics)
 			}
-			if m := n.LookupMixture("m"); m != nil && n.Approach(m) != nil {
+			if m := n.LookupMixture("m"); m != nil && Approach(n, m) != nil {
 				t.Errorf("a bad mixture was evaluated")
 			}
 		})
@@ -275,7 +276,7 @@ mixture brine { temperature 25 degC  AgCl(s)  Ag+(aq) 1e-5  Cl-(aq) 0.1 mol/kg }
 	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	n := Load(path, Disk{})
+	n := network.Load(path, network.Disk{})
 	found := false
 	for _, d := range n.Diagnostics {
 		found = found || (d.Code == "missing-unit" && strings.Contains(d.Message, "molality of Ag+(aq) needs a unit"))
@@ -283,7 +284,7 @@ mixture brine { temperature 25 degC  AgCl(s)  Ag+(aq) 1e-5  Cl-(aq) 0.1 mol/kg }
 	if !found {
 		t.Errorf("no missing-unit for the bare molality: %v", n.Diagnostics)
 	}
-	if n.Approach(n.LookupMixture("brine")) != nil {
+	if Approach(n, n.LookupMixture("brine")) != nil {
 		t.Error("a mixture with a bare molality was evaluated")
 	}
 }
@@ -307,7 +308,7 @@ mixture warm { temperature 60 degC  AgCl(s)  Ag+(aq) 1e-5 mol/kg  Cl-(aq) 0.1 mo
 	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	n := Load(path, Disk{})
+	n := network.Load(path, network.Disk{})
 	a, r := approachOf(t, n, "warm", "dissolve")
 	if math.Abs(r.LnQ-math.Log(1e-6)) > 1e-12 {
 		t.Errorf("ln Q = %g, want ln 1e-6", r.LnQ)

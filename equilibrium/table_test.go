@@ -1,4 +1,4 @@
-package network
+package equilibrium
 
 import (
 	"fmt"
@@ -6,22 +6,23 @@ import (
 	"strings"
 	"testing"
 
+	"hess/network"
 	"hess/thermo"
 )
 
 // tableOf compiles src (see loadThermo) and returns the named reaction's
 // table at temps.
-func tableOf(t *testing.T, src, name string, temps ...float64) *ReactionTable {
+func tableOf(t *testing.T, src, name string, temps ...float64) *Table {
 	t.Helper()
 	n := loadThermo(t, src)
 	rx := n.LookupReaction(name)
 	if rx == nil {
 		t.Fatalf("no reaction %s", name)
 	}
-	return n.ReactionTable(rx, temps)
+	return ReactionTable(n, rx, temps)
 }
 
-func rowAt(t *testing.T, tb *ReactionTable, T float64) TableRow {
+func rowAt(t *testing.T, tb *Table, T float64) network.TableRow {
 	t.Helper()
 	for _, r := range tb.Rows {
 		if r.T == T {
@@ -29,7 +30,7 @@ func rowAt(t *testing.T, tb *ReactionTable, T float64) TableRow {
 		}
 	}
 	t.Fatalf("%s: no row at %g K", tb.Reaction.Name, T)
-	return TableRow{}
+	return network.TableRow{}
 }
 
 // log10 K check values, REFERENCE-DATA.md §3: Σν·log10 Kf of NIST-JANAF 1998
@@ -68,7 +69,7 @@ func TestGasReactionsAgainstJANAF(t *testing.T) {
 			t.Errorf("%s: kind %s, quotient %q, Δn %g; want %s, %q, %g", tc.name, tb.Kind, tb.Quotient, tb.DeltaGasMoles, tc.kind, tc.quotient, tc.dn)
 		}
 		for i, r := range tb.Rows {
-			if !r.Valid || r.Extrapolated || r.Basis != BasisSpecies {
+			if !r.Valid || r.Extrapolated || r.Basis != network.BasisSpecies {
 				t.Errorf("%s at %g K: valid %v, extrapolated %v, basis %v", tc.name, r.T, r.Valid, r.Extrapolated, r.Basis)
 			}
 			if d := r.Log10K - tc.log10K[i]; math.Abs(d) > janafLog10KTol {
@@ -198,7 +199,7 @@ species Ag+(aq) { gf 77.107 kJ/mol }
 species Cl-(aq) { gf -131.228 kJ/mol }
 reaction dissolve: AgCl(s) <-> Ag+(aq) + Cl-(aq)
 `, "dissolve", 298.15, 310)
-	if r := nbs.Rows[0]; !r.Valid || r.Basis != BasisFormation || math.Abs(-r.Log10K-9.753) > 0.001 {
+	if r := nbs.Rows[0]; !r.Valid || r.Basis != network.BasisFormation || math.Abs(-r.Log10K-9.753) > 0.001 {
 		t.Errorf("NBS82 gf: pKsp = %.4f (valid %v, basis %v), want 9.753", -r.Log10K, r.Valid, r.Basis)
 	}
 	if r := nbs.Rows[1]; r.Valid || len(r.Missing) != 3 {
@@ -295,7 +296,7 @@ func TestCrossoverFullCp(t *testing.T) {
 		{"reform", 892, 206.172, 214.608, -80, -55, true},
 	}
 	for _, tc := range tests {
-		tb := n.ReactionTable(n.LookupReaction(tc.name), nil)
+		tb := ReactionTable(n, n.LookupReaction(tc.name), nil)
 		if len(tb.Crossovers) != 1 {
 			t.Fatalf("%s: crossovers %+v, want one", tc.name, tb.Crossovers)
 		}
@@ -311,7 +312,7 @@ func TestCrossoverFullCp(t *testing.T) {
 		}
 		// At the crossover the full model has ΔrG° = 0, so there
 		// ΔrH°(T)/ΔrS°(T) = T even though ΔrH°298/ΔrS°298 ≠ T.
-		row := n.ReactionTable(n.LookupReaction(tc.name), []float64{x.T}).Rows[0]
+		row := ReactionTable(n, n.LookupReaction(tc.name), []float64{x.T}).Rows[0]
 		if math.Abs(row.DH/row.DS-x.T) > 0.01 || math.Abs(row.DG) > 0.05 {
 			t.Errorf("%s: at %.3f K ΔrH°/ΔrS° = %.3f K, ΔrG° = %.3g J/mol", tc.name, x.T, row.DH/row.DS, row.DG)
 		}
@@ -386,7 +387,7 @@ reaction none: H2O(l) -> H2O(l)
 		if rx == nil {
 			t.Fatalf("no reaction %s", tc.name)
 		}
-		tb := n.ReactionTable(rx, nil)
+		tb := ReactionTable(n, rx, nil)
 		if tb.Kind != tc.kind || tb.Quotient != tc.quotient || tb.DeltaGasMoles != tc.dn {
 			t.Errorf("%s: kind %s, quotient %q, Δn %g; want %s, %q, %g", tc.name, tb.Kind, tb.Quotient, tb.DeltaGasMoles, tc.kind, tc.quotient, tc.dn)
 		}
@@ -412,12 +413,12 @@ reaction measured: 2 A(g) <-> C(g) { logk 1.5 ± 0.1 at 400 K }
 reaction bare: 2 B(g) <-> C(g)
 `
 	n := loadText(t, src)
-	tbl := func(name string, temps ...float64) *ReactionTable {
-		return n.ReactionTable(n.LookupReaction(name), temps)
+	tbl := func(name string, temps ...float64) *Table {
+		return ReactionTable(n, n.LookupReaction(name), temps)
 	}
 	const T = 400.0
 	ab := tbl("ab", T).Rows[0]
-	if ab.Basis != BasisReactionData || math.Abs(ab.DG-(10e3-T*20)) > 1e-9 {
+	if ab.Basis != network.BasisReactionData || math.Abs(ab.DG-(10e3-T*20)) > 1e-9 {
 		t.Errorf("ab: basis %v, ΔrG° %g", ab.Basis, ab.DG)
 	}
 	if want := math.Sqrt(sq(1e3)+sq(T*2)) / (thermo.R * T * math.Ln10); math.Abs(ab.SigmaLog10K-want) > 1e-12 {
@@ -432,7 +433,7 @@ reaction bare: 2 B(g) <-> C(g)
 	ac := tbl("ac", T, 298.15)
 	for i, r := range ac.Rows {
 		parts := tbl("ab", r.T).Rows[0].DG + tbl("bc", r.T).Rows[0].DG
-		if r.Basis != BasisCombination || math.Abs(r.DG-parts) > 1e-9 {
+		if r.Basis != network.BasisCombination || math.Abs(r.DG-parts) > 1e-9 {
 			t.Errorf("ac row %d: basis %v, ΔrG° %g, parts sum %g", i, r.Basis, r.DG, parts)
 		}
 	}
@@ -447,7 +448,7 @@ reaction bare: 2 B(g) <-> C(g)
 	if !m.Rows[0].Valid || math.Abs(m.Rows[0].Log10K-1.5) > 1e-12 || m.Rows[0].SigmaLog10K != 0.1 || m.Rows[1].Valid {
 		t.Errorf("measured: rows %+v", m.Rows)
 	}
-	if b := tbl("bare", T).Rows[0]; b.Valid || b.Basis != BasisNone || !math.IsNaN(b.K) || len(b.Missing) != 2 {
+	if b := tbl("bare", T).Rows[0]; b.Valid || b.Basis != network.BasisNone || !math.IsNaN(b.K) || len(b.Missing) != 2 {
 		t.Errorf("bare: row %+v", b)
 	}
 }
@@ -462,73 +463,13 @@ species C(aq) { formula O2 hf -20 kJ/mol s 50 J/mol/K gf -30 kJ/mol }
 reaction ab: A(aq) <-> B(aq)
 reaction ac: A(aq) <-> C(aq)
 `)
-	ab := n.ReactionTable(n.LookupReaction("ab"), []float64{298.15}).Rows[0]
+	ab := ReactionTable(n, n.LookupReaction("ab"), []float64{298.15}).Rows[0]
 	if ab.Valid || len(ab.Missing) != 1 || ab.Missing[0].Key != "B(aq)" {
 		t.Errorf("ab: valid %v, missing %v", ab.Valid, ab.Missing)
 	}
-	ac := n.ReactionTable(n.LookupReaction("ac"), []float64{298.15}).Rows[0]
-	if !ac.Valid || ac.Basis != BasisFormation || math.Abs(ac.DG+20e3) > 1e-9 || !math.IsNaN(ac.DH) {
+	ac := ReactionTable(n, n.LookupReaction("ac"), []float64{298.15}).Rows[0]
+	if !ac.Valid || ac.Basis != network.BasisFormation || math.Abs(ac.DG+20e3) > 1e-9 || !math.IsNaN(ac.DH) {
 		t.Errorf("ac: %+v", ac)
-	}
-}
-
-func TestTemperatureDiagnostics(t *testing.T) {
-	n := loadThermo(t, `
-settings { temperatures 600 K }
-include "webbook-shomate.hess"
-reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
-`)
-	for _, d := range n.Diagnostics {
-		if IsTemperatureCode(d.Code) {
-			t.Errorf("at the settings' 600 K: %s %s", d.Code, d.Message)
-		}
-	}
-	ds := n.TemperatureDiagnostics([]float64{298.15, 400, 700})
-	if len(ds) != 1 || ds[0].Code != "extrapolation" || !strings.Contains(ds[0].Message, "298.15 K and 400 K are outside the data of H2O(g)") {
-		t.Errorf("diagnostics at 298.15, 400 and 700 K: %v", ds)
-	}
-	if len(n.Settings.Temperatures) != 1 {
-		t.Errorf("TemperatureDiagnostics changed the network's temperatures to %v", n.Settings.Temperatures)
-	}
-}
-
-func TestParseTemperatures(t *testing.T) {
-	tests := []struct {
-		text string
-		want []float64
-		err  string
-	}{
-		{"298.15 K", []float64{298.15}, ""},
-		{"298.15 K, 700 K to 1000 K by 100 K", []float64{298.15, 700, 800, 900, 1000}, ""},
-		{"25 degC", []float64{298.15}, ""},
-		{"", nil, "no temperatures"},
-		{"300", nil, "unit"},
-		{"300 kJ/mol", nil, "temperature"},
-		{"-5 K", nil, "absolute zero"},
-		{"500 K to 400 K by 10 K", nil, "backwards"},
-		{"300 K } species X(g) {", nil, "only temperatures"},
-	}
-	for _, tc := range tests {
-		got, err := ParseTemperatures(tc.text)
-		if tc.err != "" {
-			if err == nil || !strings.Contains(err.Error(), tc.err) {
-				t.Errorf("ParseTemperatures(%q) error %v, want one containing %q", tc.text, err, tc.err)
-			}
-			continue
-		}
-		if err != nil {
-			t.Errorf("ParseTemperatures(%q): %v", tc.text, err)
-			continue
-		}
-		if len(got) != len(tc.want) {
-			t.Errorf("ParseTemperatures(%q) = %v, want %v", tc.text, got, tc.want)
-			continue
-		}
-		for i := range got {
-			if math.Abs(got[i]-tc.want[i]) > 1e-9 {
-				t.Errorf("ParseTemperatures(%q) = %v, want %v", tc.text, got, tc.want)
-			}
-		}
 	}
 }
 
@@ -544,13 +485,15 @@ func TestDeepCombinations(t *testing.T) {
 		fmt.Fprintf(&b, "reaction r%d: H2(g) <-> H2(g) = r%d + r%d\n", i, i-1, i-2)
 	}
 	n := loadText(t, b.String())
-	tb := n.ReactionTable(n.LookupReaction("r40"), []float64{298.15})
+	tb := ReactionTable(n, n.LookupReaction("r40"), []float64{298.15})
 	// r_i = r_(i-1) + r_(i-2): ΔrG° follows the Fibonacci numbers.
 	f0, f1 := 1.0, 2.0
 	for i := 2; i <= 40; i++ {
 		f0, f1 = f1, f0+f1
 	}
-	if r := tb.Rows[0]; !r.Valid || r.Basis != BasisCombination || math.Abs(r.DG/1000-f1) > 1e-6*f1 {
+	if r := tb.Rows[0]; !r.Valid || r.Basis != network.BasisCombination || math.Abs(r.DG/1000-f1) > 1e-6*f1 {
 		t.Errorf("r40: %+v, want ΔrG° = %g kJ/mol", r, f1)
 	}
 }
+
+func sq(x float64) float64 { return x * x }

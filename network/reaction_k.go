@@ -6,24 +6,6 @@ import (
 	"hess/thermo"
 )
 
-// ReactionTable is one reaction's equilibrium constant over temperature: what
-// `hess table` prints for it.
-type ReactionTable struct {
-	Reaction      *Reaction
-	Kind          string // "Kp", "Kc", "Ksp" or "K" (CLI.md)
-	Quotient      string // e.g. "p(CO2) p(H2) / (p(CO) p(H2O))"
-	DeltaGasMoles float64
-	// StandardPressure is p° in Pa, the pressure the gas data and K refer to.
-	StandardPressure float64
-	// Crossovers are the temperatures inside the data's range where ΔrG°
-	// changes sign.
-	Crossovers []thermo.Crossover
-	// Tmin and Tmax bound the temperatures the data cover (Tmin > Tmax when
-	// the data hold at no span of temperatures, such as gf alone).
-	Tmin, Tmax float64
-	Rows       []TableRow
-}
-
 // TableRow is a reaction's standard reaction properties and equilibrium
 // constants at one temperature.
 type TableRow struct {
@@ -61,40 +43,15 @@ func (b Basis) String() string {
 	return "none"
 }
 
-// ReactionTable computes a reaction's K(T) table at the given temperatures (K).
-//
-// A row comes from the first of these that gives ΔrG° at T: the species'
-// models; at 298.15 K, the species' gf when some species is known by gf
-// alone; for a coupled reaction, the weighted sum of its parts' rows; the
-// reaction's own logk at T, its dh with ds (or either with dg), or its dg at
-// 298.15 K. K is relative to the network's standard pressure and 1 mol/kg;
-// Kc = K·(p°/(R·T·1 mol/L))^Δn. A nil reaction has a nil table.
-func (n *Network) ReactionTable(rx *Reaction, temps []float64) *ReactionTable {
-	if rx == nil {
-		return nil
-	}
-	c := n.calc(rx)
-	t := &ReactionTable{
-		Reaction:         rx,
-		Kind:             kindOf(c.terms),
-		Quotient:         quotientText(c.terms),
-		DeltaGasMoles:    c.dn,
-		StandardPressure: c.p0,
-	}
-	t.Tmin, t.Tmax = c.span()
-	t.Crossovers = c.crossovers()
-	t.Rows = make([]TableRow, 0, len(temps))
-	for _, T := range temps {
-		t.Rows = append(t.Rows, c.row(T))
-	}
-	return t
-}
-
-// rxCalc holds what a reaction's rows are computed from.
-type rxCalc struct {
+// A ReactionK evaluates one reaction's standard reaction properties and
+// equilibrium constant at any temperature, from the first source that gives
+// ΔrG° there (see Row). It remembers its last temperature, so it is for one
+// goroutine at a time; a coupled reaction's parts are evaluated once per
+// temperature however often they are shared.
+type ReactionK struct {
 	net   *Network
 	rx    *Reaction
-	terms []netTerm
+	terms []NetTerm
 	dn    float64
 	p0    float64
 
@@ -108,7 +65,7 @@ type rxCalc struct {
 	// parts are the calculations of a coupled reaction's parts, in the
 	// order of its combination; partsOK is false when a part is undefined
 	// or leads back to a reaction being summed.
-	parts   []*rxCalc
+	parts   []*ReactionK
 	partsOK bool
 
 	// The last point computed, so that a part shared by several coupled
@@ -121,17 +78,19 @@ type rxCalc struct {
 	spanDone       bool
 }
 
-func (n *Network) calc(rx *Reaction) *rxCalc {
-	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*rxCalc{})
+// ReactionK prepares the evaluation of rx, which must not be nil. An
+// unresolved reaction gives rows that are not Valid.
+func (n *Network) ReactionK(rx *Reaction) *ReactionK {
+	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*ReactionK{})
 }
 
 // calcWithin builds the calculation of rx; path holds the coupled reactions
 // being expanded above it, memo the calculations already built.
-func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Reaction]*rxCalc) *rxCalc {
+func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Reaction]*ReactionK) *ReactionK {
 	if c, ok := memo[rx]; ok {
 		return c
 	}
-	c := &rxCalc{net: n, rx: rx, terms: netTerms(rx), p0: n.Settings.Pressure}
+	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure()}
 	if len(rx.Combo) > 0 {
 		path[rx] = true
 		c.partsOK = true
@@ -145,15 +104,12 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		delete(path, rx)
 	}
 	memo[rx] = c
-	if !(c.p0 > 0) {
-		c.p0 = thermo.Bar
-	}
 	c.dn = deltaGasMoles(c.terms)
 	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
 	for _, t := range c.terms {
-		nu, _ := t.nu.Float64()
-		sp := t.species
-		a := quotientActivity(sp)
+		nu, _ := t.Nu.Float64()
+		sp := t.Species
+		a := sp.QuotientActivity()
 		m := sp.Model()
 		if m == nil || isGibbsOnly(m) {
 			c.absOK = false
@@ -188,7 +144,15 @@ func (p point) ok() bool { return !math.IsNaN(p.dg) && !math.IsInf(p.dg, 0) }
 
 var noPoint = point{dh: math.NaN(), ds: math.NaN(), dg: math.NaN(), sigma: math.NaN()}
 
-func (c *rxCalc) row(T float64) TableRow {
+// Row is the reaction at T: ΔrH°, ΔrS°, ΔrG°, K, log10 K with its
+// uncertainty, and Kc = K·(p°/(R·T·1 mol/L))^Δn. The row comes from the
+// first of these that gives ΔrG° at T: the species' models; at 298.15 K,
+// the species' gf when some species is known by gf alone; for a coupled
+// reaction, the weighted sum of its parts' rows; the reaction's own logk at
+// T, its dh with ds (or either with dg), or its dg at 298.15 K. K is
+// relative to the network's standard pressure and 1 mol/kg. A row that no
+// data give is not Valid and lists the species lacking data at T.
+func (c *ReactionK) Row(T float64) TableRow {
 	p := c.at(T)
 	r := TableRow{T: T, DH: p.dh, DS: p.ds, DG: p.dg, K: math.NaN(), Log10K: math.NaN(), Kc: math.NaN(),
 		SigmaLog10K: math.NaN(), Extrapolated: p.extrapolated, Basis: p.basis}
@@ -210,7 +174,7 @@ func (c *rxCalc) row(T float64) TableRow {
 }
 
 // at evaluates the reaction at T from the first source that gives ΔrG°.
-func (c *rxCalc) at(T float64) point {
+func (c *ReactionK) at(T float64) point {
 	if c.hasLast && c.lastT == T {
 		return c.last
 	}
@@ -219,7 +183,7 @@ func (c *rxCalc) at(T float64) point {
 	return p
 }
 
-func (c *rxCalc) eval(T float64) point {
+func (c *ReactionK) eval(T float64) point {
 	if !(T > 0) {
 		return noPoint
 	}
@@ -242,7 +206,7 @@ func (c *rxCalc) eval(T float64) point {
 	return noPoint
 }
 
-func (c *rxCalc) fromSpecies(T float64) point {
+func (c *ReactionK) fromSpecies(T float64) point {
 	p := point{dh: c.abs.DeltaH(T), ds: c.abs.DeltaS(T), dg: c.abs.DeltaG(T), sigma: c.abs.SigmaLog10K(T), basis: BasisSpecies}
 	for _, cov := range c.coverage {
 		if !coveredBy(cov, T) {
@@ -254,15 +218,15 @@ func (c *rxCalc) fromSpecies(T float64) point {
 
 // fromFormation sums gf at 298.15 K. ΔrH° is Σ ν hf when every species has
 // hf, and ΔrS° follows from ΔrH° and ΔrG°.
-func (c *rxCalc) fromFormation(T float64) point {
+func (c *ReactionK) fromFormation(T float64) point {
 	p := point{dh: 0, ds: math.NaN(), dg: c.form.DeltaG(T), sigma: c.form.SigmaLog10K(T), basis: BasisFormation}
 	for _, t := range c.terms {
-		if t.species.Hf == nil {
+		if t.Species.Hf == nil {
 			p.dh = math.NaN()
 			break
 		}
-		nu, _ := t.nu.Float64()
-		p.dh += nu * t.species.Hf.V
+		nu, _ := t.Nu.Float64()
+		p.dh += nu * t.Species.Hf.V
 	}
 	if !math.IsNaN(p.dh) {
 		p.ds = (p.dh - p.dg) / T
@@ -272,7 +236,7 @@ func (c *rxCalc) fromFormation(T float64) point {
 
 // fromCombination sums the parts of a coupled reaction, weighted: ΔrG°, ΔrH°
 // and ΔrS° add, and so do the variances of log10 K.
-func (c *rxCalc) fromCombination(T float64) point {
+func (c *ReactionK) fromCombination(T float64) point {
 	if !c.partsOK {
 		return noPoint
 	}
@@ -345,11 +309,11 @@ func linearData(rx *Reaction) (linear, bool) {
 
 func sq(x float64) float64 { return x * x }
 
-// span is the span of temperatures over which the reaction's ΔrG° is a
+// Span is the span of temperatures over which the reaction's ΔrG° is a
 // continuous function of the data: the overlap of its species' ranges, of
 // its parts' spans for a coupled reaction, or hf/s-like limits for its own
 // dh/ds data. lo > hi means no span.
-func (c *rxCalc) span() (lo, hi float64) {
+func (c *ReactionK) Span() (lo, hi float64) {
 	if !c.spanDone {
 		c.spanLo, c.spanHi = c.findSpan()
 		c.spanDone = true
@@ -357,14 +321,14 @@ func (c *rxCalc) span() (lo, hi float64) {
 	return c.spanLo, c.spanHi
 }
 
-func (c *rxCalc) findSpan() (lo, hi float64) {
+func (c *ReactionK) findSpan() (lo, hi float64) {
 	if c.absOK {
 		return c.abs.Range()
 	}
 	if c.partsOK {
 		lo, hi = 0, math.Inf(1)
 		for _, part := range c.parts {
-			l, h := part.span()
+			l, h := part.Span()
 			lo, hi = math.Max(lo, l), math.Min(hi, h)
 		}
 		if lo < hi {
@@ -377,39 +341,41 @@ func (c *rxCalc) findSpan() (lo, hi float64) {
 	return math.Inf(1), math.Inf(-1)
 }
 
-// crossovers finds every sign change of ΔrG° inside the data's span.
-func (c *rxCalc) crossovers() []thermo.Crossover {
-	lo, hi := c.span()
-	if !(lo < hi) || math.IsInf(hi, 0) {
-		return nil
+// DeltaG is ΔrG° at T in J/mol, as Row gives it; NaN where no data give it.
+func (c *ReactionK) DeltaG(T float64) float64 {
+	p := c.at(T)
+	if !p.ok() {
+		return math.NaN()
 	}
-	if c.absOK {
-		return thermo.ScanCrossovers(c.abs.SummedDeltaG(), c.abs.DeltaG, lo, hi)
-	}
-	return thermo.Crossovers(func(T float64) float64 {
-		p := c.at(T)
-		if !p.ok() {
-			return math.NaN()
-		}
-		return p.dg
-	}, lo, hi)
+	return p.dg
 }
+
+// Species returns the reaction as the sum of its species' models, and false
+// unless every species has a model with H° and S°. Where it is true, Row
+// takes ΔrG° from it wherever it is finite.
+func (c *ReactionK) Species() (thermo.Reaction, bool) { return c.abs, c.absOK }
+
+// DeltaGasMoles is Δn, the net change in moles of gas.
+func (c *ReactionK) DeltaGasMoles() float64 { return c.dn }
+
+// StandardPressure is p° in Pa, the pressure the gas data and K refer to.
+func (c *ReactionK) StandardPressure() float64 { return c.p0 }
 
 // lacking lists the species whose data cannot give the reaction at T: no
 // usable model, gf alone away from 298.15 K, or (at 298.15 K, beside a
 // gf-only species) no gf.
-func (c *rxCalc) lacking(T float64) []*Species {
+func (c *ReactionK) lacking(T float64) []*Species {
 	var out []*Species
 	for _, t := range c.terms {
-		m := t.species.Model()
+		m := t.Species.Model()
 		if m == nil || (isGibbsOnly(m) && !thermo.AtT298(T)) {
-			out = append(out, t.species)
+			out = append(out, t.Species)
 		}
 	}
 	if len(out) == 0 && thermo.AtT298(T) && c.anyGibbsOnly {
 		for _, t := range c.terms {
-			if t.species.Gf == nil {
-				out = append(out, t.species)
+			if t.Species.Gf == nil {
+				out = append(out, t.Species)
 			}
 		}
 	}

@@ -1,8 +1,10 @@
-package network
+package equilibrium
 
 import (
 	"math"
 	"testing"
+
+	"hess/network"
 )
 
 // FuzzReactionTable compiles arbitrary text and computes every reaction's
@@ -22,10 +24,10 @@ reaction bc: B(g) <-> C(g) { logk 2 at 400 K }
 reaction ac: A(g) <-> C(g) = ab + bc
 reaction loop: A(g) <-> C(g) = loop - ab`)
 	f.Fuzz(func(t *testing.T, src string) {
-		n := Load("net.hess", memSource{"net.hess": []byte(src)})
+		n := network.Load("net.hess", memSource{"net.hess": []byte(src)})
 		temps := []float64{298.15, 400, 1000, 0, -5, math.NaN(), math.Inf(1), 1e7}
 		for _, rx := range n.Reactions {
-			tb := n.ReactionTable(rx, temps)
+			tb := ReactionTable(n, rx, temps)
 			for _, r := range tb.Rows {
 				if r.Valid && (math.IsNaN(r.DG) || math.IsInf(r.DG, 0)) {
 					t.Fatalf("%s at %g K: valid row with ΔrG° %g", rx.Name, r.T, r.DG)

@@ -1,4 +1,4 @@
-package network
+package equilibrium
 
 import "testing"
 
@@ -10,7 +10,7 @@ func BenchmarkReactionTableHover(b *testing.B) {
 	temps := []float64{298.15}
 	b.ReportAllocs()
 	for b.Loop() {
-		n.ReactionTable(rx, temps)
+		ReactionTable(n, rx, temps)
 	}
 }
 
@@ -22,7 +22,7 @@ func BenchmarkReactionTableConstant(b *testing.B) {
 	temps := []float64{298.15}
 	b.ReportAllocs()
 	for b.Loop() {
-		n.ReactionTable(rx, temps)
+		ReactionTable(n, rx, temps)
 	}
 }
 
@@ -36,6 +36,6 @@ func BenchmarkReactionTableRows(b *testing.B) {
 	}
 	b.ReportAllocs()
 	for b.Loop() {
-		n.ReactionTable(rx, temps)
+		ReactionTable(n, rx, temps)
 	}
 }

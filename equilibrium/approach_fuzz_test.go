@@ -1,8 +1,10 @@
-package network
+package equilibrium
 
 import (
 	"math"
 	"testing"
+
+	"hess/network"
 )
 
 // FuzzApproach compiles arbitrary text and evaluates each of its mixtures:
@@ -26,9 +28,9 @@ reaction r: A(melt) <-> B(g)
 mixture x { temperature 1e4 K A(melt) 1 B(g) 1e-300 Pa pressure 0 bar }`)
 	f.Add("mixture m { CO2 0.1 K 3 bar H2(g) temperature -4 K }")
 	f.Fuzz(func(t *testing.T, src string) {
-		n := Load("net.hess", memSource{"net.hess": []byte(src)})
+		n := network.Load("net.hess", memSource{"net.hess": []byte(src)})
 		for _, m := range n.Mixtures {
-			a := n.Approach(m)
+			a := Approach(n, m)
 			if a == nil {
 				if m.Usable() {
 					t.Fatalf("usable mixture %s gave no result", m.Name)

@@ -1,0 +1,14 @@
+// Package equilibrium computes what a compiled network gives at a
+// temperature, pressure or composition: a reaction's K(T) table with its
+// kind (Kp, Kc, Ksp or K), its quotient written out, the span its data
+// cover and the temperatures where ΔrG° changes sign (table.go,
+// quotient.go); and a mixture's approach to equilibrium, reaction by
+// reaction: Q, K, ΔrG, the direction it would run and the temperature at
+// which K would equal Q (approach.go).
+//
+// It builds on network's evaluation of one reaction (network.ReactionK) and
+// a mixture's activities (network.Mixture), which the checks share. It
+// never reads or compiles a file, never reports a diagnostic and never
+// decides whether a network is sound: a mixture the checks reject gives no
+// numbers here. network never imports it.
+package equilibrium

@@ -1,0 +1,67 @@
+package network
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestTemperatureDiagnostics(t *testing.T) {
+	n := loadThermo(t, `
+settings { temperatures 600 K }
+include "webbook-shomate.hess"
+reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
+`)
+	for _, d := range n.Diagnostics {
+		if IsTemperatureCode(d.Code) {
+			t.Errorf("at the settings' 600 K: %s %s", d.Code, d.Message)
+		}
+	}
+	ds := n.TemperatureDiagnostics([]float64{298.15, 400, 700})
+	if len(ds) != 1 || ds[0].Code != "extrapolation" || !strings.Contains(ds[0].Message, "298.15 K and 400 K are outside the data of H2O(g)") {
+		t.Errorf("diagnostics at 298.15, 400 and 700 K: %v", ds)
+	}
+	if len(n.Settings.Temperatures) != 1 {
+		t.Errorf("TemperatureDiagnostics changed the network's temperatures to %v", n.Settings.Temperatures)
+	}
+}
+
+func TestParseTemperatures(t *testing.T) {
+	tests := []struct {
+		text string
+		want []float64
+		err  string
+	}{
+		{"298.15 K", []float64{298.15}, ""},
+		{"298.15 K, 700 K to 1000 K by 100 K", []float64{298.15, 700, 800, 900, 1000}, ""},
+		{"25 degC", []float64{298.15}, ""},
+		{"", nil, "no temperatures"},
+		{"300", nil, "unit"},
+		{"300 kJ/mol", nil, "temperature"},
+		{"-5 K", nil, "absolute zero"},
+		{"500 K to 400 K by 10 K", nil, "backwards"},
+		{"300 K } species X(g) {", nil, "only temperatures"},
+	}
+	for _, tc := range tests {
+		got, err := ParseTemperatures(tc.text)
+		if tc.err != "" {
+			if err == nil || !strings.Contains(err.Error(), tc.err) {
+				t.Errorf("ParseTemperatures(%q) error %v, want one containing %q", tc.text, err, tc.err)
+			}
+			continue
+		}
+		if err != nil {
+			t.Errorf("ParseTemperatures(%q): %v", tc.text, err)
+			continue
+		}
+		if len(got) != len(tc.want) {
+			t.Errorf("ParseTemperatures(%q) = %v, want %v", tc.text, got, tc.want)
+			continue
+		}
+		for i := range got {
+			if math.Abs(got[i]-tc.want[i]) > 1e-9 {
+				t.Errorf("ParseTemperatures(%q) = %v, want %v", tc.text, got, tc.want)
+			}
+		}
+	}
+}
