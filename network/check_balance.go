@@ -1,8 +1,6 @@
 package network
 
 import (
-	"math/big"
-	"sort"
 	"strings"
 
 	"hess/lang"
@@ -63,65 +61,4 @@ The message gives both net charges.`,
 			}
 		}
 	},
-}
-
-// elementCounts sums each element over a side of a reaction.
-func elementCounts(terms []Term) map[string]*big.Rat {
-	out := map[string]*big.Rat{}
-	for _, t := range terms {
-		for _, ec := range t.Species.Formula.Elements {
-			acc, ok := out[ec.Symbol]
-			if !ok {
-				acc = new(big.Rat)
-				out[ec.Symbol] = acc
-			}
-			acc.Add(acc, new(big.Rat).Mul(t.Coef, ec.Count))
-		}
-	}
-	return out
-}
-
-func netCharge(terms []Term) *big.Rat {
-	out := new(big.Rat)
-	for _, t := range terms {
-		out.Add(out, new(big.Rat).Mul(t.Coef, big.NewRat(int64(t.Species.Charge), 1)))
-	}
-	return out
-}
-
-func unionKeys(a, b map[string]*big.Rat) []string {
-	keys := make([]string, 0, len(a)+len(b))
-	for k := range a {
-		keys = append(keys, k)
-	}
-	for k := range b {
-		if _, ok := a[k]; !ok {
-			keys = append(keys, k)
-		}
-	}
-	sort.Strings(keys)
-	return keys
-}
-
-func ratOrZero(r *big.Rat) *big.Rat {
-	if r == nil {
-		return new(big.Rat)
-	}
-	return r
-}
-
-// ratText prints an exact count: an integer, or p/q.
-func ratText(r *big.Rat) string {
-	if r.IsInt() {
-		return r.Num().String()
-	}
-	return r.RatString()
-}
-
-func chargeText(r *big.Rat) string {
-	s := ratText(r)
-	if r.Sign() > 0 {
-		s = "+" + s
-	}
-	return s
 }

@@ -3,8 +3,6 @@ package network
 import (
 	"fmt"
 	"math"
-	"strconv"
-	"strings"
 
 	"hess/lang"
 	"hess/thermo"
@@ -108,46 +106,4 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 func jumps(j thermo.Join, pieces []thermo.Model, tol float64) bool {
 	cp := math.Max(math.Abs(pieces[j.Lower].Cp(j.T)), math.Abs(pieces[j.Upper].Cp(j.T)))
 	return math.Abs(j.DH) > tol || j.T*math.Abs(j.DS) > tol || math.Abs(j.DCp) > cpJumpFraction*cp
-}
-
-// kelvin writes a temperature for a message: "298.15 K", "1200 K".
-func kelvin(T float64) string { return short(T) + " K" }
-
-// short writes a number with at most four decimals and no trailing zeros.
-func short(v float64) string {
-	return strconv.FormatFloat(math.Round(v*1e4)/1e4, 'f', -1, 64)
-}
-
-// signed writes a difference with four significant digits and its sign.
-func signed(v float64) string {
-	var s string
-	switch a := math.Abs(v); {
-	case a >= 1e4:
-		s = strconv.FormatFloat(v, 'f', 0, 64)
-	case a < 1e-3 && a > 0:
-		s = strconv.FormatFloat(v, 'e', 2, 64)
-	default:
-		s = strconv.FormatFloat(v, 'g', 4, 64)
-	}
-	if v >= 0 {
-		s = "+" + s
-	}
-	return s
-}
-
-// kelvinList writes temperatures as "600 K, 700 K and 800 K", the first
-// few of a long list followed by how many there are.
-func kelvinList(ts []float64) string {
-	const shown = 4
-	parts := make([]string, 0, shown)
-	for i, T := range ts {
-		if i == shown && len(ts) > shown+1 {
-			return strings.Join(parts, ", ") + fmt.Sprintf(" and %d more", len(ts)-shown)
-		}
-		parts = append(parts, kelvin(T))
-	}
-	if len(parts) == 1 {
-		return parts[0]
-	}
-	return strings.Join(parts[:len(parts)-1], ", ") + " and " + parts[len(parts)-1]
 }

@@ -1,7 +1,6 @@
 package network
 
 import (
-	"math/big"
 	"path/filepath"
 
 	"hess/lang"
@@ -274,24 +273,4 @@ func (n *Network) Outline(path string) []Declaration {
 		}
 	}
 	return out
-}
-
-// ElementBalance is one element's count on each side of a reaction.
-type ElementBalance struct {
-	Symbol      string
-	Left, Right *big.Rat
-}
-
-// Balance returns each element's count on both sides of the reaction (in
-// symbol order) and the net charge of each side. It reports false when the
-// reaction names a species that is undeclared or has no formula.
-func (rx *Reaction) Balance() (elements []ElementBalance, left, right *big.Rat, ok bool) {
-	if !rx.Resolved {
-		return nil, nil, nil, false
-	}
-	l, r := elementCounts(rx.Left), elementCounts(rx.Right)
-	for _, sym := range unionKeys(l, r) {
-		elements = append(elements, ElementBalance{Symbol: sym, Left: ratOrZero(l[sym]), Right: ratOrZero(r[sym])})
-	}
-	return elements, netCharge(rx.Left), netCharge(rx.Right), true
 }
