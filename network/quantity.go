@@ -118,3 +118,15 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 	}
 	return out, true
 }
+
+// quantityText prints a quantity as written, for messages.
+func quantityText(q *lang.Quantity) string {
+	if q == nil || q.Value == nil {
+		return ""
+	}
+	s := q.Value.Text
+	if q.Unit != nil {
+		s += " " + q.Unit.Text
+	}
+	return s
+}

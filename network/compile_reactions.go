@@ -1,0 +1,311 @@
+package network
+
+import (
+	"fmt"
+	"math/big"
+	"sort"
+	"strings"
+
+	"hess/lang"
+)
+
+// builtReaction is a reaction statement compiled on its own, before the
+// serial pass that names it in the network.
+type builtReaction struct {
+	rx       *Reaction // nil when the statement has no name
+	complete bool      // the statement has a valid name and two sides
+	diags    lang.Diagnostics
+	// propDiags come from the reaction's properties; they are reported
+	// only when the reaction is kept.
+	propDiags lang.Diagnostics
+}
+
+// buildReactions compiles every reaction statement on its own, in
+// parallel: species are all declared by now, so lookups only read the
+// network.
+func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
+	out := make([]builtReaction, len(sts))
+	parallel(len(sts), 512, func() func(i int) {
+		w := c.worker(nil)
+		return func(i int) { w.buildReaction(sts[i], &out[i]) }
+	})
+	return out
+}
+
+// buildReaction compiles one reaction statement into b.
+func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
+	r := st.Reaction
+	if r.Name == nil {
+		return
+	}
+	c.out = &b.diags
+	validName := c.name(r.Name, "reaction")
+	rx := &Reaction{Name: r.Name.Name, NameSpan: r.Name.Span(), Span: r.Span()}
+	b.rx = rx
+	b.complete = !st.Broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
+	if !b.complete {
+		return
+	}
+	rx.TwoWay = r.Arrow.TwoWay()
+	rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
+	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
+	left, ok := c.side(r.Left, true, &coefs)
+	right, ok := c.side(r.Right, ok, &coefs)
+	rx.Left, rx.Right, rx.Resolved = left, right, ok
+	if ok {
+		rx.stoich = factsWith(rx, coefs)
+	}
+	c.out = &b.propDiags
+	c.reactionProperties(rx, r.Props)
+}
+
+// addReaction names a built reaction in the network, in source order, so
+// that the first of two reactions with one name is the one kept.
+func (c *compiler) addReaction(b builtReaction) {
+	rx := b.rx
+	if rx == nil {
+		return
+	}
+	c.net.Diagnostics = append(c.net.Diagnostics, b.diags...)
+	if b.complete {
+		for _, side := range [][]Term{rx.Left, rx.Right} {
+			for _, t := range side {
+				if t.Species != nil {
+					t.Species.Used = true
+				}
+			}
+		}
+	}
+	if old, dup := c.net.reactionByName[rx.Name]; dup {
+		d := c.report("duplicate-reaction-name", rx.NameSpan, "reaction name %s is used twice", rx.Name)
+		d.Related = []lang.Related{{Span: old.NameSpan, Message: "first used here"}}
+		return
+	}
+	c.net.reactionByName[rx.Name] = rx
+	if !b.complete {
+		return
+	}
+	c.net.Reactions = append(c.net.Reactions, rx)
+	c.net.Diagnostics = append(c.net.Diagnostics, b.propDiags...)
+}
+
+// lookup finds a declared species by reference, through the compiler's
+// cache when it keeps one.
+func (c *compiler) lookup(ref string) *Species {
+	if c.refs == nil {
+		return c.net.LookupSpecies(ref)
+	}
+	if sp, ok := c.refs[ref]; ok {
+		return sp
+	}
+	sp := c.net.LookupSpecies(ref)
+	if sp != nil {
+		// A copy of the key: ref lies somewhere in the source, and the
+		// comparisons of later lookups would read it from there.
+		c.refs[strings.Clone(ref)] = sp
+	}
+	return sp
+}
+
+// side resolves one side of a reaction: coefficients read and species
+// looked up. resolved stays true while every species is declared and has
+// a formula. The coefficients are appended to coefs while all are small
+// integers; coefs becomes nil at the first that is not.
+func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
+	out := make([]Term, 0, len(terms))
+	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
+	for i, t := range terms {
+		term := Term{Coef: ones[i].SetInt64(1), Span: t.Span()}
+		if t.Coef != nil {
+			q, err := parseRat(t.Coef.Text)
+			switch {
+			case err != nil:
+				c.report("syntax", t.Coef.Span(), "%v", err)
+				resolved = false
+			case q.Sign() <= 0:
+				c.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
+				resolved = false
+			default:
+				term.Coef = q
+			}
+		}
+		if *coefs != nil {
+			if n, ok := smallInt(term.Coef); ok {
+				*coefs = append(*coefs, n)
+			} else {
+				*coefs = nil
+			}
+		}
+		sp := c.lookup(t.Species.Text)
+		if sp == nil {
+			c.undefinedSpecies(t.Species)
+			resolved = false
+		} else {
+			term.Species = sp
+			if !sp.HasFormula {
+				resolved = false
+			}
+		}
+		out = append(out, term)
+	}
+	return out, resolved
+}
+
+func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
+	parts, err := lang.SplitRef(ref.Text)
+	if err != nil {
+		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		return
+	}
+	msg := fmt.Sprintf("species %s is not declared", parts.Canonical())
+	var near []string
+	for _, sp := range c.net.Species {
+		if sp.Parts.Base == parts.Base && sp.Charge == parts.Charge {
+			near = append(near, sp.Key)
+		}
+	}
+	if len(near) > 0 {
+		sort.Strings(near)
+		msg += "; declared: " + strings.Join(near, ", ")
+	}
+	c.report("undefined-species", ref.Span(), "%s", msg)
+}
+
+func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
+	var seen givenOnce
+	for _, pr := range props {
+		key := keywordSpan(&pr.Node)
+		name := pr.Tokens[0].Value
+		if name != "logk" {
+			if first, dup := seen.add(name, key); dup {
+				d := c.report("syntax", key, "%s is given twice for reaction %s", name, rx.Name)
+				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
+				continue
+			}
+		}
+		switch {
+		case pr.Value != nil:
+			kind := energyKind
+			if pr.Value.Key == "ds" {
+				kind = entropyKind
+			}
+			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
+			if !ok {
+				continue
+			}
+			switch pr.Value.Key {
+			case "dg":
+				rx.Dg = v
+			case "dh":
+				rx.Dh = v
+			case "ds":
+				rx.Ds = v
+			}
+		case pr.LogK != nil:
+			c.logK(rx, pr.LogK)
+		case pr.Rate != nil:
+			if rate := c.rate(pr.Rate); rate != nil {
+				if pr.Rate.Kind == "rate" {
+					rx.Rate = rate
+				} else {
+					rx.Reverse = rate
+				}
+			}
+		case pr.Text != nil:
+			rx.Source, _ = lang.Unquote(pr.Text.Text.Raw)
+		}
+	}
+}
+
+func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
+	v, ok := c.number(l.Value)
+	if !ok {
+		return
+	}
+	lk := LogK{Value: Value{V: v, Span: l.Value.Span()}, T: 298.15, Span: l.Span()}
+	if l.Sigma != nil {
+		s, ok := c.number(l.Sigma)
+		if !ok {
+			return
+		}
+		lk.Value.Sigma = s
+	}
+	if l.At != nil {
+		t, ok := c.quantity(l.At, temperatureKind, "logk temperature", false)
+		if !ok {
+			return
+		}
+		if t.V <= 0 {
+			c.report("implausible-value", l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
+			return
+		}
+		lk.T = t.V
+	}
+	for _, old := range rx.LogK {
+		if old.T == lk.T {
+			d := c.report("syntax", l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
+			d.Related = []lang.Related{{Span: old.Span, Message: "first given here"}}
+			return
+		}
+	}
+	rx.LogK = append(rx.LogK, lk)
+}
+
+func (c *compiler) rate(r *lang.Rate) *Rate {
+	ea, ok := c.quantity(r.Ea, energyKind, "Ea", false)
+	if !ok {
+		return nil
+	}
+	a, ok := c.prefactor(r.A)
+	if !ok {
+		return nil
+	}
+	rate := &Rate{A: *a, AUnit: r.A.Unit.Text, Ea: *ea, Span: r.Span()}
+	if r.N != nil {
+		n, ok := c.number(r.N)
+		if !ok {
+			return nil
+		}
+		rate.N = n
+	}
+	return rate
+}
+
+func (c *compiler) combination(r *lang.Reaction) {
+	if r.Combo == nil {
+		return
+	}
+	rx := c.net.reactionByName[r.Name.Name]
+	if rx == nil || rx.Span != r.Span() {
+		return
+	}
+	for i, t := range r.Combo.Terms {
+		if i > 0 && t.Sign == "" {
+			c.report("syntax", t.Span(), "terms of a combination are joined by + or -")
+			rx.Combo = nil
+			return
+		}
+		w := big.NewRat(1, 1)
+		if t.Coef != nil {
+			v, err := parseRat(t.Coef.Text)
+			if err != nil {
+				c.report("syntax", t.Coef.Span(), "%v", err)
+				rx.Combo = nil
+				return
+			}
+			w = v
+		}
+		if t.Sign == "-" {
+			w.Neg(w)
+		}
+		ct := ComboTerm{Weight: w, Name: t.Name.Name, Span: t.Span()}
+		ct.Reaction = c.net.reactionByName[ct.Name]
+		if ct.Reaction == nil {
+			c.report("undefined-reaction", t.Name.Span(), "reaction %s is not defined", ct.Name)
+		} else if ct.Reaction == rx {
+			c.report("undefined-reaction", t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
+			ct.Reaction = nil
+		}
+		rx.Combo = append(rx.Combo, ct)
+	}
+}

@@ -1,0 +1,197 @@
+package network
+
+import (
+	"strings"
+
+	"hess/chem"
+	"hess/lang"
+)
+
+func (c *compiler) element(e *lang.Element) {
+	if e.Symbol == nil {
+		return
+	}
+	sym := e.Symbol.Name
+	if !chem.IsElementSymbol(sym) {
+		c.report("syntax", e.Symbol.Span(), "element symbol %q must be an upper-case letter followed by up to two lower-case letters", sym)
+		return
+	}
+	if _, ok := c.net.Elements.Lookup(sym); ok {
+		c.report("syntax", e.Symbol.Span(), "element %s is already defined", sym)
+		return
+	}
+	if e.Mass == nil {
+		c.report("syntax", e.Symbol.Span(), "element %s needs a mass, such as `mass 2.014 g/mol`", sym)
+		return
+	}
+	v, ok := c.quantity(e.Mass, molarMassKind, "mass", false)
+	if !ok {
+		return
+	}
+	if v.V <= 0 {
+		c.report("implausible-value", e.Mass.Span(), "element %s has mass %s; a molar mass must be positive", sym, e.Mass.Value.Text)
+		return
+	}
+	c.net.Elements = c.net.Elements.With(sym, v.V*1000) // g/mol
+}
+
+var conventionNames = map[string]Convention{
+	"ideal-gas": IdealGas, "pure": Pure, "solute": Solute, "solution": SolutionMember,
+}
+
+func (c *compiler) phase(p *lang.Phase) {
+	if !c.name(p.Name, "phase") {
+		return
+	}
+	tag := p.Name.Name
+	if strings.ToLower(tag) != tag {
+		c.report("syntax", p.Name.Span(), "phase name %q must be lower case, as state tags are", tag)
+		return
+	}
+	if old, ok := c.net.Phases[tag]; ok {
+		if old.Builtin {
+			c.report("syntax", p.Name.Span(), "phase %s is built in and cannot be redeclared", tag)
+		} else {
+			d := c.report("syntax", p.Name.Span(), "phase %s is declared twice", tag)
+			d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
+		}
+		return
+	}
+	if p.Convention == nil {
+		c.report("syntax", p.Name.Span(), "phase %s needs a convention: ideal-gas, pure, solute or solution", tag)
+		return
+	}
+	conv, ok := conventionNames[p.Convention.Name]
+	if !ok {
+		c.report("syntax", p.Convention.Span(), "unknown convention %q: use ideal-gas, pure, solute or solution", p.Convention.Name)
+		return
+	}
+	c.net.Phases[tag] = &Phase{Tag: tag, Convention: conv, Span: p.Name.Span()}
+}
+
+// maxTemperatures bounds the size of a temperature list.
+const maxTemperatures = 10000
+
+func (c *compiler) settings(s *lang.Settings) {
+	set := &c.net.Settings
+	set.Span = s.Span()
+	seen := map[string]lang.Span{}
+	once := func(key string, span lang.Span) bool {
+		if first, dup := seen[key]; dup {
+			d := c.report("syntax", span, "%s is set twice", key)
+			d.Related = []lang.Related{{Span: first, Message: "first set here"}}
+			return false
+		}
+		seen[key] = span
+		return true
+	}
+	for _, it := range s.Items {
+		key := keywordSpan(&it.Node)
+		switch {
+		case it.Pressure != nil:
+			if !once("pressure", key) {
+				continue
+			}
+			if v, ok := c.quantity(it.Pressure, pressureKind, "pressure", false); ok {
+				if v.V <= 0 {
+					c.report("implausible-value", it.Pressure.Span(), "standard pressure must be positive, found %s", quantityText(it.Pressure))
+					continue
+				}
+				set.Pressure = v.V
+			}
+		case it.Temperatures != nil:
+			if !once("temperatures", key) {
+				continue
+			}
+			if ts, ok := c.temperatures(it.Temperatures); ok {
+				set.Temperatures = ts
+			}
+		case it.Tolerance != nil:
+			if !once("tolerance", key) {
+				continue
+			}
+			if v, ok := c.quantity(it.Tolerance, energyKind, "tolerance", true); ok {
+				if v.V < 0 {
+					c.report("implausible-value", it.Tolerance.Span(), "tolerance cannot be negative, found %s", quantityText(it.Tolerance))
+					continue
+				}
+				set.Tolerance = v.V
+			}
+		case it.Lint != nil:
+			c.lint(it.Lint)
+		}
+	}
+}
+
+func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
+	var out []float64
+	ok := true
+	for _, it := range items {
+		from, ok1 := c.quantity(it.From, temperatureKind, "temperature", false)
+		if it.To == nil {
+			if ok1 {
+				if from.V <= 0 {
+					c.report("implausible-value", it.From.Span(), "temperature %s is not above absolute zero", quantityText(it.From))
+					ok = false
+					continue
+				}
+				out = append(out, from.V)
+			}
+			ok = ok && ok1
+			continue
+		}
+		to, ok2 := c.quantity(it.To, temperatureKind, "temperature", false)
+		step, ok3 := c.quantity(it.By, temperatureKind, "temperature step", true)
+		if !ok1 || !ok2 || !ok3 {
+			ok = false
+			continue
+		}
+		switch {
+		case from.V <= 0 || to.V <= 0:
+			c.report("implausible-value", it.Span(), "temperature range %s to %s reaches absolute zero or below", quantityText(it.From), quantityText(it.To))
+			ok = false
+			continue
+		case step.V <= 0:
+			c.report("syntax", it.By.Span(), "a temperature step must be positive, found %s", quantityText(it.By))
+			ok = false
+			continue
+		case to.V < from.V:
+			c.report("syntax", it.Span(), "temperature range runs backwards: %s to %s", quantityText(it.From), quantityText(it.To))
+			ok = false
+			continue
+		}
+		count := (to.V-from.V)/step.V + 1
+		if count+float64(len(out)) > maxTemperatures {
+			c.report("syntax", it.Span(), "temperature range gives %.0f temperatures, more than %d", count, maxTemperatures)
+			ok = false
+			continue
+		}
+		for i := 0; ; i++ {
+			t := from.V + float64(i)*step.V
+			if t > to.V+1e-9*step.V {
+				break
+			}
+			out = append(out, t)
+		}
+	}
+	return out, ok && len(out) > 0
+}
+
+func (c *compiler) lint(l *lang.Lint) {
+	if l.Check == nil || l.Level == nil {
+		return
+	}
+	if LookupCheck(l.Check.Name) == nil {
+		c.report("syntax", l.Check.Span(), "lint names no known check %q (`hess explain` lists them)", l.Check.Name)
+		return
+	}
+	sev, ok := lang.ParseSeverity(l.Level.Name)
+	if !ok || sev == lang.Info {
+		c.report("syntax", l.Level.Span(), "lint level must be off, warning or error, found %q", l.Level.Name)
+		return
+	}
+	if c.net.Settings.Lint == nil {
+		c.net.Settings.Lint = map[string]lang.Severity{}
+	}
+	c.net.Settings.Lint[l.Check.Name] = sev
+}

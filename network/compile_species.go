@@ -1,0 +1,256 @@
+package network
+
+import (
+	"strings"
+	"unicode/utf8"
+
+	"hess/chem"
+	"hess/lang"
+)
+
+// declare registers one species reference of a species statement.
+func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool) *Species {
+	parts, err := lang.SplitRef(ref.Text)
+	if err != nil {
+		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		return nil
+	}
+	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge}
+	if old, dup := c.net.speciesByKey[sp.Key]; dup {
+		d := c.report("duplicate-species", ref.Span(), "species %s is declared twice", sp.Key)
+		d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
+		return nil
+	}
+	c.net.speciesByKey[sp.Key] = sp
+	sp.index = len(c.net.Species)
+	c.net.Species = append(c.net.Species, sp)
+	if parts.State != "" {
+		if ph, ok := c.net.Phases[parts.State]; ok {
+			sp.Phase = ph
+		} else {
+			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase", parts.State)
+		}
+	}
+	return sp
+}
+
+// declaredSpecies is a species statement whose species are declared and
+// whose data remain to be read.
+type declaredSpecies struct {
+	st       *lang.Species
+	declared []*Species
+}
+
+// declareAll declares the species of a statement. Its result has no
+// species when there are no data to read.
+func (c *compiler) declareAll(s *lang.Species, broken bool) declaredSpecies {
+	var declared []*Species
+	for _, ref := range s.Refs {
+		if ref == nil {
+			continue
+		}
+		if sp := c.declare(ref, s, broken); sp != nil {
+			declared = append(declared, sp)
+		}
+	}
+	if broken {
+		return declaredSpecies{}
+	}
+	if len(s.Refs) > 1 && s.HasBody {
+		c.report("syntax", keywordSpan(&s.Node), "a species list declares species without data; give each species with data its own statement")
+		return declaredSpecies{}
+	}
+	return declaredSpecies{st: s, declared: declared}
+}
+
+// speciesData reads the data and formulas of declared species, in
+// parallel: each statement touches only its own species.
+func (c *compiler) speciesData(list []declaredSpecies) {
+	diags := make([]lang.Diagnostics, len(list))
+	parallel(len(list), 256, func() func(i int) {
+		w := &compiler{net: c.net}
+		return func(i int) {
+			w.out = &diags[i]
+			w.speciesStatement(list[i])
+		}
+	})
+	for _, ds := range diags {
+		c.net.Diagnostics = append(c.net.Diagnostics, ds...)
+	}
+}
+
+// speciesStatement reads one statement's data and formulas.
+func (c *compiler) speciesStatement(d declaredSpecies) {
+	s := d.st
+	var formulaText string
+	var formulaSpan lang.Span
+	if len(d.declared) == 1 {
+		sp := d.declared[0]
+		if s.Label != nil {
+			sp.Label, _ = lang.Unquote(s.Label.Raw)
+		}
+		formulaText, formulaSpan = c.properties(sp, s.Props)
+	}
+	for _, sp := range d.declared {
+		c.formula(sp, formulaText, formulaSpan)
+	}
+}
+
+// givenOnce records where each property of a block was first given.
+// Blocks are short, so a list serves.
+type givenOnce []struct {
+	name string
+	at   lang.Span
+}
+
+// add records name given at at, unless it was given before; then it
+// returns where, and dup is true.
+func (g *givenOnce) add(name string, at lang.Span) (first lang.Span, dup bool) {
+	for _, e := range *g {
+		if e.name == name {
+			return e.at, true
+		}
+	}
+	*g = append(*g, struct {
+		name string
+		at   lang.Span
+	}{name, at})
+	return lang.Span{}, false
+}
+
+// properties reads a species block. It returns the explicit formula, if any.
+func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (string, lang.Span) {
+	var seen givenOnce
+	var formula string
+	var formulaSpan lang.Span
+	for _, pr := range props {
+		key := keywordSpan(&pr.Node)
+		name := pr.Tokens[0].Value
+		if name != "shomate" && name != "nasa7" {
+			if first, dup := seen.add(name, key); dup {
+				d := c.report("syntax", key, "%s is given twice for %s", name, sp.Key)
+				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
+				continue
+			}
+		}
+		switch {
+		case pr.Formula != nil:
+			formula, formulaSpan = pr.Formula.Formula.Text, pr.Formula.Formula.Span()
+		case pr.Value != nil:
+			kind := energyKind
+			if pr.Value.Key == "s" || pr.Value.Key == "cp" {
+				kind = entropyKind
+			}
+			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
+			if !ok {
+				continue
+			}
+			switch pr.Value.Key {
+			case "hf":
+				sp.Hf = v
+			case "gf":
+				sp.Gf = v
+			case "s":
+				sp.S = v
+			case "cp":
+				sp.Cp = v
+			}
+		case pr.Poly != nil:
+			c.polynomial(sp, pr.Poly)
+		case pr.Text != nil:
+			text, _ := lang.Unquote(pr.Text.Text.Raw)
+			if pr.Text.Key == "source" {
+				sp.Source = text
+			} else {
+				sp.Note = text
+			}
+		}
+	}
+	return formula, formulaSpan
+}
+
+var polyCoefficients = map[string]int{"shomate": 8, "nasa7": 7}
+
+func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
+	want := polyCoefficients[p.Kind]
+	if len(p.Coeffs) != want {
+		names := "A to H"
+		if p.Kind == "nasa7" {
+			names = "a1 to a7"
+		}
+		c.report("syntax", keywordSpan(&p.Node), "%s takes %d coefficients (%s), found %d", p.Kind, want, names, len(p.Coeffs))
+		return
+	}
+	from, ok1 := c.quantity(p.From, temperatureKind, "range start", false)
+	to, ok2 := c.quantity(p.To, temperatureKind, "range end", false)
+	coeffs := make([]float64, 0, want)
+	ok3 := true
+	for _, num := range p.Coeffs {
+		v, ok := c.number(num)
+		ok3 = ok3 && ok
+		coeffs = append(coeffs, v)
+	}
+	if !ok1 || !ok2 || !ok3 {
+		return
+	}
+	if from.V <= 0 || to.V <= from.V {
+		c.report("implausible-value", p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
+		return
+	}
+	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
+		Header: keywordSpan(&p.Node).Join(p.To.Span())})
+}
+
+// formula parses the species' formula: the explicit one if given, else
+// the base of its reference.
+func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span) {
+	if sp.Parts.Electron && explicit == "" {
+		sp.HasFormula = true
+		return
+	}
+	text, span, offset := sp.Parts.Base, sp.Span, 0
+	if explicit != "" {
+		parts, err := lang.SplitRef(explicit)
+		if err != nil || parts.State != "" || parts.HasCharge {
+			c.report("bad-formula", explicitSpan, "formula %s: give the elements only; the charge and state tag belong to the species name", explicit)
+			return
+		}
+		text, span = explicit, explicitSpan
+	}
+	f, ferr := chem.ParseFormula(text, c.net.Elements)
+	if ferr != nil {
+		sub := subSpan(span, text, offset+ferr.Offset, offset+ferr.End)
+		msg := ferr.Message
+		if explicit == "" && (ferr.Code == "unknown-element" || strings.ToLower(text[:1]) == text[:1]) {
+			msg += "; a species whose name is not a formula declares one with `formula`"
+		}
+		c.report(ferr.Code, sub, "%s", msg)
+		return
+	}
+	sp.Formula = f
+	sp.HasFormula = true
+	sp.ints.counts, sp.ints.ok = formulaInts(f)
+	sp.ints.known = true
+}
+
+// subSpan narrows a one-line span that starts with text to the bytes
+// [from, to) of text.
+func subSpan(span lang.Span, text string, from, to int) lang.Span {
+	if from < 0 || to > len(text) || from > to {
+		return span
+	}
+	out := span
+	out.Start.Offset += from
+	out.Start.Column += utf8.RuneCountInString(text[:from])
+	out.End = out.Start
+	out.End.Offset += to - from
+	out.End.Column += utf8.RuneCountInString(text[from:to])
+	if to == from {
+		out.End.Column++
+		out.End.Offset++
+		if from >= len(text) {
+			out.End = out.Start
+		}
+	}
+	return out
+}
