@@ -104,25 +104,10 @@ func (p *formulaParser) parse() (Formula, *FormulaError) {
 		c := s[p.pos]
 		switch {
 		case asciiUpper(c):
-			start := p.pos
-			p.pos++
-			for p.pos < len(s) && asciiLower(s[p.pos]) {
-				p.pos++
-			}
-			symbol := s[start:p.pos]
-			e, ok := p.t.Lookup(symbol)
-			if !ok {
-				return Formula{}, &FormulaError{Code: "unknown-element", Offset: start, End: p.pos,
-					Message: fmt.Sprintf("unknown element %q", clip(symbol))}
-			}
-			n, has, err := p.count()
-			if err != nil {
+			var err *FormulaError
+			if entries, err = p.element(entries, stack[len(stack)-1].start); err != nil {
 				return Formula{}, err
 			}
-			if !has {
-				n = amount{n: 1}
-			}
-			entries = addCount(entries, stack[len(stack)-1].start, e.Symbol, n)
 
 		case c == '(' || c == '[':
 			if len(stack)-1 >= maxGroupDepth {
@@ -193,6 +178,31 @@ func (p *formulaParser) parse() (Formula, *FormulaError) {
 	}
 	entries = mergeCounts(entries, 0, stack[0].start, partMult, hasPartMult)
 	return newFormula(entries), nil
+}
+
+// element reads the element symbol at p.pos and its count, and adds them
+// to the counts entries[start:].
+func (p *formulaParser) element(entries []countEntry, start int) ([]countEntry, *FormulaError) {
+	s := p.s
+	at := p.pos
+	p.pos++
+	for p.pos < len(s) && asciiLower(s[p.pos]) {
+		p.pos++
+	}
+	symbol := s[at:p.pos]
+	e, ok := p.t.Lookup(symbol)
+	if !ok {
+		return entries, &FormulaError{Code: "unknown-element", Offset: at, End: p.pos,
+			Message: fmt.Sprintf("unknown element %q", clip(symbol))}
+	}
+	n, has, err := p.count()
+	if err != nil {
+		return entries, err
+	}
+	if !has {
+		n = amount{n: 1}
+	}
+	return addCount(entries, start, e.Symbol, n), nil
 }
 
 // addCount adds n atoms of symbol to the counts entries[start:].

@@ -124,76 +124,84 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 			unit = u
 		}
 	}
+	return mm, c.memberKind(&mm, m, unit)
+}
+
+// memberKind classifies a member's amount by its species' activity
+// convention, converting it to SI. It reports false, having reported why,
+// when the amount does not fit the convention.
+func (c *compiler) memberKind(mm *MixMember, m *lang.MixMember, unit thermo.Unit) bool {
+	sp, q := mm.Species, m.Amount
 	name := sp.Key
 	switch sp.Activity() {
 	case thermo.ActivityGas:
 		switch {
 		case q == nil:
 			c.report("mixture-amount", m.Span(), "%s is a gas: give its mole fraction (a bare number) or its partial pressure (such as 0.5 bar)", name)
-			return mm, false
+			return false
 		case q.Unit == nil:
 			if mm.Amount.V < 0 {
 				c.report("mixture-amount", q.Span(), "mole fraction of %s is negative (%s)", name, q.Value.Text)
-				return mm, false
+				return false
 			}
 			mm.Kind = AmountFraction // zero is judged with the other fractions
 		case unit.Dim == thermo.DimPressure:
 			mm.Amount.V = unit.ToSI(mm.Amount.V)
 			if !(mm.Amount.V > 0) {
 				c.report("mixture-amount", q.Span(), "partial pressure of %s must be above 0, found %s", name, quantityText(q))
-				return mm, false
+				return false
 			}
 			mm.Kind = AmountPartialPressure
 		default:
 			c.report("mixture-amount", q.Unit.Span(), "%s is a gas: its amount is a mole fraction (a bare number) or a partial pressure, not %s (%s)",
 				name, thermo.DimName(unit.Dim), q.Unit.Text)
-			return mm, false
+			return false
 		}
 	case thermo.ActivitySolute:
 		switch {
 		case q == nil:
 			c.report("mixture-amount", m.Span(), "%s is a solute: give its molality, such as 0.01 mol/kg", name)
-			return mm, false
+			return false
 		case q.Unit == nil:
 			c.report("missing-unit", q.Span(), "molality of %s needs a unit, such as mol/kg", name)
-			return mm, false
+			return false
 		case unit.Dim == thermo.DimMolality:
 			mm.Amount.V = unit.ToSI(mm.Amount.V)
 			if !(mm.Amount.V > 0) {
 				c.report("mixture-amount", q.Span(), "molality of %s must be above 0, found %s", name, quantityText(q))
-				return mm, false
+				return false
 			}
 			mm.Kind = AmountMolality
 		default:
 			c.report("mixture-amount", q.Unit.Span(), "%s is a solute: its amount is a molality in mol/kg, not %s (%s)",
 				name, thermo.DimName(unit.Dim), q.Unit.Text)
-			return mm, false
+			return false
 		}
 	case thermo.ActivitySolution:
 		switch {
 		case q == nil:
 			c.report("mixture-amount", m.Span(), "%s is a member of solution phase %s: give its mole fraction (a bare number)", name, sp.Phase.Tag)
-			return mm, false
+			return false
 		case q.Unit != nil:
 			c.report("mixture-amount", q.Unit.Span(), "%s is a member of solution phase %s: its mole fraction is a bare number, without %s",
 				name, sp.Phase.Tag, q.Unit.Text)
-			return mm, false
+			return false
 		case !(mm.Amount.V > 0 && mm.Amount.V <= 1):
 			c.report("mixture-amount", q.Span(), "mole fraction of %s must be above 0 and at most 1, found %s", name, q.Value.Text)
-			return mm, false
+			return false
 		}
 		mm.Kind = AmountSolution
 	case thermo.ActivityPureSolid, thermo.ActivityPureLiquid:
 		if q != nil {
 			c.report("mixture-amount", q.Span(), "%s is a pure phase: list it without a number to mark it present (its activity is 1)", name)
-			return mm, false
+			return false
 		}
 		mm.Kind = AmountPresent
 	default:
 		c.report("mixture-amount", m.Species.Span(), "%s has no known phase, so its activity in a mixture is unknown", name)
-		return mm, false
+		return false
 	}
-	return mm, true
+	return true
 }
 
 // unitNotUnit reports a mixture amount whose unit token is no unit. After
