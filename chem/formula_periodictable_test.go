@@ -265,35 +265,7 @@ func TestFormulasAgainstPeriodictable(t *testing.T) {
 		}
 	}
 
-	// The element list itself: symbols by atomic number, names, and which
-	// elements have a measured atomic weight rather than a mass number.
-	if len(res.Elements) != 118 {
-		t.Fatalf("periodictable lists %d elements, want 118", len(res.Elements))
-	}
-	// IUPAC spells these names differently from the library.
-	spelling := map[string]string{"aluminum": "aluminium", "cesium": "caesium"}
-	byZ := make(map[int]Element)
-	for _, e := range BuiltinElements().Elements() {
-		byZ[e.Z] = e
-	}
-	for _, le := range res.Elements {
-		e, ok := byZ[le.Z]
-		if !ok {
-			t.Errorf("Z=%d (%s) missing", le.Z, le.Symbol)
-			continue
-		}
-		name := le.Name
-		if s, ok := spelling[name]; ok {
-			name = s
-		}
-		if e.Symbol != le.Symbol || e.Name != name {
-			t.Errorf("Z=%d: %s %s, periodictable %s %s", le.Z, e.Symbol, e.Name, le.Symbol, le.Name)
-		}
-		if e.HasWeight == le.Nominal {
-			t.Errorf("%s: has weight %v, but periodictable gives %v (mass number: %v)",
-				e.Symbol, e.HasWeight, le.Mass, le.Nominal)
-		}
-	}
+	compareElementList(t, res.Elements)
 }
 
 func TestGeneratedFormulasMatchReference(t *testing.T) {
@@ -309,6 +281,40 @@ func TestGeneratedFormulasMatchReference(t *testing.T) {
 		}
 		if msg := sameCounts(f, want); msg != "" {
 			t.Errorf("%q: %s", in, msg)
+		}
+	}
+}
+
+// compareElementList compares the built-in table with the library's list:
+// symbols by atomic number, names, and which elements have a measured
+// atomic weight rather than a mass number.
+func compareElementList(t *testing.T, elements []periodictableElement) {
+	t.Helper()
+	if len(elements) != 118 {
+		t.Fatalf("periodictable lists %d elements, want 118", len(elements))
+	}
+	// IUPAC spells these names differently from the library.
+	spelling := map[string]string{"aluminum": "aluminium", "cesium": "caesium"}
+	byZ := make(map[int]Element)
+	for _, e := range BuiltinElements().Elements() {
+		byZ[e.Z] = e
+	}
+	for _, le := range elements {
+		e, ok := byZ[le.Z]
+		if !ok {
+			t.Errorf("Z=%d (%s) missing", le.Z, le.Symbol)
+			continue
+		}
+		name := le.Name
+		if s, ok := spelling[name]; ok {
+			name = s
+		}
+		if e.Symbol != le.Symbol || e.Name != name {
+			t.Errorf("Z=%d: %s %s, periodictable %s %s", le.Z, e.Symbol, e.Name, le.Symbol, le.Name)
+		}
+		if e.HasWeight == le.Nominal {
+			t.Errorf("%s: has weight %v, but periodictable gives %v (mass number: %v)",
+				e.Symbol, e.HasWeight, le.Mass, le.Nominal)
 		}
 	}
 }
