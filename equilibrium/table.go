@@ -34,7 +34,7 @@ func ReactionTable(n *network.Network, rx *network.Reaction, temps []float64) *T
 		return nil
 	}
 	k := n.ReactionK(rx)
-	terms := rx.NetTerms()
+	terms := k.Terms()
 	t := &Table{
 		Reaction:         rx,
 		Kind:             kindOf(terms),

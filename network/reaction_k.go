@@ -355,6 +355,10 @@ func (c *ReactionK) DeltaG(T float64) float64 {
 // takes ΔrG° from it wherever it is finite.
 func (c *ReactionK) Species() (thermo.Reaction, bool) { return c.abs, c.absOK }
 
+// Terms are the reaction's net terms (Reaction.NetTerms), shared: the
+// caller must not change them.
+func (c *ReactionK) Terms() []NetTerm { return c.terms }
+
 // DeltaGasMoles is Δn, the net change in moles of gas.
 func (c *ReactionK) DeltaGasMoles() float64 { return c.dn }
 
