@@ -187,3 +187,22 @@ func TestCheckTableMarkdown(t *testing.T) {
 		}
 	}
 }
+
+// TestDocsKeywords requires the grammar of the language reference to name
+// every reserved word of the language.
+func TestDocsKeywords(t *testing.T) {
+	raw, err := os.ReadFile(languageReference)
+	if err != nil {
+		t.Fatalf("the language reference must be in the repository: %v", err)
+	}
+	_, grammar, ok := strings.Cut(string(raw), "```ebnf\n")
+	if !ok {
+		t.Fatalf("%s has no ebnf block", languageReference)
+	}
+	grammar, _, _ = strings.Cut(grammar, "```")
+	for _, kw := range lang.Keywords() {
+		if !strings.Contains(grammar, `"`+kw+`"`) {
+			t.Errorf("the grammar in %s does not use the keyword %q", languageReference, kw)
+		}
+	}
+}
