@@ -219,8 +219,11 @@ func meanKernel(u float64) float64 {
 			term *= -u
 		}
 		return sum
+	case math.IsInf(u, 1):
+		return 0
 	case u > 1e8:
-		return 0.5 / u
+		// the closed form divided through by u³, which would overflow
+		return (0.5 - 1/u + math.Log1p(u)/u/u) / u
 	}
 	return (u*u/2 - u + math.Log1p(u)) / (u * u * u)
 }
