@@ -30,9 +30,10 @@ func (w WaterMethod) String() string {
 
 // Water is the activity of water in a solution.
 type Water struct {
-	Activity float64     // a_w
-	Osmotic  float64     // osmotic coefficient φ (1 when there are no solutes; 0 for WaterApproximate)
-	Method   WaterMethod // how Activity was obtained
+	Activity   float64     // a_w
+	LnActivity float64     // ln a_w, exact where a_w rounds to 1 (−Inf when a_w is 0)
+	Osmotic    float64     // osmotic coefficient φ (1 when there are no solutes; 0 for WaterApproximate)
+	Method     WaterMethod // how Activity was obtained
 }
 
 // WaterActivity returns the activity of water in the solution of solutes under
@@ -55,10 +56,11 @@ func WaterActivity(m Model, solutes []Solute, p Params) Water {
 	}
 	om, ok := m.(Osmotic)
 	if !ok {
-		return Water{Activity: math.Max(0, 1-0.017*total), Method: WaterApproximate}
+		aw := math.Max(0, 1-0.017*total)
+		return Water{Activity: aw, LnActivity: math.Log(aw), Method: WaterApproximate}
 	}
 	if total == 0 {
-		return Water{Activity: 1, Osmotic: 1, Method: WaterGibbsDuhem}
+		return Water{Activity: 1, LnActivity: 0, Osmotic: 1, Method: WaterGibbsDuhem}
 	}
 	I := IonicStrength(solutes)
 	excess := 0.0
@@ -74,5 +76,6 @@ func WaterActivity(m Model, solutes []Solute, p Params) Water {
 		}
 	}
 	sum := total + math.Ln10*excess
-	return Water{Activity: math.Exp(-MolarMassWater * sum), Osmotic: sum / total, Method: WaterGibbsDuhem}
+	ln := -MolarMassWater * sum
+	return Water{Activity: math.Exp(ln), LnActivity: ln, Osmotic: sum / total, Method: WaterGibbsDuhem}
 }
