@@ -49,6 +49,11 @@ type Water struct {
 // with K_i(I) = log10 γ_i(I) − (1/I) ∫₀^I log10 γ_i(x) dx (see Osmotic). For
 // the ideal model this is ln a_w = −M_w Σm (φ = 1). Other models fall back to
 // a_w = 1 − 0.017 Σm (common practice; never below 0).
+//
+// Beyond a model's range the result may be unphysical: the Debye–Hückel forms
+// without a linear term drive φ negative at high I, so a_w exceeds 1 (and can
+// overflow to +Inf while LnActivity stays finite). CheckIonicStrength reports
+// that range.
 func WaterActivity(m Model, solutes []Solute, p Params) Water {
 	total := 0.0
 	for _, s := range solutes {
