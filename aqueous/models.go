@@ -227,3 +227,13 @@ func meanKernel(u float64) float64 {
 	}
 	return (u*u/2 - u + math.Log1p(u)) / (u * u * u)
 }
+
+// UsesIonSize reports whether model m reads the ion-size parameter å, so a
+// caller can diagnose ions that lack one (they fall back to the limiting law).
+func UsesIonSize(m Model) bool {
+	s, ok := m.(interface{ usesIonSize() bool })
+	return ok && s.usesIonSize()
+}
+
+func (DebyeHuckel) usesIonSize() bool { return true }
+func (BDot) usesIonSize() bool        { return true }

@@ -152,3 +152,12 @@ func TestValidity(t *testing.T) {
 		t.Errorf("message %q\nwant    %q", err.Error(), want)
 	}
 }
+
+func TestUsesIonSize(t *testing.T) {
+	want := map[string]bool{NameIdeal: false, NameDavies: false, NameDebyeHuckel: true, NameBDot: true}
+	for _, m := range Models() {
+		if got := UsesIonSize(m); got != want[m.Name()] {
+			t.Errorf("UsesIonSize(%s) = %v", m.Name(), got)
+		}
+	}
+}
