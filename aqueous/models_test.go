@@ -161,3 +161,16 @@ func TestUsesIonSize(t *testing.T) {
 		}
 	}
 }
+
+func TestLogGammaAt(t *testing.T) {
+	na := Solute{Charge: 1, Size: 4}
+	got, err := LogGammaAt(Davies{}, na, 0.1, 298.15)
+	p, _ := ParamsAt(298.15)
+	if err != nil || got != (Davies{}).LogGamma(1, 4, 0.1, p) {
+		t.Errorf("LogGammaAt = %v, %v", got, err)
+	}
+	var re *RangeError
+	if got, err := LogGammaAt(Davies{}, na, 0.1, 473.15); !errors.As(err, &re) || got != 0 {
+		t.Errorf("LogGammaAt at 200 °C = %v, %v; want a range error", got, err)
+	}
+}
