@@ -23,8 +23,9 @@ var naclGamma = []struct{ m, gamma float64 }{
 	{1.0, 0.657},
 }
 
-// Kielland's ion-size parameters (J. Am. Chem. Soc. 59 (1937) 1675, from
-// memory): Na+ 4–4.5 Å (4 taken), Cl− 3 Å.
+// Kielland's ion-size parameters (J. Am. Chem. Soc. 59 (1937) 1675), as
+// reprinted in W. M. White, Geochemistry (Wiley 2013) from Garrels & Christ:
+// Na+ 4.0–4.5 Å (4 taken), Cl− 3 Å.
 var (
 	sodium   = Solute{Charge: 1, Size: 4}
 	chloride = Solute{Charge: -1, Size: 3}

@@ -23,6 +23,13 @@ func TestWaterAt25C(t *testing.T) {
 	if rho4, _ := Density(zeroCelsius + 4); math.Abs(rho4/1000-0.999972) > 3e-6 {
 		t.Errorf("ρ(4 °C) = %.7f g/cm³, want 0.999972 (CRC, from memory)", rho4/1000)
 	}
+	// CRC Handbook, density of water (from memory): 0.99984 at 0 °C, 0.98804 at
+	// 50 °C, 0.95835 at 100 °C (g/cm³).
+	for _, c := range []struct{ tC, want float64 }{{0, 0.99984}, {50, 0.98804}, {100, 0.95835}} {
+		if r, _ := Density(zeroCelsius + c.tC); math.Abs(r/1000-c.want) > 2e-5 {
+			t.Errorf("ρ(%g °C) = %.6f g/cm³, want %.5f (CRC, from memory)", c.tC, r/1000, c.want)
+		}
+	}
 	for _, dt := range []float64{3, 5} {
 		if r, _ := Density(zeroCelsius + dt); r > func() float64 { r4, _ := Density(zeroCelsius + 4); return r4 }() {
 			t.Errorf("ρ(%g °C) exceeds ρ(4 °C): the maximum is misplaced", dt)
@@ -43,7 +50,7 @@ func TestWaterAt25C(t *testing.T) {
 	if math.Abs(eps-78.4) > 0.15 {
 		t.Errorf("ε(25 °C) = %.3f, want ≈ 78.4 (CRC) within 0.15", eps)
 	}
-	// Malmberg & Maryott (1956) eq. (4) end points: 87.740 at 0 °C; at 100 °C
+	// Malmberg & Maryott's fitted equation at its end points: 87.740 at 0 °C; at 100 °C
 	// 87.740 − 40.008 + 9.398 − 1.410 = 55.720.
 	for _, c := range []struct{ t, want float64 }{{0, 87.740}, {100, 55.720}} {
 		if e, _ := Permittivity(zeroCelsius + c.t); math.Abs(e-c.want) > 1e-9 {
