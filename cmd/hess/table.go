@@ -52,7 +52,7 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 		return exitTrouble
 	}
 	if *out != "" {
-		if err := writeFileAtomic(*out, data); err != nil {
+		if err := writeOutput(*out, doc.net, data); err != nil {
 			fmt.Fprintf(stderr, "hess table: %v\n", err)
 			return exitTrouble
 		}

@@ -256,7 +256,7 @@ func (w *watcher) writeTable(net *network.Network) error {
 	if err != nil {
 		return fmt.Errorf("rendering the table: %w", err)
 	}
-	return writeFileAtomic(w.opts.table, data)
+	return writeOutput(w.opts.table, net, data)
 }
 
 // mergedReport is one report of several networks: every file once, every
