@@ -196,7 +196,7 @@ func compileRoot(cmd, root string, stderr io.Writer) (*network.Network, int) {
 	}
 	net := network.Load(root, network.Disk{})
 	if len(net.Files) == 0 {
-		fmt.Fprintf(stderr, "hess %s: cannot read %s\n", cmd, root)
+		fmt.Fprintf(stderr, "hess %s: %s\n", cmd, unreadableRoot(root, net))
 		return nil, exitTrouble
 	}
 	return net, exitOK

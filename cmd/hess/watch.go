@@ -197,7 +197,7 @@ func (w *watcher) rebuild(why string) {
 		}
 		net := network.Load(root, network.Disk{})
 		if len(net.Files) == 0 {
-			fmt.Fprintf(&buf, "%s cannot read %s; waiting for it\n", w.stamp(), displayName(root))
+			fmt.Fprintf(&buf, "%s %s; waiting for it\n", w.stamp(), unreadableRoot(displayName(root), net))
 			missing = true
 			continue
 		}
