@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"strings"
 	"testing"
+	"unicode/utf8"
 
 	"hess/lang"
 	"hess/network"
@@ -751,6 +752,8 @@ func FuzzRenderText(f *testing.F) {
 	f.Add([]byte("\t\xff\x00x\r\n"), 1, 3, 2, 1)
 	f.Add([]byte(""), 1, 1, 1, 1)
 	f.Add([]byte("ab\ncd"), 2, -5, 1, 99)
+	f.Add([]byte(strings.Repeat("species H2(g) ", 40)), 1, 300, 1, 305)
+	f.Add([]byte(strings.Repeat("é\t", 300)), 1, 200, 1, 599)
 	f.Fuzz(func(t *testing.T, src []byte, line, col, endLine, endCol int) {
 		r := &report{
 			Files: []string{"f.hess"},
@@ -764,8 +767,16 @@ func FuzzRenderText(f *testing.F) {
 		if err := renderText(&buf, r, true); err != nil {
 			t.Fatalf("renderText: %v", err)
 		}
-		if strings.Contains(buf.String(), " |") && !strings.Contains(buf.String(), "^") {
+		lines := strings.Split(buf.String(), "\n")
+		if len(lines) > 3 && !strings.Contains(lines[2], "^") {
 			t.Errorf("snippet without a marker:\n%s", buf.String())
+		}
+		for _, l := range lines {
+			// A window of context, marks and slack, the indent, two
+			// ellipses and the colour codes.
+			if n := utf8.RuneCountInString(l); n > 2*(snippetContext+snippetSlack)+snippetMarkMax+40 {
+				t.Errorf("a line of %d code points: the snippet is not windowed", n)
+			}
 		}
 		if err := renderJSON(&bytes.Buffer{}, r); err != nil {
 			t.Fatalf("renderJSON: %v", err)
