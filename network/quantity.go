@@ -139,5 +139,9 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 	} else {
 		out.V = u.ToSI(v)
 	}
+	if math.IsInf(out.V, 0) || math.IsInf(out.Sigma, 0) || math.IsNaN(out.V) {
+		c.report("syntax", q.Span(), "%s %s %s is out of range once converted to SI units", what, q.Value.Text, q.Unit.Text)
+		return nil, false
+	}
 	return out, true
 }

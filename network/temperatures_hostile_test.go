@@ -65,3 +65,16 @@ func TestShortLargeNumbers(t *testing.T) {
 		}
 	}
 }
+
+// A value that overflows when converted to SI is reported, not carried on
+// as +Inf.
+func TestConversionOverflowReported(t *testing.T) {
+	src := "species H2(g) { hf 1e308 kJ/mol }\n"
+	net := Load("/hostile/big.hess", Overlay{Files: map[string][]byte{"/hostile/big.hess": []byte(src)}})
+	for _, d := range net.Diagnostics {
+		if strings.Contains(d.Message, "out of range once converted") {
+			return
+		}
+	}
+	t.Errorf("no out-of-range diagnostic: %v", net.Diagnostics)
+}
