@@ -169,7 +169,7 @@ func (e diagError) Error() string {
 	for _, d := range e {
 		if d.Severity == Error {
 			n := Diagnostics(e).Count(Error)
-			msg := fmt.Sprintf("%s: %s[%s]: %s", d.Subject, d.Severity, d.Code, d.Message)
+			msg := fmt.Sprintf("%s: %s: %s [%s]", d.Subject, d.Severity, d.Message, d.Code)
 			if n > 1 {
 				msg += fmt.Sprintf(" (and %d more errors)", n-1)
 			}

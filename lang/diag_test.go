@@ -81,11 +81,11 @@ func TestDiagnostics(t *testing.T) {
 	if err == nil {
 		t.Fatal("Err() is nil with errors present")
 	}
-	if want := "a.hess:1:9: error[syntax]: e0 (and 2 more errors)"; err.Error() != want {
+	if want := "a.hess:1:9: error: e0 [syntax] (and 2 more errors)"; err.Error() != want {
 		t.Errorf("Err() = %q, want %q", err, want)
 	}
 	one := Diagnostics{{Code: "syntax", Severity: Error, Message: "only", Subject: at("a.hess", 1, 1)}}
-	if got := one.Err().Error(); got != "a.hess:1:1: error[syntax]: only" {
+	if got := one.Err().Error(); got != "a.hess:1:1: error: only [syntax]" {
 		t.Errorf("Err() = %q", got)
 	}
 	// No typed nil: a list without errors gives a nil error interface.

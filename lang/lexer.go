@@ -285,6 +285,13 @@ func (l *lexState) word() {
 			w = w[2:]
 			continue
 		}
+		// Numbers are decimal: `0x1p3` is one bad number, not 0 with a unit.
+		if n := numberPrefix(w); n > 0 && n < len(w) && (w[n] == 'x' || w[n] == 'X') && strings.TrimLeft(w[:n], "+-") == "0" {
+			start := l.pos()
+			l.emit(Number, len(w))
+			l.errorf(start, "hexadecimal numbers are not part of the language: write numbers in decimal, such as 8 or 1.5e3")
+			return
+		}
 		// A number that runs into letters is two tokens: `298.15K`, `2H2O(g)`.
 		if n := numberPrefix(w); n > 0 && n < len(w) && (startsLetter(w[n:]) || strings.HasPrefix(w[n:], "+-")) {
 			l.emit(Number, n)

@@ -33,6 +33,9 @@ type stream struct {
 	log    *log.Logger
 
 	wmu sync.Mutex // one message at a time on w
+
+	idmu sync.Mutex
+	ids  map[string]json.RawMessage // stand-in string id → numeric id as sent
 }
 
 func newStream(r io.Reader, w io.Writer, closer io.Closer, logger *log.Logger) *stream {
@@ -45,7 +48,86 @@ func (s *stream) WriteObject(obj any) error {
 	if err != nil {
 		return fmt.Errorf("encoding message: %w", err)
 	}
-	return s.writeBody(body)
+	return s.writeBody(s.restoreID(body))
+}
+
+// idStandIn starts the string that stands in for a numeric request id the
+// JSON-RPC connection cannot hold. The NUL keeps it apart from any id a
+// client writes as a string.
+const idStandIn = "\x00id:"
+
+// holdID makes a request's id survive the connection exactly as sent.
+// jsonrpc2 keeps a numeric id as an int64 cast to uint64, so a negative id
+// (-1) would be answered as 18446744073709551615, and a fraction, an
+// exponent or a number past int64 would be refused. Such an id is replaced
+// by a string stand-in, and restoreID puts the original text back in the
+// response. Every other body is returned as it is.
+func (s *stream) holdID(body []byte) []byte {
+	var msg map[string]json.RawMessage
+	if json.Unmarshal(body, &msg) != nil {
+		return body
+	}
+	id, ok := msg["id"]
+	if !ok || len(id) == 0 || !(id[0] == '-' || ('0' <= id[0] && id[0] <= '9')) || keptNumericID(id) {
+		return body
+	}
+	standIn := idStandIn + string(id)
+	msg["id"], _ = json.Marshal(standIn)
+	out, err := json.Marshal(msg)
+	if err != nil {
+		return body
+	}
+	s.idmu.Lock()
+	if s.ids == nil {
+		s.ids = map[string]json.RawMessage{}
+	}
+	if len(s.ids) < maxHeldIDs {
+		s.ids[standIn] = append(json.RawMessage(nil), id...)
+	}
+	s.idmu.Unlock()
+	return out
+}
+
+// maxHeldIDs bounds the ids waiting for their responses; a client that
+// sends more unanswered odd ids than this gets the stand-in back.
+const maxHeldIDs = 1 << 16
+
+// keptNumericID reports whether jsonrpc2 holds the numeric id exactly: a
+// plain non-negative integer within int64.
+func keptNumericID(id json.RawMessage) bool {
+	if len(id) > 1 && id[0] == '0' {
+		return false
+	}
+	_, err := strconv.ParseInt(string(id), 10, 64)
+	return err == nil && id[0] != '-'
+}
+
+// restoreID puts a held numeric id back into a response body.
+func (s *stream) restoreID(body []byte) []byte {
+	s.idmu.Lock()
+	defer s.idmu.Unlock()
+	if len(s.ids) == 0 || !bytes.Contains(body, []byte(`"\u0000id:`)) {
+		return body
+	}
+	var msg map[string]json.RawMessage
+	if json.Unmarshal(body, &msg) != nil {
+		return body
+	}
+	var standIn string
+	if json.Unmarshal(msg["id"], &standIn) != nil {
+		return body
+	}
+	id, ok := s.ids[standIn]
+	if !ok {
+		return body
+	}
+	delete(s.ids, standIn)
+	msg["id"] = id
+	out, err := json.Marshal(msg)
+	if err != nil {
+		return body
+	}
+	return out
 }
 
 func (s *stream) writeBody(body []byte) error {
@@ -69,6 +151,7 @@ func (s *stream) ReadObject(v any) error {
 		if err != nil {
 			return err
 		}
+		body = s.holdID(body)
 		if err := json.Unmarshal(body, v); err != nil {
 			s.reject(body, err)
 			continue

@@ -1,6 +1,9 @@
 package network
 
 import (
+	"errors"
+	"math"
+	"strconv"
 	"strings"
 
 	"hess/chem"
@@ -72,6 +75,52 @@ func (c *compiler) phase(p *lang.Phase) {
 // maxTemperatures bounds the size of a temperature list.
 const maxTemperatures = 10000
 
+// maxTemperature is the highest temperature a list may name: far above any
+// gas-phase chemistry, low enough that every formula of T stays finite.
+const maxTemperature = 1e6
+
+// minTemperature is the lowest temperature a list may name (1 mK): below
+// it the numbers printed would read 0 K.
+const minTemperature = 1e-3
+
+// temperatureInRange reports whether T, written as q, is one hess can
+// compute at, and reports it when it is not.
+func (c *compiler) temperatureInRange(T float64, q *lang.Quantity) bool {
+	switch {
+	case T > maxTemperature:
+		c.report("syntax", q.Span(), "temperature %s is above %s, the highest temperature hess computes at", quantityText(q), kelvin(maxTemperature))
+		return false
+	case T < minTemperature:
+		c.report("syntax", q.Span(), "temperature %s is below %s, the lowest temperature hess computes at", quantityText(q), kelvin(minTemperature))
+		return false
+	}
+	return true
+}
+
+// stepCount returns how many temperatures from, from+step, … reach to
+// (to ≥ from, step > 0), counted rather than stepped so that a step below
+// the spacing of floating-point numbers near from cannot loop. It fails when
+// the step does not move from (too small to tell two temperatures apart).
+func stepCount(from, to, step float64) (float64, error) {
+	if from+step == from || to-step == to {
+		return 0, errors.New("too small to tell temperatures apart at this range")
+	}
+	span := (to - from) / step
+	if math.IsInf(span, 0) || math.IsNaN(span) || span > 1e15 {
+		return math.Inf(1), nil
+	}
+	return math.Floor(span+1e-9) + 1, nil
+}
+
+// countText writes a count for a message: digits up to 10^15, else "more
+// than 10^15".
+func countText(n float64) string {
+	if n > 1e15 {
+		return "more than 10^15"
+	}
+	return strconv.FormatFloat(n, 'f', 0, 64)
+}
+
 func (c *compiler) settings(s *lang.Settings) {
 	set := &c.net.Settings
 	set.Span = s.Span()
@@ -135,6 +184,10 @@ func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
 					ok = false
 					continue
 				}
+				if !c.temperatureInRange(from.V, it.From) {
+					ok = false
+					continue
+				}
 				out = append(out, from.V)
 			}
 			ok = ok && ok1
@@ -151,6 +204,9 @@ func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
 			c.report("implausible-value", it.Span(), "temperature range %s to %s reaches absolute zero or below", quantityText(it.From), quantityText(it.To))
 			ok = false
 			continue
+		case !c.temperatureInRange(from.V, it.From) || !c.temperatureInRange(to.V, it.To):
+			ok = false
+			continue
 		case step.V <= 0:
 			c.report("syntax", it.By.Span(), "a temperature step must be positive, found %s", quantityText(it.By))
 			ok = false
@@ -160,18 +216,19 @@ func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
 			ok = false
 			continue
 		}
-		count := (to.V-from.V)/step.V + 1
-		if count+float64(len(out)) > maxTemperatures {
-			c.report("syntax", it.Span(), "temperature range gives %.0f temperatures, more than %d", count, maxTemperatures)
+		n, err := stepCount(from.V, to.V, step.V)
+		if err != nil {
+			c.report("syntax", it.By.Span(), "temperature step %s: %v", quantityText(it.By), err)
 			ok = false
 			continue
 		}
-		for i := 0; ; i++ {
-			t := from.V + float64(i)*step.V
-			if t > to.V+1e-9*step.V {
-				break
-			}
-			out = append(out, t)
+		if total := float64(len(out)) + n; total > maxTemperatures {
+			c.report("syntax", it.Span(), "the temperature list would hold %s temperatures, more than %d", countText(total), maxTemperatures)
+			ok = false
+			continue
+		}
+		for i := 0; i < int(n); i++ {
+			out = append(out, from.V+float64(i)*step.V)
 		}
 	}
 	return out, ok && len(out) > 0

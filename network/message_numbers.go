@@ -33,6 +33,9 @@ func kelvin(T float64) string { return short(T) + " K" }
 
 // short writes a number with at most four decimals and no trailing zeros.
 func short(v float64) string {
+	if a := math.Abs(v); a >= 1e15 || (a < 1e-4 && a > 0) {
+		return strconv.FormatFloat(v, 'g', 6, 64)
+	}
 	return strconv.FormatFloat(math.Round(v*1e4)/1e4, 'f', -1, 64)
 }
 

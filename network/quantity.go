@@ -1,6 +1,7 @@
 package network
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -27,6 +28,13 @@ var (
 	molarMassKind   = quantityKind{"molar mass", thermo.DimMolarMass, "g/mol"}
 )
 
+// minNormal is the smallest normal float64: smaller numbers lose precision
+// and read as 0 once printed.
+const minNormal = 0x1p-1022
+
+// errHexNumber is a hexadecimal number, which the lexer has reported.
+var errHexNumber = errors.New("hexadecimal numbers are not part of the language")
+
 // parseNumber reads a number token: a decimal, scientific, or p/q fraction.
 func parseNumber(text string) (float64, error) {
 	if p, q, ok := strings.Cut(text, "/"); ok {
@@ -37,9 +45,21 @@ func parseNumber(text string) (float64, error) {
 		}
 		return num / den, nil
 	}
+	if strings.ContainsAny(text, "xX") {
+		return 0, errHexNumber
+	}
+	if strings.ContainsAny(text, "_") {
+		return 0, fmt.Errorf("%s is not a number", text)
+	}
 	v, err := strconv.ParseFloat(text, 64)
+	if err != nil && !errors.Is(err, strconv.ErrRange) {
+		return 0, fmt.Errorf("%s is not a number", text)
+	}
 	if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
 		return 0, fmt.Errorf("number %s is out of range", text)
+	}
+	if v != 0 && math.Abs(v) < minNormal {
+		return 0, fmt.Errorf("number %s is too small to compute with (the smallest is about 2.2e-308); write 0 if zero is meant", text)
 	}
 	return v, nil
 }
@@ -66,6 +86,9 @@ func (c *compiler) number(num *lang.Num) (float64, bool) {
 		return 0, false
 	}
 	v, err := parseNumber(num.Text)
+	if errors.Is(err, errHexNumber) {
+		return 0, false
+	}
 	if err != nil {
 		c.report("syntax", num.Span(), "%v", err)
 		return 0, false
@@ -115,6 +138,10 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 		out.V = v * u.Scale
 	} else {
 		out.V = u.ToSI(v)
+	}
+	if math.IsInf(out.V, 0) || math.IsInf(out.Sigma, 0) || math.IsNaN(out.V) {
+		c.report("syntax", q.Span(), "%s %s %s is out of range once converted to SI units", what, q.Value.Text, q.Unit.Text)
+		return nil, false
 	}
 	return out, true
 }

@@ -109,7 +109,7 @@ func TestApproachRefusals(t *testing.T) {
 	if stdout.Len() != 0 {
 		t.Errorf("bad mixture printed numbers:\n%s", stdout.String())
 	}
-	if !strings.Contains(stderr.String(), "error[mixture-amount]: mole fraction of CO(g) is negative (-0.1)") {
+	if !strings.Contains(stderr.String(), "error: mole fraction of CO(g) is negative (-0.1) [mixture-amount]") {
 		t.Errorf("stderr lacks the diagnostic:\n%s", stderr.String())
 	}
 
@@ -177,7 +177,7 @@ mixture warm { temperature 333.15 K AgCl(s) Ag+(aq) 1e-5 mol/kg Cl-(aq) 0.1 mol/
 			t.Errorf("text lacks %q:\n%s", want, stdout.String())
 		}
 	}
-	if !strings.Contains(stderr.String(), "info[not-in-mixture]: mixture warm gives no quotient for bromide") {
+	if !strings.Contains(stderr.String(), "info: mixture warm gives no quotient for bromide") {
 		t.Errorf("stderr lacks the not-in-mixture note:\n%s", stderr.String())
 	}
 	stdout.Reset()

@@ -73,7 +73,7 @@ func compileAll(roots []string, stderr io.Writer) (*report, bool) {
 		}
 		net := network.Load(root, network.Disk{})
 		if len(net.Files) == 0 {
-			fmt.Fprintf(stderr, "hess: cannot read %s\n", root)
+			fmt.Fprintf(stderr, "hess: %s\n", unreadableRoot(root, net))
 			return nil, true
 		}
 		for _, f := range net.Files {
@@ -97,6 +97,17 @@ func compileAll(roots []string, stderr io.Writer) (*report, bool) {
 	rep.Diagnostics.Sort()
 	rep.Source = func(file string) []byte { return sources[file] }
 	return rep, false
+}
+
+// unreadableRoot says why a root file gave no network: the loader's
+// message (it is a folder, permission denied, …) when it has one.
+func unreadableRoot(root string, net *network.Network) string {
+	for _, d := range net.Diagnostics {
+		if strings.HasPrefix(d.Message, "cannot read ") {
+			return d.Message
+		}
+	}
+	return "cannot read " + root
 }
 
 func unwrapPathError(err error) error {

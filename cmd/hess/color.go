@@ -6,8 +6,9 @@ import "hess/lang"
 // on is true, and returns text unchanged otherwise.
 //
 // The scheme: locations bold, "error" bold red, "warning" bold yellow,
-// "info" bold cyan, "note" bold blue, the line-number gutter blue, the
-// marker in its diagnostic's severity colour, and the summary bold.
+// "info" bold cyan, "note" bold blue, the check's name dim, a snippet's
+// ellipses blue, the marker in its diagnostic's severity colour, and the
+// summary bold.
 type palette struct {
 	on bool
 }
@@ -18,7 +19,8 @@ const (
 	sgrWarning = "1;33"
 	sgrInfo    = "1;36"
 	sgrNote    = "1;34"
-	sgrGutter  = "34"
+	sgrElision = "34"
+	sgrCode    = "2"
 )
 
 // paint wraps s in the SGR sequence code and a reset.
@@ -48,8 +50,11 @@ func (p palette) severity(sev lang.Severity, s string) string {
 // note colours the label of a related location.
 func (p palette) note(s string) string { return p.paint(sgrNote, s) }
 
-// gutter colours the line-number column of a snippet.
-func (p palette) gutter(s string) string { return p.paint(sgrGutter, s) }
+// elision colours the ellipsis where a snippet cuts its line.
+func (p palette) elision(s string) string { return p.paint(sgrElision, s) }
+
+// code colours the bracketed check name that ends a diagnostic's line.
+func (p palette) code(s string) string { return p.paint(sgrCode, s) }
 
 // summary colours the closing summary line.
 func (p palette) summary(s string) string { return p.paint(sgrBold, s) }

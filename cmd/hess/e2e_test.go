@@ -84,13 +84,13 @@ func TestEndToEnd(t *testing.T) {
 		{"all examples", []string{"check", "examples/hydrogen-plant/reformer.hess", "examples/flue-gas-scrubber.hess", "examples/small-flame.hess"}, 0,
 			[]string{"no problems in 4 files"}, nil},
 		{"element imbalance", []string{"check", "testdata/check/element-imbalance.hess"}, 1,
-			[]string{"testdata/check/element-imbalance.hess:4:16: error[element-imbalance]: O: left 3, right 2", "^^^^", "2 errors in 1 file"}, nil},
+			[]string{"testdata/check/element-imbalance.hess:4:16: error: O: left 3, right 2 [element-imbalance]", "^~~~", "2 errors in 1 file"}, nil},
 		{"charge imbalance", []string{"check", "testdata/check/charge-imbalance.hess"}, 1,
-			[]string{"error[charge-imbalance]: net charge: left +2, right +3"}, nil},
+			[]string{"error: net charge: left +2, right +3 [charge-imbalance]"}, nil},
 		{"warnings pass", []string{"check", "testdata/check/unused-species.hess"}, 0,
-			[]string{"warning[unused-species]"}, nil},
+			[]string{"[unused-species]"}, nil},
 		{"strict fails on warnings", []string{"check", "--strict", "testdata/check/unused-species.hess"}, 1,
-			[]string{"warning[unused-species]"}, nil},
+			[]string{"[unused-species]"}, nil},
 		{"flags after files", []string{"check", "testdata/check/unused-species.hess", "--strict"}, 1, nil, nil},
 		{"missing file", []string{"check", "no/such.hess"}, 2, nil, []string{"cannot read no/such.hess"}},
 		{"no files", []string{"check"}, 2, nil, []string{"no files given"}},
@@ -104,7 +104,7 @@ func TestEndToEnd(t *testing.T) {
 		{"explain unknown", []string{"explain", "nope"}, 2, nil, []string{"no check named"}},
 		{"version", []string{"version"}, 0, []string{"hess ", "module hess"}, nil},
 		{"fmt check clean", []string{"fmt", "--check", "examples/small-flame.hess"}, 0, nil, nil},
-		{"fmt syntax error", []string{"fmt", "testdata/check/syntax.hess"}, 1, nil, []string{"error[syntax]"}},
+		{"fmt syntax error", []string{"fmt", "testdata/check/syntax.hess"}, 1, nil, []string{"[syntax]"}},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

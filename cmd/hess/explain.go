@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"strings"
 	"unicode/utf8"
 
 	"hess/network"
@@ -17,21 +18,32 @@ func runExplain(args []string, stdout, stderr io.Writer) int {
 	}
 	switch len(codes) {
 	case 0:
+		var b strings.Builder
 		for _, c := range network.Checks() {
-			fmt.Fprintf(stdout, "%-24s %-8s %s\n", c.Name, c.Severity, c.Title())
+			fmt.Fprintf(&b, "%-24s %-8s %s\n", c.Name, c.Severity, c.Title())
 		}
-		return exitOK
+		return writeOut("explain", stdout, stderr, b.String())
 	case 1:
 		c := network.LookupCheck(codes[0])
 		if c == nil {
 			fmt.Fprintf(stderr, "hess explain: no check named %q ('hess explain' lists them)\n", codes[0])
 			return exitTrouble
 		}
-		fmt.Fprintf(stdout, "%s (%s by default): %s\n\n%s\n", c.Name, c.Severity, c.Title(), wrap(c.Explanation(), 78))
-		return exitOK
+		return writeOut("explain", stdout, stderr, fmt.Sprintf("%s (%s by default): %s\n\n%s\n", c.Name, c.Severity, c.Title(), wrap(c.Explanation(), 78)))
 	}
 	fmt.Fprintln(stderr, "hess explain: takes at most one code")
 	return exitTrouble
+}
+
+// writeOut writes a command's whole output to stdout; a failing write (a
+// closed pipe, a full disk) is reported on stderr with exit status 2, as
+// every command does.
+func writeOut(cmd string, stdout, stderr io.Writer, text string) int {
+	if _, err := io.WriteString(stdout, text); err != nil {
+		fmt.Fprintf(stderr, "hess %s: writing the output: %v\n", cmd, err)
+		return exitTrouble
+	}
+	return exitOK
 }
 
 // wrap breaks text into lines of at most width characters at spaces.

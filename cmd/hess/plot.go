@@ -66,7 +66,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "hess plot: %v\n", err)
 		return exitTrouble
 	}
-	if err := writeFileAtomic(*out, data); err != nil {
+	if err := writeOutput(*out, doc.net, data); err != nil {
 		fmt.Fprintf(stderr, "hess plot: %v\n", err)
 		return exitTrouble
 	}

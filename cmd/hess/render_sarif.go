@@ -265,7 +265,7 @@ func lineHash(d lang.Diagnostic, src *sourceLines) string {
 	h := sha256.New()
 	h.Write([]byte(d.Code))
 	h.Write([]byte{0})
-	if line, ok := src.line(d.Subject.File, d.Subject.Start.Line); ok {
+	if line, _, ok := src.line(d.Subject.File, d.Subject.Start.Line); ok {
 		h.Write([]byte("line\x00"))
 		h.Write([]byte(strings.Join(strings.Fields(string(line)), " ")))
 	} else {

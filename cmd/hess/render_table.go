@@ -83,6 +83,9 @@ func shortNumber(v float64) string {
 	if !finite(v) {
 		return missingCell
 	}
+	if a := math.Abs(v); a >= 1e15 || (a < 1e-4 && a > 0) {
+		return strconv.FormatFloat(v, 'g', 6, 64)
+	}
 	return strconv.FormatFloat(math.Round(v*1e4)/1e4, 'f', -1, 64)
 }
 
@@ -137,6 +140,9 @@ func summaryLines(t *equilibrium.Table) []string {
 }
 
 func kelvinText(T float64) string {
+	if a := math.Abs(T); a >= 1e15 || (a < 1e-2 && a > 0) {
+		return strconv.FormatFloat(T, 'g', 6, 64) + " K"
+	}
 	return strconv.FormatFloat(math.Round(T*100)/100, 'f', -1, 64) + " K"
 }
 

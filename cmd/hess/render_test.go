@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"strings"
 	"testing"
+	"unicode/utf8"
 
 	"hess/lang"
 	"hess/network"
@@ -149,7 +150,7 @@ func TestRenderTextGolden(t *testing.T) {
 			if !tc.color && strings.Contains(buf.String(), "\x1b") {
 				t.Errorf("colour off but output has escape sequences")
 			}
-			if tc.color && !strings.Contains(buf.String(), "\x1b[1;31merror[element-imbalance]\x1b[0m") {
+			if tc.color && !strings.Contains(buf.String(), "\x1b[1;31merror\x1b[0m: O: left 3, right 2 \x1b[2m[element-imbalance]\x1b[0m") {
 				t.Errorf("colour on but the error label is not red")
 			}
 			checkGolden(t, tc.golden, buf.Bytes())
@@ -175,37 +176,90 @@ func TestRenderSARIFGolden(t *testing.T) {
 
 // TestMarkLine checks the snippet layout for the awkward cases one by one.
 func TestMarkLine(t *testing.T) {
+	long := strings.Repeat("a", 100) + "SPAN" + strings.Repeat("b", 100)
+	huge := strings.Repeat("x", 500)
 	for _, tc := range []struct {
-		name     string
-		line     string
-		from, to int
-		text     string
-		pad      string
-		carets   int
+		name          string
+		line          string
+		from, to      int
+		text          string
+		pad           string
+		marks         int
+		before, after bool
 	}{
-		{"ascii", "abc def", 5, 8, "abc def", "    ", 3},
-		{"non-ASCII before the range", "# ΔfH° x", 8, 9, "# ΔfH° x", "       ", 1},
-		{"tab before the range", "\ta\tbc", 4, 6, "\ta\tbc", "\t \t", 2},
-		{"tab inside the range", "a\tb", 1, 4, "a\tb", "", 3},
-		{"to the end of the line", "abcdef", 3, -1, "abcdef", "  ", 4},
-		{"end past the line", "abc", 2, 99, "abc", " ", 2},
-		{"empty range", "abc", 2, 2, "abc", " ", 1},
-		{"reversed range", "abc", 3, 1, "abc", "  ", 1},
-		{"at the end of the line", "abc", 4, 4, "abc", "   ", 1},
-		{"start past the line", "abc", 40, 41, "abc", "   ", 1},
-		{"start before column 1", "abc", 0, 2, "abc", "", 1},
-		{"empty line", "", 1, 1, "", "", 1},
-		{"invalid UTF-8", "a\xff\xfeb", 4, 5, "a\uFFFD\uFFFDb", "   ", 1},
-		{"NUL and escape", "a\x00\x1b[31mb", 3, 4, "a\uFFFD\uFFFD[31mb", "  ", 1},
-		{"bidi override", "a\u202eb", 3, 4, "a\uFFFDb", "  ", 1},
+		{"ascii", "abc def", 5, 8, "abc def", "    ", 3, false, false},
+		{"non-ASCII before the range", "# ΔfH° x", 8, 9, "# ΔfH° x", "       ", 1, false, false},
+		{"tab before the range", "\ta\tbc", 4, 6, "\ta\tbc", "\t \t", 2, false, false},
+		{"tab inside the range", "a\tb", 1, 4, "a\tb", "", 3, false, false},
+		{"to the end of the line", "abcdef", 3, -1, "abcdef", "  ", 4, false, false},
+		{"end past the line", "abc", 2, 99, "abc", " ", 2, false, false},
+		{"empty range", "abc", 2, 2, "abc", " ", 1, false, false},
+		{"reversed range", "abc", 3, 1, "abc", "  ", 1, false, false},
+		{"at the end of the line", "abc", 4, 4, "abc", "   ", 1, false, false},
+		{"start past the line", "abc", 40, 41, "abc", "   ", 1, false, false},
+		{"start before column 1", "abc", 0, 2, "abc", "", 1, false, false},
+		{"empty line", "", 1, 1, "", "", 1, false, false},
+		{"invalid UTF-8", "a\xff\xfeb", 4, 5, "a\uFFFD\uFFFDb", "   ", 1, false, false},
+		{"NUL and escape", "a\x00\x1b[31mb", 3, 4, "a\uFFFD\uFFFD[31mb", "  ", 1, false, false},
+		{"bidi override", "a\u202eb", 3, 4, "a\uFFFDb", "  ", 1, false, false},
+		{"window on a long line", long, 101, 105,
+			strings.Repeat("a", 60) + "SPAN" + strings.Repeat("b", 60), strings.Repeat(" ", 60), 4, true, true},
+		{"window at the start", long, 1, 2, long[:61], "", 1, false, true},
+		{"window at the end", long, 205, -1, strings.Repeat("b", 60), strings.Repeat(" ", 60), 1, true, false},
+		{"window with non-ASCII", strings.Repeat("é", 100) + "SPAN", 101, 105,
+			strings.Repeat("é", 60) + "SPAN", strings.Repeat(" ", 60), 4, true, false},
+		{"long subject marked in part", huge, 1, -1, huge[:180], "", 120, false, true},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			text, pad, carets := markLine([]byte(tc.line), tc.from, tc.to)
-			if text != tc.text || pad != tc.pad || carets != tc.carets {
-				t.Errorf("markLine(%q, %d, %d) = %q, %q, %d; want %q, %q, %d",
-					tc.line, tc.from, tc.to, text, pad, carets, tc.text, tc.pad, tc.carets)
+			w := markLine([]byte(tc.line), isASCII([]byte(tc.line)), tc.from, tc.to)
+			want := window{text: tc.text, pad: tc.pad, marks: tc.marks, before: tc.before, after: tc.after}
+			if w != want {
+				t.Errorf("markLine(%q, %d, %d) = %+v; want %+v", tc.line, tc.from, tc.to, w, want)
+			}
+			if !isASCII([]byte(tc.line)) {
+				return
+			}
+			// The general path gives the same layout as the ASCII one.
+			if slow := markLine([]byte(tc.line), false, tc.from, tc.to); slow != w {
+				t.Errorf("markLine without the ASCII shortcut = %+v; want %+v", slow, w)
 			}
 		})
+	}
+}
+
+// A line of any length gives a snippet of bounded size: one 70 KB line with
+// thousands of findings makes a report proportional to the findings.
+func TestRenderTextLongLineBounded(t *testing.T) {
+	const n = 5000
+	line := strings.Repeat("species H2(g) ", n)
+	r := &report{Files: []string{"long.hess"}, Source: func(string) []byte { return []byte(line + "\n") }}
+	for i := 0; i < n; i++ {
+		col := 14*i + 9
+		r.Diagnostics = append(r.Diagnostics, lang.Diagnostic{Severity: lang.Error, Code: "duplicate-species",
+			Message: "H2(g) is declared twice", Subject: sp("long.hess", 1, col, 1, col+5)})
+	}
+	var buf bytes.Buffer
+	if err := renderText(&buf, r, false); err != nil {
+		t.Fatal(err)
+	}
+	if per := buf.Len() / n; per > 400 {
+		t.Errorf("report takes %d bytes per finding on a %d-byte line, want at most 400", per, len(line))
+	}
+	if !strings.Contains(buf.String(), "long.hess:1:69995: error: H2(g) is declared twice [duplicate-species]\n    …") {
+		t.Errorf("last finding not laid out as expected:\n%s", buf.String()[buf.Len()-600:])
+	}
+}
+
+// A message quoting a huge name is cut.
+func TestRenderTextLongMessageCut(t *testing.T) {
+	name := strings.Repeat("Xy", 1<<20)
+	r := &report{Diagnostics: lang.Diagnostics{{Severity: lang.Warning, Code: "unused-species", Message: "species " + name + " appears in no reaction"}}}
+	var buf bytes.Buffer
+	if err := renderText(&buf, r, false); err != nil {
+		t.Fatal(err)
+	}
+	if buf.Len() > maxMessageBytes+200 {
+		t.Errorf("report of one message is %d bytes", buf.Len())
 	}
 }
 
@@ -217,10 +271,10 @@ func TestRenderTextWithoutSource(t *testing.T) {
 		t.Fatalf("renderText: %v", err)
 	}
 	out := buf.String()
-	if strings.Contains(out, "|") || strings.Contains(out, "^") {
+	if strings.Contains(out, "    ") || strings.Contains(out, "^") {
 		t.Errorf("snippet printed without a source:\n%s", out)
 	}
-	if !strings.Contains(out, "plant.hess:4:16: error[element-imbalance]: O: left 3, right 2\n") {
+	if !strings.Contains(out, "plant.hess:4:16: error: O: left 3, right 2 [element-imbalance]\n") {
 		t.Errorf("header missing:\n%s", out)
 	}
 }
@@ -240,9 +294,9 @@ func TestRenderTextLocations(t *testing.T) {
 		t.Fatalf("renderText: %v", err)
 	}
 	want := "error: no location at all\n" +
-		"a.hess:2: warning[w]: line only\n" +
-		"a\uFFFD.hess:1:1: error[e]: tab and \uFFFD[2J escape\n" +
-		"  note: somewhere\n" +
+		"a.hess:2: warning: line only [w]\n" +
+		"a\uFFFD.hess:1:1: error: tab and \uFFFD[2J escape [e]\n" +
+		"note: somewhere\n" +
 		"2 errors, 1 warning in 1 file\n"
 	if got := buf.String(); got != want {
 		t.Errorf("got\n%q\nwant\n%q", got, want)
@@ -698,6 +752,8 @@ func FuzzRenderText(f *testing.F) {
 	f.Add([]byte("\t\xff\x00x\r\n"), 1, 3, 2, 1)
 	f.Add([]byte(""), 1, 1, 1, 1)
 	f.Add([]byte("ab\ncd"), 2, -5, 1, 99)
+	f.Add([]byte(strings.Repeat("species H2(g) ", 40)), 1, 300, 1, 305)
+	f.Add([]byte(strings.Repeat("é\t", 300)), 1, 200, 1, 599)
 	f.Fuzz(func(t *testing.T, src []byte, line, col, endLine, endCol int) {
 		r := &report{
 			Files: []string{"f.hess"},
@@ -711,8 +767,16 @@ func FuzzRenderText(f *testing.F) {
 		if err := renderText(&buf, r, true); err != nil {
 			t.Fatalf("renderText: %v", err)
 		}
-		if strings.Contains(buf.String(), " |") && !strings.Contains(buf.String(), "^") {
+		lines := strings.Split(buf.String(), "\n")
+		if len(lines) > 3 && !strings.Contains(lines[2], "^") {
 			t.Errorf("snippet without a marker:\n%s", buf.String())
+		}
+		for _, l := range lines {
+			// A window of context, marks and slack, the indent, two
+			// ellipses and the colour codes.
+			if n := utf8.RuneCountInString(l); n > 2*(snippetContext+snippetSlack)+snippetMarkMax+40 {
+				t.Errorf("a line of %d code points: the snippet is not windowed", n)
+			}
 		}
 		if err := renderJSON(&bytes.Buffer{}, r); err != nil {
 			t.Fatalf("renderJSON: %v", err)

@@ -53,7 +53,7 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 		return exitTrouble
 	}
 	if *out != "" {
-		if err := writeFileAtomic(*out, data); err != nil {
+		if err := writeOutput(*out, doc.net, data); err != nil {
 			fmt.Fprintf(stderr, "hess table: %v\n", err)
 			return exitTrouble
 		}
@@ -197,7 +197,7 @@ func compileRoot(cmd, root string, stderr io.Writer) (*network.Network, int) {
 	}
 	net := network.Load(root, network.Disk{})
 	if len(net.Files) == 0 {
-		fmt.Fprintf(stderr, "hess %s: cannot read %s\n", cmd, root)
+		fmt.Fprintf(stderr, "hess %s: %s\n", cmd, unreadableRoot(root, net))
 		return nil, exitTrouble
 	}
 	return net, exitOK

@@ -69,7 +69,7 @@ func TestTableEndToEnd(t *testing.T) {
 	}
 
 	r = runHess(t, "table", "testdata/check/range-gap.hess")
-	if r.code != 1 || r.stdout != "" || !strings.Contains(r.stderr, "error[range-gap]") {
+	if r.code != 1 || r.stdout != "" || !strings.Contains(r.stderr, "[range-gap]") {
 		t.Errorf("network with errors: exit %d\n%s\n%s", r.code, r.stdout, r.stderr)
 	}
 }

@@ -27,6 +27,5 @@ func runVersion(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "hess version: takes no arguments")
 		return exitTrouble
 	}
-	fmt.Fprintf(stdout, "hess %s (module %s)\n", version, modulePath())
-	return exitOK
+	return writeOut("version", stdout, stderr, fmt.Sprintf("hess %s (module %s)\n", version, modulePath()))
 }

@@ -198,7 +198,7 @@ func (w *watcher) rebuild(why string) {
 		}
 		net := network.Load(root, network.Disk{})
 		if len(net.Files) == 0 {
-			fmt.Fprintf(&buf, "%s cannot read %s; waiting for it\n", w.stamp(), displayName(root))
+			fmt.Fprintf(&buf, "%s %s; waiting for it\n", w.stamp(), unreadableRoot(displayName(root), net))
 			missing = true
 			continue
 		}
@@ -257,7 +257,7 @@ func (w *watcher) writeTable(net *network.Network) error {
 	if err != nil {
 		return fmt.Errorf("rendering the table: %w", err)
 	}
-	return writeFileAtomic(w.opts.table, data)
+	return writeOutput(w.opts.table, net, data)
 }
 
 // mergedReport is one report of several networks: every file once, every
