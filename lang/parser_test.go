@@ -509,7 +509,7 @@ func TestGrammarGolden(t *testing.T) {
 
 // referenceParse parses src the plain way, as a check on Parse: the whole
 // file is lexed first, cut into statements by the same rule, and each
-// statement is parsed on its own by the full Statement grammar.
+// statement is parsed on its own, serially, by its kind's parser.
 func referenceParse(src []byte) ([]*Statement, []string) {
 	toks, _, lexDiags := Lex("f.hess", src)
 	var msgs []string
@@ -544,15 +544,12 @@ func referenceParse(src []byte) ([]*Statement, []string) {
 		e := TokenSpan(c[len(c)-1]).End
 		eof := lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Filename: "f.hess", Offset: e.Offset, Line: e.Line, Column: e.Column}}
 		stream := append(append([]lexer.Token(nil), c...), eof)
-		i := 0
-		peek, _ := lexer.Upgrade(lexerFunc(func() (lexer.Token, error) {
-			if i == len(stream) {
-				return eof, nil
-			}
-			i++
-			return stream[i-1], nil
-		}))
-		st, err := statementParser.ParseFromLexer(peek)
+		st := &Statement{Node: Node{Pos: c[0].Pos, Tokens: c}}
+		cur := &tokenCursor{toks: stream}
+		err := statementParsers[c[0].Value](cur, st)
+		if err == nil && !isEnd(*cur.Peek()) {
+			err = &syntaxError{found: *cur.Peek()}
+		}
 		if err != nil {
 			d := syntaxDiag(c, err)
 			msgs = append(msgs, fmt.Sprintf("%d:%d: %s", d.Subject.Start.Line, d.Subject.Start.Column, d.Message))
@@ -570,10 +567,6 @@ func short(src []byte) string {
 	}
 	return fmt.Sprintf("%q", src)
 }
-
-type lexerFunc func() (lexer.Token, error)
-
-func (f lexerFunc) Next() (lexer.Token, error) { return f() }
 
 // checkConformance compares Parse with referenceParse on src.
 func checkConformance(t *testing.T, src []byte) {
