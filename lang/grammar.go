@@ -101,11 +101,11 @@ func (c tokenClass) bit() uint32 {
 	}
 	return 0
 }
-func (r ref) words() []string        { return []string{productionWords(string(r))} }
-func (g group) words() []string      { return g.x.words() }
-func (o opt) words() []string        { return o.x.words() }
-func (m many) words() []string       { return m.x.words() }
-func (s seq) words() []string        { return s[0].words() }
+func (r ref) words() []string   { return []string{productionWords(string(r))} }
+func (g group) words() []string { return g.x.words() }
+func (o opt) words() []string   { return o.x.words() }
+func (m many) words() []string  { return m.x.words() }
+func (s seq) words() []string   { return s[0].words() }
 
 func (a alt) words() []string {
 	var out []string

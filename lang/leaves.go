@@ -148,4 +148,3 @@ func (tm *Term) read(lex tokenStream) error {
 	*tm = out
 	return nil
 }
-

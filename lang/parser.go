@@ -321,4 +321,3 @@ func parseStatement(group []lexer.Token, c chunk) result {
 	}
 	return result{st: st}
 }
-
