@@ -83,6 +83,31 @@ func join(xs []expr, sep string) string {
 
 func (l lit) words() []string        { return []string{l.ebnf()} }
 func (c tokenClass) words() []string { return []string{"a " + c.name()} }
+func (g group) words() []string      { return g.x.words() }
+func (o opt) words() []string        { return o.x.words() }
+func (m many) words() []string       { return m.x.words() }
+func (s seq) words() []string        { return s[0].words() }
+
+// words of a production are how errors name it, or its name where it has
+// none.
+func (r ref) words() []string {
+	if w := productionWords(string(r)); w != "" {
+		return []string{w}
+	}
+	return []string{string(r)}
+}
+
+func (a alt) words() []string {
+	var out []string
+	for _, x := range a {
+		for _, w := range x.words() {
+			if !contains(out, w) {
+				out = append(out, w)
+			}
+		}
+	}
+	return out
+}
 
 // name is the token type's name in lower case, as participle prints it.
 func (c tokenClass) name() string {
@@ -100,23 +125,6 @@ func (c tokenClass) bit() uint32 {
 		return 1 << n
 	}
 	return 0
-}
-func (r ref) words() []string   { return []string{productionWords(string(r))} }
-func (g group) words() []string { return g.x.words() }
-func (o opt) words() []string   { return o.x.words() }
-func (m many) words() []string  { return m.x.words() }
-func (s seq) words() []string   { return s[0].words() }
-
-func (a alt) words() []string {
-	var out []string
-	for _, x := range a {
-		for _, w := range x.words() {
-			if !contains(out, w) {
-				out = append(out, w)
-			}
-		}
-	}
-	return out
 }
 
 func contains(list []string, s string) bool {
@@ -154,16 +162,26 @@ func rule(name, named string, body expr) *production {
 	return p
 }
 
-// first are the literals and token classes that can begin x. References
-// to other productions are not followed.
+// first are the literals, token classes and references that can begin x.
 func first(x expr) []expr {
 	switch x := x.(type) {
-	case lit, tokenClass:
+	case lit, tokenClass, ref:
 		return []expr{x}
 	case group:
 		return first(x.x)
+	case opt:
+		return first(x.x)
+	case many:
+		return first(x.x)
 	case seq:
-		return first(x[0])
+		var out []expr
+		for _, y := range x {
+			out = append(out, first(y)...)
+			if !optional(y) {
+				break
+			}
+		}
+		return out
 	case alt:
 		var out []expr
 		for _, y := range x {
@@ -172,6 +190,17 @@ func first(x expr) []expr {
 		return out
 	}
 	return nil
+}
+
+// optional reports whether x may match no tokens.
+func optional(x expr) bool {
+	switch x := x.(type) {
+	case opt, many:
+		return true
+	case group:
+		return optional(x.x)
+	}
+	return false
 }
 
 func (p *production) String() string { return p.name + " = " + p.body.ebnf() + " ." }

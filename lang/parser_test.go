@@ -364,6 +364,7 @@ func TestSyntaxErrors(t *testing.T) {
 		{"missing number", "settings { pressure bar }", `expected a number, found "bar"`, 1, 21},
 		{"missing temperature", "mixture m { temperature }", `expected a number, found "}"`, 1, 25},
 		{"missing sigma", "species X(g) { hf 1 ± kJ/mol }", `expected a number, found "kJ/mol"`, 1, 23},
+		{"sigma without number in a setting", "settings { pressure 1 ± bar }", `expected a number, found "bar"`, 1, 25},
 		{"range without step", "settings { temperatures 1 K to 2 K }", `expected "by", found "}"`, 1, 36},
 		{"list ends in comma", "settings { temperatures 1 K, }", `expected a temperature, found "}"`, 1, 30},
 		{"missing Ea", "reaction r: A -> B { rate A 1 1/s }", `expected "Ea", found "}"`, 1, 35},
