@@ -2,6 +2,7 @@ package lang
 
 import (
 	"errors"
+	"fmt"
 	"io"
 	"reflect"
 	"runtime"
@@ -58,6 +59,20 @@ func participleKind[G any](keyword string, set func(*Statement, *G)) statementKi
 	return statementKind{keyword: keyword, name: reflect.TypeFor[G]().Name(), parse: parse, grammar: p.String}
 }
 
+// handKind is a statement read by hand by parse, whose production is p.
+// Its grammar lists after p those of the parts it hands to participle.
+func handKind(p *production, parse kindParser, parts ...fmt.Stringer) statementKind {
+	keyword, _ := p.at(0).(lit)
+	grammar := func() string {
+		s := p.String()
+		for _, q := range parts {
+			s += "\n" + q.String()
+		}
+		return s
+	}
+	return statementKind{keyword: string(keyword), name: p.name, parse: parse, grammar: grammar}
+}
+
 // statementKinds are the statements, in the order Grammar lists them. The
 // species and reaction statements are read by hand (statements.go).
 var statementKinds = []statementKind{
@@ -65,10 +80,8 @@ var statementKinds = []statementKind{
 	participleKind("settings", func(st *Statement, v *Settings) { st.Settings = v }),
 	participleKind("element", func(st *Statement, v *Element) { st.Element = v }),
 	participleKind("phase", func(st *Statement, v *Phase) { st.Phase = v }),
-	{keyword: "species", name: "Species", parse: parseSpeciesStatement, grammar: speciesRule.String},
-	{keyword: "reaction", name: "Reaction", parse: parseReactionStatement, grammar: func() string {
-		return reactionRule.String() + "\n" + comboParser.String()
-	}},
+	handKind(speciesRule, parseSpeciesStatement),
+	handKind(reactionRule, parseReactionStatement, comboParser),
 	participleKind("mixture", func(st *Statement, v *Mixture) { st.Mixture = v }),
 }
 
