@@ -225,12 +225,14 @@ func isLit(t *lexer.Token, x expr) bool {
 	return ok && t.Value == string(l) && !isEnd(*t)
 }
 
-// isOneOf reports whether t is one of the literals of part x.
-func isOneOf(t *lexer.Token, x expr) bool {
+// isOneOf reports whether t is one of the literals of x, a choice of
+// literals made by oneOf.
+func isOneOf(t *lexer.Token, x group) bool {
 	if isEnd(*t) {
 		return false
 	}
-	for _, y := range first(x) {
+	a, _ := x.x.(alt)
+	for _, y := range a {
 		if l, ok := y.(lit); ok && t.Value == string(l) {
 			return true
 		}

@@ -23,7 +23,8 @@ var (
 	quantityRule   = rule("Quantity", "a number", seq{ref("Num"), opt{sigmaPart}, opt{ref("Unit")}})
 
 	// sigmaPart is a standard uncertainty after a value.
-	sigmaPart = seq{oneOf("±", "+-"), ref("Num")}
+	sigmaPart = seq{plusMinus, ref("Num")}
+	plusMinus = oneOf("±", "+-")
 )
 
 // take consumes the next token and returns it with its one-token slice.
@@ -100,7 +101,7 @@ func (a *Arrow) read(lex tokenStream) error {
 }
 
 // isPlusMinus reports whether t starts a standard uncertainty.
-func isPlusMinus(t *lexer.Token) bool { return t.Type == Punct && isOneOf(t, sigmaPart[0]) }
+func isPlusMinus(t *lexer.Token) bool { return t.Type == Punct && isOneOf(t, plusMinus) }
 
 // Parse reads a Quantity.
 func (q *Quantity) Parse(lex *lexer.PeekingLexer) error { return q.read(lex) }
