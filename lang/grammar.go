@@ -8,7 +8,7 @@ import (
 )
 
 // The grammar of the statements and nodes read by hand (statements.go,
-// leaves.go) is written once, as production values. Grammar prints them,
+// properties.go, leaves.go) is written once, as production values. Grammar prints them,
 // and the readers take from them the literals they match and the words
 // an error names as expected, so the printed grammar, what the readers
 // accept and what their errors say cannot drift apart. The statements
@@ -252,7 +252,7 @@ var leafProductions = []*production{
 // handProductions indexes every production read by hand by name.
 var handProductions = func() map[string]*production {
 	m := map[string]*production{}
-	for _, p := range append([]*production{speciesRule, reactionRule}, leafProductions...) {
+	for _, p := range append([]*production{statementRule, speciesRule, reactionRule}, leafProductions...) {
 		m[p.name] = p
 	}
 	return m
@@ -261,7 +261,6 @@ var handProductions = func() map[string]*production {
 // participleWords name the productions participle reads where an error
 // expects them.
 var participleWords = map[string]string{
-	"Statement":   "a statement",
 	"Setting":     "a setting (pressure, temperatures, tolerance, lint)",
 	"TempSet":     "a temperature",
 	"Lint":        "a check name",
@@ -283,11 +282,7 @@ func productionWords(name string) string {
 // Grammar returns the grammar in EBNF, for review and golden tests: the
 // statements in order, then the nodes that parse themselves.
 func Grammar() string {
-	names := make([]string, len(statementKinds))
-	for i, k := range statementKinds {
-		names[i] = k.name
-	}
-	lines := []string{"Statement = " + strings.Join(names, " | ") + " ."}
+	lines := []string{statementRule.String()}
 	for _, k := range statementKinds {
 		lines = append(lines, k.grammar())
 	}

@@ -94,6 +94,16 @@ var statementParsers = func() map[string]kindParser {
 	return m
 }()
 
+// statementRule is a statement: one of statementKinds, chosen by its
+// keyword.
+var statementRule = func() *production {
+	kinds := make(alt, len(statementKinds))
+	for i, k := range statementKinds {
+		kinds[i] = ref(k.name)
+	}
+	return rule("Statement", "a statement", kinds)
+}()
+
 // notAStatement is the message for a statement that does not start with a
 // statement keyword.
 var notAStatement = func() string {
@@ -101,7 +111,7 @@ var notAStatement = func() string {
 	for i, k := range statementKinds {
 		kws[i] = k.keyword
 	}
-	return "expected " + productionWords("Statement") + " (" + strings.Join(kws, ", ") + "), found "
+	return "expected " + statementRule.named + " (" + strings.Join(kws, ", ") + "), found "
 }()
 
 // endOfStatement is the type of the token the parser sees after each
