@@ -14,7 +14,7 @@ var (
 	formulaRule      = rule("FormulaProp", "a formula", seq{lit("formula"), ref("SpeciesRef")})
 	speciesValueRule = rule("SpeciesValue", "", seq{oneOf("hf", "gf", "s", "cp"), ref("Quantity")})
 	polynomialRule   = rule("Polynomial", "",
-		seq{oneOf("shomate", "nasa7"), ref("Quantity"), lit("to"), ref("Quantity"), lit("{"), many{ref("Num")}, lit("}")})
+		seq{oneOf("shomate", "nasa7"), ref("Quantity"), lit("to"), ref("Quantity"), openBrace, many{ref("Num")}, closeBrace})
 	textRule = rule("TextProp", "", seq{oneOf("source", "note"), ref("Str")})
 
 	// The reaction property list names no "note", though TextProp takes

@@ -22,11 +22,14 @@ var (
 	comboPart     = seq{lit("="), ref("Combination")}
 )
 
+// The braces around a block.
+const openBrace, closeBrace = lit("{"), lit("}")
+
 // block is a block of items: "{" item* "}".
-func block(item string) seq { return seq{lit("{"), many{ref(item)}, lit("}")} }
+func block(item string) seq { return seq{openBrace, many{ref(item)}, closeBrace} }
 
 // blockOpens reports whether t opens a block.
-func blockOpens(t *lexer.Token) bool { return t.Type == Punct && isLit(t, lit("{")) }
+func blockOpens(t *lexer.Token) bool { return t.Type == Punct && isLit(t, openBrace) }
 
 // comboParser reads the combination after a reaction's "=".
 var comboParser = participle.MustBuild[Combination](parserOptions...)
@@ -159,5 +162,5 @@ func parseBlock[P any, PP interface {
 		}
 		props = append(props, p)
 	}
-	return props, expectLit(lex, lit("}"))
+	return props, expectLit(lex, closeBrace)
 }
