@@ -6,9 +6,11 @@ package lang
 
 import "github.com/alecthomas/participle/v2/lexer"
 
-// The syntax tree. Each node is a participle grammar struct; Pos is the
-// position of its first token and Tokens the tokens it spans, from which
-// its exact Span follows (see Node.Span).
+// The syntax tree. Pos is the position of a node's first token and Tokens
+// the tokens it spans, from which its exact Span follows (see Node.Span).
+// The struct tags are participle's grammar for the nodes it reads; the
+// nodes read by hand have their grammar in production values (the *Rule
+// variables of statements.go, properties.go and leaves.go).
 
 // File is one parsed source file.
 type File struct {
@@ -22,13 +24,13 @@ type File struct {
 // read of it (Broken is true).
 type Statement struct {
 	Node
-	Include  *Include  `parser:"  @@"`
-	Settings *Settings `parser:"| @@"`
-	Element  *Element  `parser:"| @@"`
-	Phase    *Phase    `parser:"| @@"`
-	Species  *Species  `parser:"| @@"`
-	Reaction *Reaction `parser:"| @@"`
-	Mixture  *Mixture  `parser:"| @@"`
+	Include  *Include
+	Settings *Settings
+	Element  *Element
+	Phase    *Phase
+	Species  *Species
+	Reaction *Reaction
+	Mixture  *Mixture
 
 	// Broken reports that the statement did not parse completely.
 	Broken bool
@@ -49,19 +51,19 @@ type Include struct {
 // Str is a string literal; Raw keeps the quotes and escapes as written.
 type Str struct {
 	Node
-	Raw string `parser:"@String"`
+	Raw string
 }
 
 // Ident is a name: a reaction, mixture, element, phase or check name.
 type Ident struct {
 	Node
-	Name string `parser:"@(Word | Keyword)"`
+	Name string
 }
 
 // Num is a bare number as written.
 type Num struct {
 	Node
-	Text string `parser:"@Number"`
+	Text string
 }
 
 // Quantity is a number with an optional standard uncertainty and unit.
@@ -69,15 +71,15 @@ type Num struct {
 // is required).
 type Quantity struct {
 	Node
-	Value *Num  `parser:"@@"`
-	Sigma *Num  `parser:"( ( '±' | '+-' ) @@ )?"`
-	Unit  *Unit `parser:"@@?"`
+	Value *Num
+	Sigma *Num
+	Unit  *Unit
 }
 
 // Unit is a unit token such as kJ/mol.
 type Unit struct {
 	Node
-	Text string `parser:"@Word"`
+	Text string
 }
 
 // Settings is the `settings { … }` block.
@@ -128,73 +130,73 @@ type Phase struct {
 // SpeciesRef is a species reference as written, e.g. Ca(OH)2(s).
 type SpeciesRef struct {
 	Node
-	Text string `parser:"@(Ref | Word | Keyword)"`
+	Text string
 }
 
 // Species declares one species with its data, or several without data.
 type Species struct {
 	Node
-	Refs    []*SpeciesRef      `parser:"'species' @@ ( ',' @@ )*"`
-	Label   *Str               `parser:"@@?"`
-	HasBody bool               `parser:"( @'{'"`
-	Props   []*SpeciesProperty `parser:"  @@* '}' )?"`
+	Refs    []*SpeciesRef
+	Label   *Str
+	HasBody bool
+	Props   []*SpeciesProperty
 }
 
 // SpeciesProperty is one property of a species block.
 type SpeciesProperty struct {
 	Node
-	Formula *FormulaProp  `parser:"  @@"`
-	Value   *SpeciesValue `parser:"| @@"`
-	Poly    *Polynomial   `parser:"| @@"`
-	Text    *TextProp     `parser:"| @@"`
+	Formula *FormulaProp
+	Value   *SpeciesValue
+	Poly    *Polynomial
+	Text    *TextProp
 }
 
 // FormulaProp is `formula C3H7`: the formula of a species whose name is
 // not one.
 type FormulaProp struct {
 	Node
-	Formula *SpeciesRef `parser:"'formula' @@"`
+	Formula *SpeciesRef
 }
 
 // SpeciesValue is one of hf, gf, s, cp with its quantity.
 type SpeciesValue struct {
 	Node
-	Key   string    `parser:"@( 'hf' | 'gf' | 's' | 'cp' )"`
-	Value *Quantity `parser:"@@"`
+	Key   string
+	Value *Quantity
 }
 
 // Polynomial is a shomate or nasa7 range with its coefficients.
 type Polynomial struct {
 	Node
-	Kind   string    `parser:"@( 'shomate' | 'nasa7' )"`
-	From   *Quantity `parser:"@@ 'to'"`
-	To     *Quantity `parser:"@@ '{'"`
-	Coeffs []*Num    `parser:"@@* '}'"`
+	Kind   string
+	From   *Quantity
+	To     *Quantity
+	Coeffs []*Num
 }
 
 // TextProp is `source "…"` or `note "…"`.
 type TextProp struct {
 	Node
-	Key  string `parser:"@( 'source' | 'note' )"`
-	Text *Str   `parser:"@@"`
+	Key  string
+	Text *Str
 }
 
 // Reaction is one reaction statement.
 type Reaction struct {
 	Node
-	Name    *Ident              `parser:"'reaction' @@ ':'"`
-	Left    []*Term             `parser:"@@ ( '+' @@ )*"`
-	Arrow   *Arrow              `parser:"@@"`
-	Right   []*Term             `parser:"@@ ( '+' @@ )*"`
-	Combo   *Combination        `parser:"( '=' @@ )?"`
-	HasBody bool                `parser:"( @'{'"`
-	Props   []*ReactionProperty `parser:"  @@* '}' )?"`
+	Name    *Ident
+	Left    []*Term
+	Arrow   *Arrow
+	Right   []*Term
+	Combo   *Combination
+	HasBody bool
+	Props   []*ReactionProperty
 }
 
 // Arrow is <-> (or ⇌) for a two-way reaction, -> (or →) for a one-way step.
 type Arrow struct {
 	Node
-	Text string `parser:"@( '<->' | '⇌' | '->' | '→' )"`
+	Text string
 }
 
 // TwoWay reports whether the arrow is an equilibrium arrow.
@@ -203,8 +205,8 @@ func (a *Arrow) TwoWay() bool { return a.Text == "<->" || a.Text == "⇌" }
 // Term is a coefficient and a species on one side of a reaction.
 type Term struct {
 	Node
-	Coef    *Num        `parser:"@@?"`
-	Species *SpeciesRef `parser:"@@"`
+	Coef    *Num
+	Species *SpeciesRef
 }
 
 // Combination is the weighted sum of reactions a coupled reaction claims
@@ -225,36 +227,36 @@ type ComboTerm struct {
 // ReactionProperty is one property of a reaction block.
 type ReactionProperty struct {
 	Node
-	Value *ReactionValue `parser:"  @@"`
-	LogK  *LogK          `parser:"| @@"`
-	Rate  *Rate          `parser:"| @@"`
-	Text  *TextProp      `parser:"| @@"`
+	Value *ReactionValue
+	LogK  *LogK
+	Rate  *Rate
+	Text  *TextProp
 }
 
 // ReactionValue is one of dg, dh, ds with its quantity.
 type ReactionValue struct {
 	Node
-	Key   string    `parser:"@( 'dg' | 'dh' | 'ds' )"`
-	Value *Quantity `parser:"@@"`
+	Key   string
+	Value *Quantity
 }
 
 // LogK is `logk V [± U] [at T]`: a measured log10 K, at 298.15 K unless
 // At is set.
 type LogK struct {
 	Node
-	Value *Num      `parser:"'logk' @@"`
-	Sigma *Num      `parser:"( ( '±' | '+-' ) @@ )?"`
-	At    *Quantity `parser:"( 'at' @@ )?"`
+	Value *Num
+	Sigma *Num
+	At    *Quantity
 }
 
 // Rate is a forward (`rate`) or reverse (`reverse`) modified Arrhenius
 // rate.
 type Rate struct {
 	Node
-	Kind string    `parser:"@( 'rate' | 'reverse' )"`
-	A    *Quantity `parser:"'A' @@"`
-	N    *Num      `parser:"( 'n' @@ )?"`
-	Ea   *Quantity `parser:"'Ea' @@"`
+	Kind string
+	A    *Quantity
+	N    *Num
+	Ea   *Quantity
 }
 
 // Mixture is a named composition at a temperature and pressure.

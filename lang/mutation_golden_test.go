@@ -19,6 +19,27 @@ func TestSyntaxErrorMutations(t *testing.T) {
 		"reaction r1: A(g) + 2 B(g) <-> C(g) { dg -3.5 ± 0.2 kJ/mol logk 1.5 ± 0.1 at 500 K }",
 		"reaction r2: A(g) -> C(g) { rate A 1e13 cm3/mol/s n 0.5 Ea 40 kJ/mol source \"x\" }",
 	}
+	checkGolden(t, filepath.Join("testdata", "syntax-mutations.golden"), mutate(bases))
+}
+
+// TestSyntaxErrorMutationsOtherStatements does the same for the statements
+// participle reads, and for a reaction's combination, so that the errors
+// participle reports keep their wording too.
+func TestSyntaxErrorMutationsOtherStatements(t *testing.T) {
+	bases := []string{
+		"include \"other.hess\"",
+		"settings { pressure 1 bar temperatures 300 K, 400 K to 800 K by 100 K tolerance 0.5 kJ/mol lint balance error }",
+		"element D { mass 2.014 g/mol }",
+		"phase aq { convention molality }",
+		"mixture feed { temperature 500 K pressure 2 bar CH4(g) 1 mol H2O(g) 2 mol N2(g) }",
+		"reaction r3: A(g) -> C(g) = r1 + 2 r2 - 0.5 r4 { dh 1 kJ/mol }",
+	}
+	checkGolden(t, filepath.Join("testdata", "syntax-mutations-other.golden"), mutate(bases))
+}
+
+// mutate parses each base statement after deleting or replacing each word,
+// or inserting a stray one, and writes each source with its diagnostics.
+func mutate(bases []string) []byte {
 	repl := []string{"", "x", "}", "1"}
 	var b strings.Builder
 	for _, base := range bases {
@@ -45,5 +66,5 @@ func TestSyntaxErrorMutations(t *testing.T) {
 			}
 		}
 	}
-	checkGolden(t, filepath.Join("testdata", "syntax-mutations.golden"), []byte(b.String()))
+	return []byte(b.String())
 }

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"reflect"
 	"runtime"
 	"strings"
 	"sync"
@@ -30,17 +31,23 @@ var parserOptions = []participle.Option{
 	participle.UseLookahead(0),
 }
 
-// statementParser is the whole grammar, for Grammar.
-var statementParser = participle.MustBuild[Statement](parserOptions...)
-
 // kindParser parses one kind of statement into st, leaving the cursor at
 // the token after it.
 type kindParser func(c *tokenCursor, st *Statement) error
 
-// kind is the kindParser that participle builds for G.
-func kind[G any](set func(*Statement, *G)) kindParser {
+// statementKind is one kind of statement: its keyword, the name of its
+// production, its parser, and its grammar in EBNF.
+type statementKind struct {
+	keyword, name string
+	parse         kindParser
+	grammar       func() string
+}
+
+// participleKind is a statement that participle reads by the struct tags
+// of G.
+func participleKind[G any](keyword string, set func(*Statement, *G)) statementKind {
 	p := participle.MustBuild[G](parserOptions...)
-	return func(c *tokenCursor, st *Statement) error {
+	parse := func(c *tokenCursor, st *Statement) error {
 		return c.withPeeking(func(peek *lexer.PeekingLexer) error {
 			v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
 			if v != nil {
@@ -49,41 +56,63 @@ func kind[G any](set func(*Statement, *G)) kindParser {
 			return err
 		})
 	}
+	return statementKind{keyword: keyword, name: reflect.TypeFor[G]().Name(), parse: parse, grammar: p.String}
 }
 
-// statementParsers parse each kind of statement by its keyword; they accept
-// what statementParser accepts without trying every alternative in turn.
-var statementParsers = map[string]kindParser{
-	"include":  kind(func(st *Statement, v *Include) { st.Include = v }),
-	"settings": kind(func(st *Statement, v *Settings) { st.Settings = v }),
-	"element":  kind(func(st *Statement, v *Element) { st.Element = v }),
-	"phase":    kind(func(st *Statement, v *Phase) { st.Phase = v }),
-	"species":  parseSpeciesStatement,
-	"reaction": parseReactionStatement,
-	"mixture":  kind(func(st *Statement, v *Mixture) { st.Mixture = v }),
+// handKind is a statement read by hand by parse, whose production is p.
+// Its grammar lists after p those of the parts it hands to participle.
+func handKind(p *production, parse kindParser, parts ...fmt.Stringer) statementKind {
+	keyword, _ := p.at(0).(lit)
+	grammar := func() string {
+		s := p.String()
+		for _, q := range parts {
+			s += "\n" + q.String()
+		}
+		return s
+	}
+	return statementKind{keyword: string(keyword), name: p.name, parse: parse, grammar: grammar}
 }
 
-// Grammar returns the grammar in EBNF, for review and golden tests.
-func Grammar() string { return statementParser.String() + "\n" + leafGrammar }
+// statementKinds are the statements, in the order Grammar lists them. The
+// species and reaction statements are read by hand (statements.go).
+var statementKinds = []statementKind{
+	participleKind("include", func(st *Statement, v *Include) { st.Include = v }),
+	participleKind("settings", func(st *Statement, v *Settings) { st.Settings = v }),
+	participleKind("element", func(st *Statement, v *Element) { st.Element = v }),
+	participleKind("phase", func(st *Statement, v *Phase) { st.Phase = v }),
+	handKind(speciesRule, parseSpeciesStatement),
+	handKind(reactionRule, parseReactionStatement, comboParser),
+	participleKind("mixture", func(st *Statement, v *Mixture) { st.Mixture = v }),
+}
 
-// leafGrammar documents the nodes that parse themselves (leaves.go).
-const leafGrammar = `Quantity = Num (("±" | "+-") Num)? Unit? .
-Term = Num? SpeciesRef .
-SpeciesProperty = FormulaProp | SpeciesValue | Polynomial | TextProp .
-FormulaProp = "formula" SpeciesRef .
-SpeciesValue = ("hf" | "gf" | "s" | "cp") Quantity .
-Polynomial = ("shomate" | "nasa7") Quantity "to" Quantity "{" Num* "}" .
-TextProp = ("source" | "note") Str .
-ReactionProperty = ReactionValue | LogK | Rate | TextProp .
-ReactionValue = ("dg" | "dh" | "ds") Quantity .
-LogK = "logk" Num (("±" | "+-") Num)? ("at" Quantity)? .
-Rate = ("rate" | "reverse") "A" Quantity ("n" Num)? "Ea" Quantity .
-Arrow = ("<->" | "⇌" | "->" | "→") .
-SpeciesRef = (<ref> | <word> | <keyword>) .
-Ident = (<word> | <keyword>) .
-Num = <number> .
-Unit = <word> .
-Str = <string> .`
+// statementParsers parse each kind of statement by its keyword.
+var statementParsers = func() map[string]kindParser {
+	m := map[string]kindParser{}
+	for _, k := range statementKinds {
+		m[k.keyword] = k.parse
+	}
+	return m
+}()
+
+// statementRule is a statement: one of statementKinds, chosen by its
+// keyword.
+var statementRule = func() *production {
+	kinds := make(alt, len(statementKinds))
+	for i, k := range statementKinds {
+		kinds[i] = ref(k.name)
+	}
+	return rule("Statement", "a statement", kinds)
+}()
+
+// notAStatement is the message for a statement that does not start with a
+// statement keyword.
+var notAStatement = func() string {
+	kws := make([]string, len(statementKinds))
+	for i, k := range statementKinds {
+		kws[i] = k.keyword
+	}
+	return "expected " + statementRule.named + " (" + strings.Join(kws, ", ") + "), found "
+}()
 
 // endOfStatement is the type of the token the parser sees after each
 // statement's last token. No grammar rule matches it, so no statement can
@@ -298,7 +327,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 		return result{diags: Diagnostics{{
 			Code:     "syntax",
 			Severity: Error,
-			Message:  fmt.Sprintf("expected a statement (include, settings, element, phase, species, reaction, mixture), found %s", describe(first)),
+			Message:  notAStatement + describe(first),
 			Subject:  span,
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
 		}}}
@@ -307,184 +336,11 @@ func parseStatement(group []lexer.Token, c chunk) result {
 	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1]}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
-		err = &participle.UnexpectedTokenError{Unexpected: *cur.Peek()}
+		err = &syntaxError{found: *cur.Peek()}
 	}
 	if err != nil {
 		st.Broken = true
 		return result{st: st, diags: Diagnostics{syntaxDiag(toks, err)}}
 	}
 	return result{st: st}
-}
-
-// syntaxDiag turns a participle error into a diagnostic that names what was
-// expected and what was found. toks are the statement's tokens.
-func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
-	stmt := TokenSpan(toks[0]).Join(TokenSpan(toks[len(toks)-1]))
-	d := Diagnostic{Code: "syntax", Severity: Error, Context: stmt}
-	var ute *participle.UnexpectedTokenError
-	var perr participle.Error
-	switch {
-	case errors.As(err, &ute):
-		found := ute.Unexpected
-		d.Subject = TokenSpan(found)
-		exp := expected(ute)
-		if exp == `"}"` || exp == "" {
-			if items := blockItems(toks, found); items != "" {
-				exp = items + ` or "}"`
-			}
-		}
-		if exp == "" && !isEnd(found) {
-			exp = "end of statement"
-		}
-		if exp == "" {
-			d.Message = "unexpected " + describe(found)
-		} else {
-			d.Message = "expected " + exp + ", found " + describe(found)
-		}
-	case errors.As(err, &perr):
-		p := perr.Position()
-		pos := Pos{Line: p.Line, Column: p.Column, Offset: p.Offset}
-		d.Subject = Span{File: p.Filename, Start: pos, End: pos}
-		d.Message = strings.ToLower(perr.Message())
-	default:
-		d.Subject = stmt
-		d.Message = err.Error()
-	}
-	return d
-}
-
-// blockItems names what may stand at token at inside the innermost block
-// that is open there, or "" when at is not directly inside a block or the
-// block takes nothing more.
-func blockItems(toks []lexer.Token, at lexer.Token) string {
-	var open []string // the kind of each open block
-	prev := lexer.Token{}
-	for _, t := range toks {
-		if t.Pos.Offset >= at.Pos.Offset {
-			break
-		}
-		if t.Type == Punct && t.Value == "{" {
-			kind := toks[0].Value
-			if len(open) > 0 {
-				kind = "polynomial"
-			}
-			open = append(open, kind)
-		}
-		if t.Type == Punct && t.Value == "}" && len(open) > 0 {
-			open = open[:len(open)-1]
-		}
-		prev = t
-	}
-	if len(open) == 0 {
-		return ""
-	}
-	switch kind := open[len(open)-1]; kind {
-	case "element", "phase":
-		// These blocks take one optional property, right after the brace.
-		if prev.Value != "{" {
-			return ""
-		}
-		if kind == "element" {
-			return `"mass"`
-		}
-		return `"convention"`
-	case "polynomial":
-		return "a coefficient"
-	default:
-		return blockWords[kind]
-	}
-}
-
-var blockWords = map[string]string{
-	"settings": productionWords["Setting"],
-	"species":  productionWords["SpeciesProperty"],
-	"reaction": productionWords["ReactionProperty"],
-	"mixture":  productionWords["MixItem"],
-}
-
-// expected rewrites participle's expectation (a grammar fragment) in words:
-// the first element of the expected sequence, named for a reader.
-func expected(ute *participle.UnexpectedTokenError) string {
-	msg := ute.Message()
-	i := strings.Index(msg, "(expected ")
-	if i < 0 {
-		return ""
-	}
-	exp := strings.TrimSuffix(msg[i+len("(expected "):], ")")
-	var alts []string
-	for _, alt := range strings.Split(firstOfSequence(exp), " | ") {
-		alt = strings.Trim(alt, "()?*+ ")
-		if w, ok := productionWords[alt]; ok {
-			alt = w
-		} else if strings.HasPrefix(alt, "<") {
-			alt = "a " + strings.Trim(alt, "<>")
-		}
-		if alt != "" && !contains(alts, alt) {
-			alts = append(alts, alt)
-		}
-	}
-	return strings.Join(alts, " or ")
-}
-
-// firstOfSequence returns the first top-level element of an EBNF sequence.
-func firstOfSequence(s string) string {
-	depth := 0
-	for i, r := range s {
-		switch r {
-		case '(':
-			depth++
-		case ')':
-			depth--
-		case ' ':
-			if depth == 0 && !strings.HasPrefix(s[i:], " | ") && (i < 2 || s[i-2:i] != " |") {
-				return s[:i]
-			}
-		}
-	}
-	return s
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
-}
-
-var productionWords = map[string]string{
-	"Arrow":            "an arrow (<-> or ->)",
-	"Term":             "a species",
-	"SpeciesRef":       "a species",
-	"Ident":            "a name",
-	"Quantity":         "a number",
-	"Num":              "a number",
-	"Unit":             "a unit",
-	"Str":              "a string",
-	"Setting":          "a setting (pressure, temperatures, tolerance, lint)",
-	"SpeciesProperty":  "a species property (formula, hf, gf, s, cp, shomate, nasa7, source, note)",
-	"ReactionProperty": "a reaction property (dg, dh, ds, logk, rate, reverse, source)",
-	"MixItem":          "a mixture item (temperature, pressure, or a species)",
-	"MixMember":        "a species",
-	"Combination":      "a reaction name",
-	"ComboTerm":        "a reaction name",
-	"TempSet":          "a temperature",
-	"Lint":             "a check name",
-	"Statement":        "a statement",
-	"FormulaProp":      "a formula",
-}
-
-func describe(t lexer.Token) string {
-	switch {
-	case isEnd(t):
-		return "end of statement"
-	case t.Type == Keyword:
-		return fmt.Sprintf("keyword %q", t.Value)
-	case t.Type == Number:
-		return fmt.Sprintf("number %s", t.Value)
-	case t.Type == String:
-		return fmt.Sprintf("string %s", t.Value)
-	}
-	return fmt.Sprintf("%q", t.Value)
 }

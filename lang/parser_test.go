@@ -364,6 +364,7 @@ func TestSyntaxErrors(t *testing.T) {
 		{"missing number", "settings { pressure bar }", `expected a number, found "bar"`, 1, 21},
 		{"missing temperature", "mixture m { temperature }", `expected a number, found "}"`, 1, 25},
 		{"missing sigma", "species X(g) { hf 1 ± kJ/mol }", `expected a number, found "kJ/mol"`, 1, 23},
+		{"sigma without number in a setting", "settings { pressure 1 ± bar }", `expected a number, found "bar"`, 1, 25},
 		{"range without step", "settings { temperatures 1 K to 2 K }", `expected "by", found "}"`, 1, 36},
 		{"list ends in comma", "settings { temperatures 1 K, }", `expected a temperature, found "}"`, 1, 30},
 		{"missing Ea", "reaction r: A -> B { rate A 1 1/s }", `expected "Ea", found "}"`, 1, 35},
@@ -509,7 +510,7 @@ func TestGrammarGolden(t *testing.T) {
 
 // referenceParse parses src the plain way, as a check on Parse: the whole
 // file is lexed first, cut into statements by the same rule, and each
-// statement is parsed on its own by the full Statement grammar.
+// statement is parsed on its own, serially, by its kind's parser.
 func referenceParse(src []byte) ([]*Statement, []string) {
 	toks, _, lexDiags := Lex("f.hess", src)
 	var msgs []string
@@ -544,15 +545,12 @@ func referenceParse(src []byte) ([]*Statement, []string) {
 		e := TokenSpan(c[len(c)-1]).End
 		eof := lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Filename: "f.hess", Offset: e.Offset, Line: e.Line, Column: e.Column}}
 		stream := append(append([]lexer.Token(nil), c...), eof)
-		i := 0
-		peek, _ := lexer.Upgrade(lexerFunc(func() (lexer.Token, error) {
-			if i == len(stream) {
-				return eof, nil
-			}
-			i++
-			return stream[i-1], nil
-		}))
-		st, err := statementParser.ParseFromLexer(peek)
+		st := &Statement{Node: Node{Pos: c[0].Pos, Tokens: c}}
+		cur := &tokenCursor{toks: stream}
+		err := statementParsers[c[0].Value](cur, st)
+		if err == nil && !isEnd(*cur.Peek()) {
+			err = &syntaxError{found: *cur.Peek()}
+		}
 		if err != nil {
 			d := syntaxDiag(c, err)
 			msgs = append(msgs, fmt.Sprintf("%d:%d: %s", d.Subject.Start.Line, d.Subject.Start.Column, d.Message))
@@ -570,10 +568,6 @@ func short(src []byte) string {
 	}
 	return fmt.Sprintf("%q", src)
 }
-
-type lexerFunc func() (lexer.Token, error)
-
-func (f lexerFunc) Next() (lexer.Token, error) { return f() }
 
 // checkConformance compares Parse with referenceParse on src.
 func checkConformance(t *testing.T, src []byte) {

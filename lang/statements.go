@@ -6,41 +6,59 @@ import (
 )
 
 // The species and reaction statements, by far the most numerous in a large
-// network, are read by hand rather than by participle's reflection. Each
-// reads what its struct tags in ast.go say, reports the same expectations
-// at the same tokens, and leaves what it read so far in the node when it
-// fails, as participle does.
+// network, are read by hand rather than by participle's reflection, each
+// by its production below. When a reader fails it leaves what it read so
+// far in the node.
+
+var (
+	speciesRule = rule("Species", "",
+		seq{lit("species"), ref("SpeciesRef"), many{moreRefsPart}, opt{ref("Str")}, opt{block("SpeciesProperty")}})
+	reactionRule = rule("Reaction", "",
+		seq{lit("reaction"), ref("Ident"), lit(":"), ref("Term"), many{moreTermsPart}, ref("Arrow"),
+			ref("Term"), many{moreTermsPart}, opt{comboPart}, opt{block("ReactionProperty")}})
+
+	moreRefsPart  = seq{lit(","), ref("SpeciesRef")}
+	moreTermsPart = seq{lit("+"), ref("Term")}
+	comboPart     = seq{lit("="), ref("Combination")}
+)
+
+// The braces around a block.
+const openBrace, closeBrace = lit("{"), lit("}")
+
+// block is a block of items: "{" item* "}".
+func block(item string) seq { return seq{openBrace, many{ref(item)}, closeBrace} }
+
+// blockOpens reports whether t opens a block.
+func blockOpens(t *lexer.Token) bool { return t.Type == Punct && isLit(t, openBrace) }
 
 // comboParser reads the combination after a reaction's "=".
 var comboParser = participle.MustBuild[Combination](parserOptions...)
 
-// parseSpeciesStatement reads
-// "species" SpeciesRef ("," SpeciesRef)* Str? ("{" SpeciesProperty* "}")?.
+// parseSpeciesStatement reads a Species.
 func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	first := *lex.Next() // "species"
 	out := &Species{Node: Node{Pos: first.Pos}}
 	st.Species = out
-	const refsRest = `SpeciesRef ("," SpeciesRef)* Str? ("{" SpeciesProperty* "}")?`
 	for {
 		ref := &SpeciesRef{}
 		if ref.read(lex) != nil {
 			if len(out.Refs) == 0 {
-				return unexpectedRest(lex, refsRest)
+				return expecting(lex, speciesRule.at(1))
 			}
-			return unexpectedRest(lex, "SpeciesRef")
+			return expecting(lex, moreRefsPart[1])
 		}
 		out.Refs = append(out.Refs, ref)
-		if t := lex.Peek(); t.Type != Punct || t.Value != "," {
+		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreRefsPart[0]) {
 			break
 		}
 		lex.Next()
 	}
-	if lex.Peek().Type == String {
+	if strRule.begins(lex.Peek()) {
 		out.Label = &Str{}
 		_ = out.Label.read(lex)
 	}
-	if t := lex.Peek(); t.Type == Punct && t.Value == "{" {
+	if blockOpens(lex.Peek()) {
 		out.HasBody = true
 		props, err := parseBlock[SpeciesProperty](lex)
 		out.Props = props
@@ -52,9 +70,9 @@ func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	return nil
 }
 
-// parseTerms reads Term ("+" Term)* into *terms, failing expecting rest
-// when no term starts the list.
-func parseTerms(lex *tokenCursor, terms *[]*Term, rest string) error {
+// parseTerms reads Term ("+" Term)* into *terms, failing expecting part
+// x of the reaction when no term starts the list.
+func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
 	for {
 		tm := &Term{}
 		if err := tm.read(lex); err != nil {
@@ -62,21 +80,19 @@ func parseTerms(lex *tokenCursor, terms *[]*Term, rest string) error {
 				return err
 			}
 			if len(*terms) == 0 {
-				return unexpectedRest(lex, rest)
+				return expecting(lex, x)
 			}
-			return unexpectedRest(lex, "Term")
+			return expecting(lex, moreTermsPart[1])
 		}
 		*terms = append(*terms, tm)
-		if t := lex.Peek(); t.Type != Punct || t.Value != "+" {
+		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreTermsPart[0]) {
 			return nil
 		}
 		lex.Next()
 	}
 }
 
-// parseReactionStatement reads
-// "reaction" Ident ":" Term ("+" Term)* Arrow Term ("+" Term)*
-// ("=" Combination)? ("{" ReactionProperty* "}")?.
+// parseReactionStatement reads a Reaction.
 func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	first := *lex.Next() // "reaction"
@@ -84,24 +100,24 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	st.Reaction = out
 	name := &Ident{}
 	if name.read(lex) != nil {
-		return unexpectedRest(lex, `Ident ":" Term ("+" Term)* Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`)
+		return expecting(lex, reactionRule.at(1))
 	}
 	out.Name = name
-	if err := expectLiteral(lex, ":", `":" Term ("+" Term)* Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`); err != nil {
+	if err := expectLit(lex, reactionRule.at(2)); err != nil {
 		return err
 	}
-	if err := parseTerms(lex, &out.Left, `Term ("+" Term)* Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`); err != nil {
+	if err := parseTerms(lex, &out.Left, reactionRule.at(3)); err != nil {
 		return err
 	}
 	arrow := &Arrow{}
 	if arrow.read(lex) != nil {
-		return unexpectedRest(lex, `Arrow Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`)
+		return expecting(lex, reactionRule.at(5))
 	}
 	out.Arrow = arrow
-	if err := parseTerms(lex, &out.Right, `Term ("+" Term)* ("=" Combination)? ("{" ReactionProperty* "}")?`); err != nil {
+	if err := parseTerms(lex, &out.Right, reactionRule.at(6)); err != nil {
 		return err
 	}
-	if t := lex.Peek(); t.Type == Punct && t.Value == "=" {
+	if t := lex.Peek(); t.Type == Punct && isLit(t, comboPart[0]) {
 		lex.Next()
 		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
 			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
@@ -114,7 +130,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 			return err
 		}
 	}
-	if t := lex.Peek(); t.Type == Punct && t.Value == "{" {
+	if blockOpens(lex.Peek()) {
 		out.HasBody = true
 		props, err := parseBlock[ReactionProperty](lex)
 		out.Props = props
@@ -146,5 +162,5 @@ func parseBlock[P any, PP interface {
 		}
 		props = append(props, p)
 	}
-	return props, expectLiteral(lex, "}", `"}"`)
+	return props, expectLit(lex, closeBrace)
 }

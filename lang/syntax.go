@@ -1,0 +1,207 @@
+package lang
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+
+	"github.com/alecthomas/participle/v2"
+	"github.com/alecthomas/participle/v2/lexer"
+)
+
+// syntaxError is why a statement does not parse: the token found where
+// the grammar wanted one of expected, named in words ("a number", `"to"`).
+// The hand-written readers return it where they find the fault; an error
+// of participle's becomes one in toSyntaxError. It meets participle.Error,
+// so it passes unchanged through participle when participle calls a
+// reader.
+type syntaxError struct {
+	found    lexer.Token
+	expected []string // empty where the grammar does not say
+	// worded is a message participle words itself, with no token found;
+	// it is reported at found.Pos as it stands.
+	worded string
+}
+
+// expecting is the error for a missing part x of the grammar: the next
+// token is not one that can start it.
+func expecting(lex tokenStream, x expr) error {
+	return &syntaxError{found: *lex.Peek(), expected: x.words()}
+}
+
+func (e *syntaxError) Error() string            { return participle.FormatError(e) }
+func (e *syntaxError) Position() lexer.Position { return e.found.Pos }
+
+func (e *syntaxError) Message() string {
+	if e.worded != "" {
+		return e.worded
+	}
+	return e.message(nil)
+}
+
+// message says what was expected and what was found. toks are the
+// statement's tokens, which name what may stand inside a block where the
+// error expects only its end.
+func (e *syntaxError) message(toks []lexer.Token) string {
+	exp := strings.Join(e.expected, " or ")
+	if exp == `"}"` || exp == "" {
+		if items := blockItems(toks, e.found); items != "" {
+			exp = items + ` or "}"`
+		}
+	}
+	if exp == "" && !isEnd(e.found) {
+		exp = "end of statement"
+	}
+	if exp == "" {
+		return "unexpected " + describe(e.found)
+	}
+	return "expected " + exp + ", found " + describe(e.found)
+}
+
+// toSyntaxError is the one place where an error of participle's, from the
+// statements it reads, becomes a syntaxError. It returns nil for an error
+// that is neither.
+func toSyntaxError(err error) *syntaxError {
+	var se *syntaxError
+	var ute *participle.UnexpectedTokenError
+	var perr participle.Error
+	switch {
+	case errors.As(err, &se):
+		return se
+	case errors.As(err, &ute):
+		return &syntaxError{found: ute.Unexpected, expected: participleExpected(ute)}
+	case errors.As(err, &perr):
+		return &syntaxError{found: lexer.Token{Pos: perr.Position()}, worded: strings.ToLower(perr.Message())}
+	}
+	return nil
+}
+
+// participleExpected names, in words, the first part of what participle
+// expected. Participle keeps the grammar node it expected to itself and
+// gives it out only as EBNF in its message, so this reads that fragment:
+// its first element, each alternative of it named as the grammar names it.
+func participleExpected(ute *participle.UnexpectedTokenError) []string {
+	msg := ute.Message()
+	i := strings.Index(msg, "(expected ")
+	if i < 0 {
+		return nil
+	}
+	exp := strings.TrimSuffix(msg[i+len("(expected "):], ")")
+	var alts []string
+	for _, alt := range strings.Split(firstOfSequence(exp), " | ") {
+		alt = strings.Trim(alt, "()?*+ ")
+		if w := productionWords(alt); w != "" {
+			alt = w
+		} else if strings.HasPrefix(alt, "<") {
+			alt = "a " + strings.Trim(alt, "<>")
+		}
+		if alt != "" && !contains(alts, alt) {
+			alts = append(alts, alt)
+		}
+	}
+	return alts
+}
+
+// firstOfSequence returns the first top-level element of an EBNF sequence.
+func firstOfSequence(s string) string {
+	depth := 0
+	for i, r := range s {
+		switch r {
+		case '(':
+			depth++
+		case ')':
+			depth--
+		case ' ':
+			if depth == 0 && !strings.HasPrefix(s[i:], " | ") && (i < 2 || s[i-2:i] != " |") {
+				return s[:i]
+			}
+		}
+	}
+	return s
+}
+
+// syntaxDiag is the diagnostic for a statement that does not parse. toks
+// are the statement's tokens.
+func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
+	stmt := TokenSpan(toks[0]).Join(TokenSpan(toks[len(toks)-1]))
+	d := Diagnostic{Code: "syntax", Severity: Error, Context: stmt}
+	se := toSyntaxError(err)
+	switch {
+	case se == nil:
+		d.Subject = stmt
+		d.Message = err.Error()
+	case se.worded != "":
+		p := se.found.Pos
+		pos := Pos{Line: p.Line, Column: p.Column, Offset: p.Offset}
+		d.Subject = Span{File: p.Filename, Start: pos, End: pos}
+		d.Message = se.worded
+	default:
+		d.Subject = TokenSpan(se.found)
+		d.Message = se.message(toks)
+	}
+	return d
+}
+
+// blockItems names what may stand at token at inside the innermost block
+// that is open there, or "" when at is not directly inside a block or the
+// block takes nothing more.
+func blockItems(toks []lexer.Token, at lexer.Token) string {
+	var open []string // the kind of each open block
+	prev := lexer.Token{}
+	for _, t := range toks {
+		if t.Pos.Offset >= at.Pos.Offset {
+			break
+		}
+		if t.Type == Punct && t.Value == "{" {
+			kind := toks[0].Value
+			if len(open) > 0 {
+				kind = "polynomial"
+			}
+			open = append(open, kind)
+		}
+		if t.Type == Punct && t.Value == "}" && len(open) > 0 {
+			open = open[:len(open)-1]
+		}
+		prev = t
+	}
+	if len(open) == 0 {
+		return ""
+	}
+	switch kind := open[len(open)-1]; kind {
+	case "element", "phase":
+		// These blocks take one optional property, right after the brace.
+		if prev.Value != "{" {
+			return ""
+		}
+		if kind == "element" {
+			return `"mass"`
+		}
+		return `"convention"`
+	case "polynomial":
+		return "a coefficient"
+	default:
+		return productionWords(blockItem[kind])
+	}
+}
+
+// blockItem is the production that stands inside each kind of block.
+var blockItem = map[string]string{
+	"settings": "Setting",
+	"species":  "SpeciesProperty",
+	"reaction": "ReactionProperty",
+	"mixture":  "MixItem",
+}
+
+func describe(t lexer.Token) string {
+	switch {
+	case isEnd(t):
+		return "end of statement"
+	case t.Type == Keyword:
+		return fmt.Sprintf("keyword %q", t.Value)
+	case t.Type == Number:
+		return fmt.Sprintf("number %s", t.Value)
+	case t.Type == String:
+		return fmt.Sprintf("string %s", t.Value)
+	}
+	return fmt.Sprintf("%q", t.Value)
+}
