@@ -73,24 +73,26 @@ func benchLoad(b *testing.B, shape synth.Shape, species, reactions int) {
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(reactions), "ns/reaction")
 }
 
-// BenchmarkChecksSynthetic runs each check alone on the generated network
-// of 50 000 reactions, compiled once, so that a profile of the full
-// compile can be read check by check.
+// BenchmarkChecksSynthetic runs each check alone on the generated networks
+// of 50 000 reactions of both shapes, compiled once, so that a profile of
+// the full compile can be read check by check.
 func BenchmarkChecksSynthetic(b *testing.B) {
-	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
-	base := n.Diagnostics
-	for _, c := range checks {
-		if c.Run == nil {
-			continue
-		}
-		b.Run(c.Name, func(b *testing.B) {
-			b.ReportAllocs()
-			for b.Loop() {
-				n.Diagnostics = base[:len(base):len(base)]
-				c.Run(&Pass{Net: n, check: c})
+	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
+		root, src, _ := shapeSource(b, shape, 10000, 50000)
+		n := Load(root, src)
+		base := n.Diagnostics
+		for _, c := range checks {
+			if c.Run == nil {
+				continue
 			}
-		})
+			b.Run(shape.String()+"/"+c.Name, func(b *testing.B) {
+				b.ReportAllocs()
+				for b.Loop() {
+					n.Diagnostics = base[:len(base):len(base)]
+					c.Run(&Pass{Net: n, check: c})
+				}
+			})
+		}
 	}
 }
 
