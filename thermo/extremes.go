@@ -34,14 +34,15 @@ type Polynomial interface {
 	// and every temperature inside where dCp°/dT or Cp° changes sign (or is
 	// zero at a turning point): the only temperatures where Cp°, H° or S°
 	// can take their least or greatest value on the range.
-	Critical() []float64
+	Critical() Temperatures
 }
 
 // RangeExtremes evaluates m at its critical temperatures and returns the
 // least and greatest values, which are those over the whole range.
 func RangeExtremes(m Polynomial) Extremes {
 	var e Extremes
-	for i, T := range m.Critical() {
+	c := m.Critical()
+	for i, T := range c.List() {
 		cp, h, s := m.Cp(T), m.H(T), m.S(T)
 		if i == 0 {
 			e = Extremes{Extreme{T, cp}, Extreme{T, cp}, Extreme{T, h}, Extreme{T, h}, Extreme{T, s}, Extreme{T, s}}
@@ -69,34 +70,46 @@ func higher(x *Extreme, T, v float64) {
 	}
 }
 
+// Temperatures is a short ascending list of temperatures (K) held by value:
+// a range's bounds and the roots of two polynomials of degree five at most.
+type Temperatures struct {
+	t [12]float64
+	n int
+}
+
+// List returns the temperatures.
+func (c *Temperatures) List() []float64 { return c.t[:c.n] }
+
 // Critical returns the range's bounds and the temperatures inside where
 // dCp°/dT (a cubic) or Cp° (a quartic) changes sign, ascending.
-func (r NASA7Range) Critical() []float64 {
+func (r NASA7Range) Critical() Temperatures {
 	a := &r.A
 	cp := poly{a[0], a[1], a[2], a[3], a[4]}
-	return critical(r.Tmin, r.Tmax, 1, cp.derivative(), cp)
+	slope := cp.derivative()
+	return critical(r.Tmin, r.Tmax, 1, &slope, &cp)
 }
 
 // Critical returns the range's bounds and the temperatures inside where
-// dCp°/dT or Cp° changes sign, ascending (see the package's notes above
+// dCp°/dT or Cp° changes sign, ascending (see the notes above
 // RangeExtremes for the quintics in t = T/1000 whose roots they are).
-func (r ShomateRange) Critical() []float64 {
+func (r ShomateRange) Critical() Temperatures {
 	c := &r.Coef
 	A, B, C, D, E := c[0], c[1], c[2], c[3], c[4]
 	slope := poly{-2 * E, 0, 0, B, 2 * C, 3 * D}
 	value := poly{E, 0, A, B, C, D}
-	return critical(r.Tmin, r.Tmax, 1000, slope, value)
+	return critical(r.Tmin, r.Tmax, 1000, &slope, &value)
 }
 
-// critical returns Tmin, the roots of each polynomial in x = T/scale
+// critical lists Tmin, the roots of the two polynomials in x = T/scale
 // strictly inside the range, and Tmax, ascending without repeats.
-func critical(Tmin, Tmax, scale float64, ps ...poly) []float64 {
-	out := []float64{Tmin}
-	for _, p := range ps {
-		for _, x := range p.roots(Tmin/scale, Tmax/scale) {
-			if T := x * scale; T > Tmin && T < Tmax {
-				out = append(out, T)
-			}
+func critical(Tmin, Tmax, scale float64, p, q *poly) Temperatures {
+	var c Temperatures
+	var buf [2 * (len(poly{}) - 1)]float64
+	roots := q.appendRoots(p.appendRoots(buf[:0], Tmin/scale, Tmax/scale), Tmin/scale, Tmax/scale)
+	out := append(c.t[:0], Tmin)
+	for _, x := range roots {
+		if T := x * scale; T > Tmin && T < Tmax {
+			out = append(out, T)
 		}
 	}
 	out = append(out, Tmax)
@@ -108,7 +121,8 @@ func critical(Tmin, Tmax, scale float64, ps ...poly) []float64 {
 			w++
 		}
 	}
-	return out[:w]
+	c.n = w
+	return c
 }
 
 // sortFloats sorts a short slice in place (insertion sort: at most a dozen).
@@ -149,26 +163,39 @@ func (p *poly) derivative() poly {
 	return d
 }
 
-// roots returns, ascending, the roots of p strictly inside (a, b) where p
-// changes sign or touches zero at a turning point. The roots of the
-// derivative split (a, b) into pieces on which p is monotonic; a piece
-// whose ends differ in sign holds exactly one root, which Brent's method
-// refines to the precision of a double. A zero polynomial has none (every
-// point is as extreme as any other, and the bounds are candidates anyway).
-func (p *poly) roots(a, b float64) []float64 {
+// appendRoots appends to dst, ascending, the roots of p strictly inside
+// (a, b) where p changes sign or touches zero at a turning point. Working
+// up from the linear derivative, the roots of each derivative split (a, b)
+// into pieces on which the next one up is monotonic; a piece whose ends
+// differ in sign holds exactly one root, which Brent's method refines to
+// the precision of a double. A zero polynomial has none (every point is as
+// extreme as any other, and the bounds are candidates anyway).
+func (p *poly) appendRoots(dst []float64, a, b float64) []float64 {
 	d := p.degree()
-	switch {
-	case d <= 0 || !(a < b):
-		return nil
-	case d == 1:
-		if x := -p[0] / p[1]; a < x && x < b {
-			return []float64{x}
-		}
-		return nil
+	if d <= 0 || !(a < b) {
+		return dst
 	}
-	dp := p.derivative()
-	turns := dp.roots(a, b)
-	var out []float64
+	var chain [len(poly{})]poly // chain[k] is the k-th derivative of p
+	chain[0] = *p
+	for k := 1; k < d; k++ {
+		chain[k] = chain[k-1].derivative()
+	}
+	var bufs [2][len(poly{})]float64
+	lin := &chain[d-1] // linear
+	roots := bufs[0][:0]
+	if x := -lin[0] / lin[1]; a < x && x < b {
+		roots = append(roots, x)
+	}
+	for k := d - 2; k >= 0; k-- {
+		roots = chain[k].rootsBetween(bufs[k%2][:0], a, b, roots)
+	}
+	return append(dst, roots...)
+}
+
+// rootsBetween appends the roots of p inside (a, b), given the roots of
+// its derivative there (turns, ascending): one on each monotonic piece whose
+// ends differ in sign, and any turn where p is zero.
+func (p *poly) rootsBetween(dst []float64, a, b float64, turns []float64) []float64 {
 	lo, flo := a, p.at(a)
 	for i := 0; i <= len(turns); i++ {
 		hi := b
@@ -178,13 +205,13 @@ func (p *poly) roots(a, b float64) []float64 {
 		fhi := p.at(hi)
 		switch {
 		case fhi == 0 && hi < b:
-			out = append(out, hi)
+			dst = append(dst, hi)
 		case flo != 0 && fhi != 0 && (flo < 0) != (fhi < 0):
 			if x, err := Brent(p.at, lo, hi, 0); err == nil && !math.IsNaN(x) {
-				out = append(out, x)
+				dst = append(dst, x)
 			}
 		}
 		lo, flo = hi, fhi
 	}
-	return out
+	return dst
 }

@@ -51,7 +51,8 @@ func TestCritical(t *testing.T) {
 		},
 	} {
 		t.Run(c.name, func(t *testing.T) {
-			got := c.m.Critical()
+			cs := c.m.Critical()
+			got := cs.List()
 			if len(got) != len(c.want) {
 				t.Fatalf("critical temperatures %v, want %v", got, c.want)
 			}
