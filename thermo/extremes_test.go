@@ -118,8 +118,8 @@ func TestRangeExtremes(t *testing.T) {
 	near(t, "shomate Cp max", e.CpMax, 500, 5.5)
 }
 
-// TestRangeExtremesBoundSamples checks on random quartics that no sample
-// of a fine grid lies beyond the extremes found.
+// TestRangeExtremesBoundSamples checks on random NASA 7-term and Shomate
+// ranges that no sample of a fine grid lies beyond the extremes found.
 func TestRangeExtremesBoundSamples(t *testing.T) {
 	seed := uint64(88172645463325252)
 	next := func() float64 { // xorshift, deterministic
@@ -130,7 +130,10 @@ func TestRangeExtremesBoundSamples(t *testing.T) {
 	}
 	for k := 0; k < 300; k++ {
 		x := [5]float64{next(), next(), next(), next(), next()} // Cp/R in x = T/1000
-		m := NASA7Range{Tmin: 200, Tmax: 3000, A: [7]float64{x[0], x[1] / 1e3, x[2] / 1e6, x[3] / 1e9, x[4] / 1e12, next() * 1e4, next() * 10}}
+		var m Polynomial = NASA7Range{Tmin: 200, Tmax: 3000, A: [7]float64{x[0], x[1] / 1e3, x[2] / 1e6, x[3] / 1e9, x[4] / 1e12, next() * 1e4, next() * 10}}
+		if k%2 == 1 {
+			m = ShomateRange{Tmin: 200, Tmax: 3000, Coef: [8]float64{30 * x[0], 20 * x[1], 10 * x[2], 3 * x[3], 0.1 * x[4], next() * 100, next() * 100}}
+		}
 		e := RangeExtremes(m)
 		for i := 0; i <= 2000; i++ {
 			T := 200 + 2800*float64(i)/2000
@@ -140,7 +143,7 @@ func TestRangeExtremesBoundSamples(t *testing.T) {
 			}{{m.Cp(T), e.CpMin, e.CpMax}, {m.H(T), e.HMin, e.HMax}, {m.S(T), e.SMin, e.SMax}} {
 				slack := 1e-9 * math.Max(1, math.Abs(q.v))
 				if q.v < q.min.V-slack || q.v > q.max.V+slack {
-					t.Fatalf("%v: %g at %g K outside [%g, %g]", m.A, q.v, T, q.min.V, q.max.V)
+					t.Fatalf("%+v: %g at %g K outside [%g, %g]", m, q.v, T, q.min.V, q.max.V)
 				}
 			}
 		}
