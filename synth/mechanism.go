@@ -43,16 +43,38 @@ func generateMechanism(cfg Config) *Network {
 		every = cfg.Reactions / cfg.OwnData
 	}
 	own := 0
-	// Every cover-th reaction starts from the next species in turn, so that
-	// every species takes part; no equation is written twice either way.
+	// Every cover-th reaction starts from the next species that takes part
+	// in no reaction yet, so that every species does where the reactions
+	// are enough; no equation is written twice either way.
 	cover := max(1, cfg.Reactions/len(sp))
 	seen := make(map[string]bool, 2*cfg.Reactions)
+	used := make([]bool, len(sp))
+	next := 0
 	for i := 0; i < cfg.Reactions; i++ {
-		whole := -1
-		if i%cover == 0 && i/cover < len(sp) {
-			whole = i / cover
+		var bring []int
+		if i%cover == 0 {
+			// Where there are fewer reactions than species, each must bring
+			// in two new ones.
+			want := 1
+			if cfg.Reactions < len(sp) {
+				want = 2
+			}
+			for k := next; k < len(sp) && len(bring) < want; k++ {
+				if !used[k] && sp[k].c.total() >= 2 {
+					bring = append(bring, k)
+				}
+			}
+			for next < len(sp) && (used[next] || sp[next].c.total() < 2) {
+				next++
+			}
 		}
-		left, right := makeMechanismReaction(sp, byComp, whole, seen, rng)
+		left, right := makeMechanismReaction(sp, byComp, bring, seen, rng)
+		for _, t := range left {
+			used[t.sp] = true
+		}
+		for _, t := range right {
+			used[t.sp] = true
+		}
 		fmt.Fprintf(&b, "reaction R%d: %s <-> %s", i+1, side(sp, left), side(sp, right))
 		if every > 0 && i%every == 0 && own < cfg.OwnData {
 			own++
@@ -196,13 +218,26 @@ func writeMechanismSpecies(b *strings.Builder, s *species) {
 // makeMechanismReaction draws a step as mechanisms hold them: mostly
 // bimolecular exchanges (A + B <-> C + D), then decompositions and
 // recombinations, and isomerisations where the composition has isomers.
-// With whole ≥ 0 it first tries a decomposition of that species. An
+// Given species to bring in, it first tries them on the left (two as a
+// bimolecular step, one as a decomposition), then the first alone. An
 // equation in seen, either way round, is drawn again; the new one is added.
-func makeMechanismReaction(sp []species, byComp map[comp][]int, whole int, seen map[string]bool, rng *rand.Rand) (left, right []term) {
+func makeMechanismReaction(sp []species, byComp map[comp][]int, bring []int, seen map[string]bool, rng *rand.Rand) (left, right []term) {
 	for try := 0; ; try++ {
-		if whole >= 0 && try < 50 && sp[whole].c.total() >= 2 {
-			left = []term{{1, whole}}
-			right, ok := split(sp[whole].c, 2, byComp, rng)
+		if len(bring) == 2 && try < 30 {
+			a, b := sp[bring[0]].c, sp[bring[1]].c
+			for e := range a {
+				a[e] += b[e]
+			}
+			left = []term{{1, bring[0]}, {1, bring[1]}}
+			right, ok := split(a, 2, byComp, rng)
+			if ok && !shares(left, right) && fresh(sp, left, right, seen) {
+				return left, right
+			}
+			continue
+		}
+		if len(bring) > 0 && try < 60 {
+			left = []term{{1, bring[0]}}
+			right, ok := split(sp[bring[0]].c, 2, byComp, rng)
 			if ok && !shares(left, right) && fresh(sp, left, right, seen) {
 				return left, right
 			}
