@@ -3,45 +3,31 @@ package network
 import (
 	"fmt"
 	"math"
-)
 
-// polySamples is how many temperatures of each polynomial range the
-// implausible-value check evaluates, bounds included.
-const polySamples = 50
+	"hess/thermo"
+)
 
 // implausiblePolynomials reports polynomial ranges that give, somewhere
 // between their bounds, a heat capacity at or below zero or a negative
 // entropy for a neutral species, or an enthalpy, entropy or heat capacity
 // beyond the bounds of implausible-value. Each range reports its worst
-// value of each kind.
+// value of each kind, found exactly (thermo.RangeExtremes): at a bound, or
+// where Cp° or its slope changes sign.
 func implausiblePolynomials(p *Pass) {
 	for _, sp := range p.Net.Species {
 		for _, r := range sp.Ranges {
-			m := r.model()
-			if m == nil {
+			m, ok := r.model().(thermo.Polynomial)
+			if !ok {
 				continue
 			}
-			var minCp, minS, maxS, maxCp, maxH = math.Inf(1), math.Inf(1), math.Inf(-1), math.Inf(-1), 0.0
-			var tMinCp, tMinS, tMaxS, tMaxCp, tMaxH float64
-			for i := range polySamples {
-				T := r.Tmin + (r.Tmax-r.Tmin)*float64(i)/float64(polySamples-1)
-				cp, s, h := m.Cp(T), m.S(T), m.H(T)
-				if cp < minCp {
-					minCp, tMinCp = cp, T
-				}
-				if cp > maxCp {
-					maxCp, tMaxCp = cp, T
-				}
-				if s < minS {
-					minS, tMinS = s, T
-				}
-				if s > maxS {
-					maxS, tMaxS = s, T
-				}
-				if math.Abs(h) > math.Abs(maxH) {
-					maxH, tMaxH = h, T
-				}
+			e := thermo.RangeExtremes(m)
+			minCp, tMinCp, maxCp, tMaxCp := e.CpMin.V, e.CpMin.T, e.CpMax.V, e.CpMax.T
+			minS, tMinS, maxS, tMaxS := e.SMin.V, e.SMin.T, e.SMax.V, e.SMax.T
+			worstH := e.HMax
+			if a, b := math.Abs(e.HMin.V), math.Abs(e.HMax.V); a > b || a == b && e.HMin.T < e.HMax.T {
+				worstH = e.HMin
 			}
+			maxH, tMaxH := worstH.V, worstH.T
 			// Most ranges are fine: the range's description is written
 			// only for a report.
 			where := func() string {

@@ -13,7 +13,24 @@ import (
 // over four files) and serves it from memory.
 func synthSource(tb testing.TB, species, reactions int) (root string, src memSource, size int) {
 	tb.Helper()
-	g, err := synth.Generate(synth.Config{Seed: 1, Species: species, Reactions: reactions, OwnData: reactions / 10, Files: 4})
+	return shapeSource(tb, synth.Spread, species, reactions)
+}
+
+// shapeCfg is the configuration of each shape the scale benchmarks
+// measure: Spread with a tenth of the reactions carrying own data over four
+// files, Mechanism in one file with one reaction in a hundred.
+func shapeCfg(shape synth.Shape, species, reactions int) synth.Config {
+	if shape == synth.Mechanism {
+		return synth.Config{Shape: shape, Seed: 1, Species: species, Reactions: reactions, OwnData: reactions / 100, Files: 1}
+	}
+	return synth.Config{Shape: shape, Seed: 1, Species: species, Reactions: reactions, OwnData: reactions / 10, Files: 4}
+}
+
+// shapeSource generates a network of the shape and size and serves it
+// from memory.
+func shapeSource(tb testing.TB, shape synth.Shape, species, reactions int) (root string, src memSource, size int) {
+	tb.Helper()
+	g, err := synth.Generate(shapeCfg(shape, species, reactions))
 	if err != nil {
 		tb.Fatal(err)
 	}
@@ -24,45 +41,58 @@ func synthSource(tb testing.TB, species, reactions int) (root string, src memSou
 	return path.Join("/syn", g.Root), src, g.Bytes()
 }
 
+// scaleSizes are the sizes the scale benchmarks compile: 1 000 species
+// with 5 000 reactions, 10 000 with 50 000, and the 10 000 species of the
+// large network with only 5 000 reactions, where the species dominate.
+var scaleSizes = []struct{ species, reactions int }{{1000, 5000}, {10000, 50000}, {10000, 5000}}
+
 // BenchmarkLoadSynthetic is a full compile with every check of generated
-// networks: 1 000 species and 5 000 reactions, and 10 000 species and
-// 50 000 reactions. ns/reaction is the cost per reaction, whose ratio
-// between the two sizes shows how the compiler scales.
+// networks of both shapes (synth.Spread, synth.Mechanism) at scaleSizes.
+// ns/reaction is the cost per reaction, whose ratio between the sizes shows
+// how the compiler scales.
 func BenchmarkLoadSynthetic(b *testing.B) {
-	for _, size := range []struct{ species, reactions int }{{1000, 5000}, {10000, 50000}} {
-		b.Run(fmt.Sprintf("rx=%d", size.reactions), func(b *testing.B) {
-			root, src, bytes := synthSource(b, size.species, size.reactions)
-			b.SetBytes(int64(bytes))
-			b.ReportAllocs()
-			for b.Loop() {
-				n := Load(root, src)
-				if len(n.Reactions) != size.reactions {
-					b.Fatalf("%d reactions", len(n.Reactions))
-				}
-			}
-			b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(size.reactions), "ns/reaction")
-		})
+	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
+		for _, size := range scaleSizes {
+			b.Run(fmt.Sprintf("%v/sp=%d/rx=%d", shape, size.species, size.reactions), func(b *testing.B) {
+				benchLoad(b, shape, size.species, size.reactions)
+			})
+		}
 	}
 }
 
-// BenchmarkChecksSynthetic runs each check alone on the generated network
-// of 50 000 reactions, compiled once, so that a profile of the full
-// compile can be read check by check.
-func BenchmarkChecksSynthetic(b *testing.B) {
-	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
-	base := n.Diagnostics
-	for _, c := range checks {
-		if c.Run == nil {
-			continue
+func benchLoad(b *testing.B, shape synth.Shape, species, reactions int) {
+	root, src, bytes := shapeSource(b, shape, species, reactions)
+	b.SetBytes(int64(bytes))
+	b.ReportAllocs()
+	for b.Loop() {
+		n := Load(root, src)
+		if len(n.Reactions) != reactions {
+			b.Fatalf("%d reactions", len(n.Reactions))
 		}
-		b.Run(c.Name, func(b *testing.B) {
-			b.ReportAllocs()
-			for b.Loop() {
-				n.Diagnostics = base[:len(base):len(base)]
-				c.Run(&Pass{Net: n, check: c})
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(reactions), "ns/reaction")
+}
+
+// BenchmarkChecksSynthetic runs each check alone on the generated networks
+// of 50 000 reactions of both shapes, compiled once, so that a profile of
+// the full compile can be read check by check.
+func BenchmarkChecksSynthetic(b *testing.B) {
+	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
+		root, src, _ := shapeSource(b, shape, 10000, 50000)
+		n := Load(root, src)
+		base := n.Diagnostics
+		for _, c := range checks {
+			if c.Run == nil {
+				continue
 			}
-		})
+			b.Run(shape.String()+"/"+c.Name, func(b *testing.B) {
+				b.ReportAllocs()
+				for b.Loop() {
+					n.Diagnostics = base[:len(base):len(base)]
+					c.Run(&Pass{Net: n, check: c})
+				}
+			})
+		}
 	}
 }
 

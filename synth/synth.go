@@ -1,8 +1,13 @@
 // Package synth writes invented reaction networks of a chosen size for tests
-// and benchmarks: species with two-range NASA 7-term data, balanced one- to
-// three-body steps, some with their own ΔrG° and a forward rate, spread over
-// a root file and the files it includes. The output depends only on the
-// configuration, seed included.
+// and benchmarks, in two shapes. Spread (the default): species with two-range
+// NASA 7-term data named by Hill formula, balanced one- to three-body steps,
+// some with their own ΔrG° and a forward rate, spread over a root file and
+// the files it includes. Mechanism: one large file laid out as a kinetics
+// mechanism is, with full five-term heat-capacity polynomials, join
+// temperatures that vary between species, isomers declared with an explicit
+// formula, mostly bimolecular steps and few reactions with own data. The
+// output depends only on the configuration, seed included; synth never
+// reads files and never checks what it writes.
 package synth
 
 import (
@@ -11,17 +16,49 @@ import (
 	"math/rand/v2"
 	"os"
 	"path/filepath"
-	"slices"
 	"strings"
 )
 
 // Config sizes a generated network.
 type Config struct {
+	Shape     Shape  // layout of the network; the zero value is Spread
 	Seed      uint64 // seed of the pseudo-random choices
 	Species   int    // number of species, each with NASA 7-term data
 	Reactions int    // number of reactions
 	OwnData   int    // how many reactions carry their own ΔrG° and a rate
-	Files     int    // files the network is spread over (root included); 1 or less: one file
+	Files     int    // files the network is spread over (root included); 1 or less: one file; Mechanism always writes one
+}
+
+// Shape is the layout of a generated network.
+type Shape int
+
+const (
+	// Spread is species named by Hill formula with three-term heat
+	// capacities, one- to three-body steps, over several files.
+	Spread Shape = iota
+	// Mechanism is one file in the layout of a kinetics mechanism: full
+	// polynomials, varying join temperatures, isomers, bimolecular steps.
+	Mechanism
+)
+
+var shapeNames = [...]string{Spread: "spread", Mechanism: "mechanism"}
+
+// String returns the shape's name as ParseShape reads it.
+func (s Shape) String() string {
+	if int(s) >= 0 && int(s) < len(shapeNames) {
+		return shapeNames[s]
+	}
+	return fmt.Sprintf("Shape(%d)", int(s))
+}
+
+// ParseShape reads a shape's name: "spread" or "mechanism".
+func ParseShape(name string) (Shape, error) {
+	for i, n := range shapeNames {
+		if n == name {
+			return Shape(i), nil
+		}
+	}
+	return 0, fmt.Errorf("synth: unknown shape %q (spread or mechanism)", name)
 }
 
 // Network is a generated network: file contents by name, and the root file
@@ -80,6 +117,8 @@ type species struct {
 	low, hi  [7]float64
 	g298     float64 // G° at 298.15 K in J/mol, for the reactions' own data
 	refState bool
+	mid      float64 // join temperature of the two ranges in K (Mechanism)
+	isomer   bool    // named apart from its formula, which is declared (Mechanism)
 }
 
 const (
@@ -100,11 +139,18 @@ func Generate(cfg Config) (*Network, error) {
 	if cfg.Reactions < 1 || cfg.OwnData < 0 || cfg.OwnData > cfg.Reactions {
 		return nil, fmt.Errorf("synth: %d reactions with %d carrying own data", cfg.Reactions, cfg.OwnData)
 	}
+	switch cfg.Shape {
+	case Spread:
+	case Mechanism:
+		return generateMechanism(cfg), nil
+	default:
+		return nil, fmt.Errorf("synth: unknown shape %v", cfg.Shape)
+	}
 	rng := rand.New(rand.NewPCG(cfg.Seed, 0x6865737373796e74))
 	sp := makeSpecies(cfg.Species, rng)
-	index := make(map[comp]int, len(sp))
+	index := make(map[comp][]int, len(sp))
 	for i, s := range sp {
-		index[s.c] = i
+		index[s.c] = append(index[s.c], i)
 	}
 	files := max(cfg.Files, 1)
 	spFiles := (files + 1) / 2
@@ -171,16 +217,7 @@ func Generate(cfg Config) (*Network, error) {
 // makeSpecies lists the first n compositions by atom count (so every part
 // of a listed composition is listed too) and gives each invented data.
 func makeSpecies(n int, rng *rand.Rand) []species {
-	var cs []comp
-	for t := 1; len(cs) < n; t++ {
-		for c := 0; c <= t && len(cs) < n; c++ {
-			for h := 0; c+h <= t && len(cs) < n; h++ {
-				for nn := 0; c+h+nn <= t && len(cs) < n; nn++ {
-					cs = append(cs, comp{c, h, nn, t - c - h - nn})
-				}
-			}
-		}
-	}
+	cs := listComps(n)
 	sp := make([]species, len(cs))
 	for i, c := range cs {
 		sp[i] = newSpecies(c, rng)
@@ -234,7 +271,7 @@ type term struct{ n, sp int }
 
 // makeReaction draws a balanced step: a composition S, split into one to
 // three reactants and one to three products with no species on both sides.
-func makeReaction(sp []species, index map[comp]int, rng *rand.Rand) (left, right []term) {
+func makeReaction(sp []species, index map[comp][]int, rng *rand.Rand) (left, right []term) {
 	for {
 		s := sp[rng.IntN(len(sp))].c
 		r, p := 1+rng.IntN(maxBody), 1+rng.IntN(maxBody)
@@ -251,40 +288,6 @@ func makeReaction(sp []species, index map[comp]int, rng *rand.Rand) (left, right
 		}
 		return left, right
 	}
-}
-
-// split draws k nonzero parts summing to s, equal parts merged.
-func split(s comp, k int, index map[comp]int, rng *rand.Rand) ([]term, bool) {
-	var ts []term
-	rest := s
-	for i := 0; i < k; i++ {
-		part := rest
-		if i < k-1 {
-			for e := range part {
-				part[e] = rng.IntN(rest[e] + 1)
-			}
-			left := rest
-			for e := range left {
-				left[e] -= part[e]
-			}
-			if part.total() == 0 || left.total() == 0 {
-				return nil, false
-			}
-		}
-		for e := range rest {
-			rest[e] -= part[e]
-		}
-		j, ok := index[part]
-		if !ok {
-			return nil, false
-		}
-		if at := slices.IndexFunc(ts, func(t term) bool { return t.sp == j }); at >= 0 {
-			ts[at].n++
-		} else {
-			ts = append(ts, term{1, j})
-		}
-	}
-	return ts, true
 }
 
 func shares(a, b []term) bool {

@@ -1,5 +1,6 @@
 // Package thermo holds the numbers of hess: physical constants, units and
-// quantities, species thermodynamic models with their valid ranges, reaction
+// quantities, species thermodynamic models with their valid ranges and the exact
+// extremes of a polynomial range's Cp°, H° and S°, reaction
 // sums and equilibrium constants, crossover root searches, uncertainty
 // propagation and Arrhenius rates with their least-squares fit.
 //

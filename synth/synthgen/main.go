@@ -17,9 +17,15 @@ func main() {
 	flag.IntVar(&c.Reactions, "reactions", 50000, "number of reactions")
 	flag.IntVar(&c.OwnData, "own", 5000, "reactions with their own data and rate")
 	flag.IntVar(&c.Files, "files", 4, "number of files, root included")
+	shape := flag.String("shape", "spread", "layout: spread (formula names, several files) or mechanism (one file, full polynomials, isomers)")
 	dir := flag.String("out", ".", "directory to write into (must exist)")
 	flag.Parse()
-	n, err := synth.Generate(c)
+	var err error
+	c.Shape, err = synth.ParseShape(*shape)
+	var n *synth.Network
+	if err == nil {
+		n, err = synth.Generate(c)
+	}
 	if err == nil {
 		err = n.WriteDir(*dir)
 	}
