@@ -68,6 +68,7 @@ func (sv *solver) combination(k int, cols []int) ([]float64, bool) {
 // amounts allow, and the one exhausted first leaves. It reports false when
 // nothing bounds the exchange (the problem is unbounded).
 func (sv *solver) enterPure(k int) bool {
+	sv.entries[k]++
 	cols := sv.pureSet()
 	c, dep := sv.combination(k, cols)
 	if !dep {

@@ -20,7 +20,6 @@ const (
 	maxGammaLoops  = 200
 )
 
-var debug = false
 
 type kind uint8
 
@@ -63,6 +62,9 @@ type solver struct {
 	rho         []float64
 	waits       []int
 	lastOmega   float64
+	entries     []int
+	bestDy      float64
+	stagnant    int
 	stationBest float64
 }
 
@@ -253,6 +255,7 @@ func newSolver(p *Problem, opts Options) (*solver, error) {
 	sv.dy = make([]float64, s)
 	sv.rho = make([]float64, s)
 	sv.waits = make([]int, s)
+	sv.entries = make([]int, s)
 	sv.mu0 = make([]float64, s)
 	sv.pi = make([]float64, len(sv.rows))
 	if st := opts.Start; st != nil && st.key == key && len(st.lnN) == s && len(st.PhasePresent) == np {
@@ -470,7 +473,13 @@ func (sv *solver) activeSet() bool {
 			if sv.kind[j] != kPure || sv.zero[j] || sv.active[j] {
 				continue
 			}
-			if d := sv.mu0[j] - sv.dotB(j); d < worst {
+			d := sv.mu0[j] - sv.dotB(j)
+			if sv.entries[j] >= 3 && d > -1e-6 {
+				// It has come and gone repeatedly at rounding level
+				// (anti-cycling): only a clear instability brings it back.
+				continue
+			}
+			if d < worst {
 				worst, wk = d, j
 			}
 		}
@@ -557,6 +566,7 @@ func (sv *solver) dotB(j int) float64 {
 // below tolerance. Pure species whose amount reaches zero leave the set.
 func (sv *solver) newton() bool {
 	m := len(sv.rows)
+	sv.bestDy, sv.stagnant = math.Inf(1), 0
 	for sv.iterations < sv.maxIter {
 		sv.iterations++
 		// Unknown layout: λ (m), Δln N per present mixture phase, Δn per present pure or fixed species.
@@ -644,7 +654,7 @@ func (sv *solver) newton() bool {
 			dL[k] = x[m+pi]
 		}
 		// Steps of ln n and the convergence test.
-		maxDy := 0.0
+		maxDy, maxAbs := 0.0, 0.0
 		for _, k := range phaseIdx {
 			maxDy = math.Max(maxDy, math.Abs(dL[k]))
 			for _, j := range sv.phases[k] {
@@ -661,6 +671,7 @@ func (sv *solver) newton() bool {
 					return false
 				}
 				maxDy = math.Max(maxDy, math.Abs(sv.dy[j]))
+				maxAbs = math.Max(maxAbs, sv.n[j]*math.Abs(sv.dy[j]))
 			}
 		}
 		maxDn := 0.0
@@ -711,10 +722,19 @@ func (sv *solver) newton() bool {
 			}
 		}
 		res := sv.residual()
-		if debug {
-			fmt.Printf("it %d maxDy %.3g maxDn %.3g res %.3g phases %v active %v n %v\n", sv.iterations, maxDy, maxDn, res, sv.phaseOn, sv.active, sv.n)
+		// Stagnation: species whose amounts the conservation rows fix
+		// (not their potentials) cannot be resolved below the rounding of
+		// those rows; once the steps stop shrinking and change no amount by
+		// more than that rounding, the solve has converged.
+		if maxDy < 0.5*sv.bestDy {
+			sv.bestDy, sv.stagnant = maxDy, 0
+		} else {
+			sv.stagnant++
 		}
 		done := maxDy <= sv.tolY && maxDn <= sv.tolY && res <= sv.tolRes && !waiting
+		if !done && sv.stagnant >= 3 && maxAbs <= 1e-12 && maxDy <= 1e-3 && maxDn <= sv.tolY && res <= 1e-12 && !waiting {
+			done = true
+		}
 		// Damping (Gordon and McBride): major species move at most e² per
 		// step, a rising minor species stops at x = 1e-4; pure amounts stay ≥ 0.
 		omega := 1.0
