@@ -20,7 +20,6 @@ const (
 	maxGammaLoops  = 200
 )
 
-
 type kind uint8
 
 const (
