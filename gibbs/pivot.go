@@ -99,11 +99,12 @@ func (sv *solver) enterPure(k int) bool {
 }
 
 // independentPures keeps, in the given order, the pure species whose
-// columns are independent of those kept before; the others leave the set.
-func (sv *solver) independentPures(order []int) {
+// columns are independent of those kept before, at most limit of them (fixed
+// species are always kept); the others leave the set.
+func (sv *solver) independentPures(order []int, limit int) {
 	var kept []int
 	for _, j := range order {
-		if _, dep := sv.combination(j, kept); dep {
+		if _, dep := sv.combination(j, kept); dep || (len(kept) >= limit && sv.kind[j] == kPure) {
 			if sv.kind[j] == kPure {
 				sv.active[j] = false
 				sv.n[j] = 0

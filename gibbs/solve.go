@@ -20,6 +20,8 @@ const (
 	maxGammaLoops  = 200
 )
 
+var dbg = false
+
 type kind uint8
 
 const (
@@ -87,11 +89,24 @@ func Solve(p Problem, opts Options) (res Result, err error) {
 	if opts.MaxIterations <= 0 {
 		opts.MaxIterations = defaultMaxIter
 	}
-	sv, err := newSolver(&p, opts)
+	sv, err := newSolver(&p, opts, false)
 	if err != nil {
 		return Result{}, err
 	}
+	if opts.Start == nil {
+		sv.maxIter = max(opts.MaxIterations/2, 1)
+	}
 	converged := sv.run(opts)
+	if !converged && opts.Start == nil {
+		// A second start with only the feed's pure phases present: the
+		// first may have held a set of pure phases it could not leave.
+		if sv2, err := newSolver(&p, opts, true); err == nil {
+			sv2.iterations = sv.iterations
+			if sv2.run(opts) {
+				return sv2.result(true), nil
+			}
+		}
+	}
 	return sv.result(converged), nil
 }
 
@@ -120,7 +135,7 @@ func problemKey(p *Problem) uint64 {
 	return h.Sum64()
 }
 
-func newSolver(p *Problem, opts Options) (*solver, error) {
+func newSolver(p *Problem, opts Options, feedPures bool) (*solver, error) {
 	s := len(p.Species)
 	m, _ := p.B.Dims()
 	sv := &solver{p: p, s: s, maxIter: opts.MaxIterations}
@@ -260,12 +275,12 @@ func newSolver(p *Problem, opts Options) (*solver, error) {
 	if st := opts.Start; st != nil && st.key == key && len(st.lnN) == s && len(st.PhasePresent) == np {
 		sv.warm(st)
 	} else {
-		sv.cold(point)
+		sv.cold(point, feedPures)
 	}
 	return sv, nil
 }
 
-func (sv *solver) cold(point []float64) {
+func (sv *solver) cold(point []float64, feedPures bool) {
 	nm := 0
 	for k := range sv.phases {
 		nm += len(sv.phases[k])
@@ -285,6 +300,12 @@ func (sv *solver) cold(point []float64) {
 		case kMix:
 			sv.y[j] = math.Log(v + floor)
 		case kPure:
+			// Pure phases that can exist start present, as many as the
+			// phase rule allows (keepIndependent); the others enter by the
+			// stability test.
+			if feedPures {
+				v = sv.p.N0[j] / sv.scale
+			}
 			if v > 0 {
 				sv.active[j] = true
 				sv.n[j] = v
@@ -311,7 +332,13 @@ func (sv *solver) keepIndependent() {
 		}
 		return sv.n[ja] > sv.n[jb]
 	})
-	sv.independentPures(set)
+	limit := len(sv.rows)
+	for k := range sv.phases {
+		if sv.phaseOn[k] {
+			limit--
+		}
+	}
+	sv.independentPures(set, max(limit, 0))
 }
 
 func (sv *solver) warm(st *Result) {
@@ -730,8 +757,20 @@ func (sv *solver) newton() bool {
 		} else {
 			sv.stagnant++
 		}
+		if dbg {
+			np := 0
+			for _, a := range sv.active {
+				if a {
+					np++
+				}
+			}
+			fmt.Printf("it %d maxDy %.3g maxDn %.3g res %.3g pures %d phases %v\n", sv.iterations, maxDy, maxDn, res, np, sv.phaseOn)
+		}
+		if res > 1e3 || math.IsNaN(res) {
+			return false // diverging: the amounts are of order the feed
+		}
 		done := maxDy <= sv.tolY && maxDn <= sv.tolY && res <= sv.tolRes && !waiting
-		if !done && sv.stagnant >= 3 && maxAbs <= 1e-12 && maxDy <= 1e-3 && maxDn <= sv.tolY && res <= 1e-12 && !waiting {
+		if !done && sv.stagnant >= 3 && maxAbs <= 1e-12 && maxDy <= 1e-3 && maxDn <= sv.tolY && res <= 1e-13 && !waiting {
 			done = true
 		}
 		// Damping (Gordon and McBride): major species move at most e² per
@@ -751,6 +790,12 @@ func (sv *solver) newton() bool {
 				} else if rel := d - dL[k]; rel > 0 && lx+omega*rel > minorCapLnX {
 					omega = (minorCapLnX - lx) / rel
 				}
+			}
+		}
+		for _, j := range pureIdx {
+			// Pure amounts grow at most as a major mixture species may.
+			if d := math.Abs(sv.dy[j]); sv.kind[j] == kPure && d*omega > 6*math.Max(sv.n[j], 0.1) {
+				omega = 6 * math.Max(sv.n[j], 0.1) / d
 			}
 		}
 		hit := -1
@@ -847,7 +892,7 @@ func solveSym(A *mat.SymDense, rhs []float64) ([]float64, bool) {
 	var x mat.VecDense
 	var lu mat.LU
 	lu.Factorize(S)
-	if err := lu.SolveVecTo(&x, false, b); err != nil || lu.Cond() > 1e13 {
+	if err := lu.SolveVecTo(&x, false, b); err != nil || lu.Cond() > 1e15 {
 		var svd mat.SVD
 		if !svd.Factorize(S, mat.SVDThin) {
 			return nil, false
@@ -868,7 +913,7 @@ func solveSym(A *mat.SymDense, rhs []float64) ([]float64, bool) {
 	var r, dx mat.VecDense
 	r.MulVec(S, &x)
 	r.SubVec(b, &r)
-	if err := lu.SolveVecTo(&dx, false, &r); err == nil && lu.Cond() <= 1e13 {
+	if err := lu.SolveVecTo(&dx, false, &r); err == nil && lu.Cond() <= 1e15 {
 		x.AddVec(&x, &dx)
 	}
 	out := make([]float64, n)
