@@ -66,6 +66,7 @@ type solver struct {
 	entries     []int
 	bestDy      float64
 	stagnant    int
+	firstTry    bool
 	stationBest float64
 }
 
@@ -95,6 +96,7 @@ func Solve(p Problem, opts Options) (res Result, err error) {
 	}
 	if opts.Start == nil {
 		sv.maxIter = max(opts.MaxIterations/2, 1)
+		sv.firstTry = true
 	}
 	converged := sv.run(opts)
 	if !converged && opts.Start == nil {
@@ -768,6 +770,9 @@ func (sv *solver) newton() bool {
 		}
 		if res > 1e3 || math.IsNaN(res) {
 			return false // diverging: the amounts are of order the feed
+		}
+		if sv.firstTry && sv.iterations > 40 && res > 1e-2 {
+			return false // wandering: the second start will do better
 		}
 		done := maxDy <= sv.tolY && maxDn <= sv.tolY && res <= sv.tolRes && !waiting
 		if !done && sv.stagnant >= 3 && maxAbs <= 1e-12 && maxDy <= 1e-3 && maxDn <= sv.tolY && res <= 1e-13 && !waiting {
