@@ -22,7 +22,12 @@ const exactLimit = 20_000_000
 // eliminated exactly in rational arithmetic and the rows come out as
 // integers with no common factor; very large matrices, and entries that are
 // not short decimals, use the singular value decomposition (orthonormal rows).
-func ReactionsConservation(N *mat.Dense) (*mat.Dense, error) {
+func ReactionsConservation(N *mat.Dense) (B *mat.Dense, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			B, err = nil, fmt.Errorf("gibbs: internal error: %v", r)
+		}
+	}()
 	if N == nil {
 		return nil, fmt.Errorf("%w: no stoichiometric matrix", ErrInput)
 	}

@@ -20,8 +20,6 @@ const (
 	maxGammaLoops  = 200
 )
 
-var dbg = false
-
 type kind uint8
 
 const (
@@ -47,27 +45,26 @@ type solver struct {
 	aqueous []bool
 	solv    []int // solvent species of each aqueous phase, or -1
 
-	y           []float64 // ln n of mixture species
-	n           []float64 // amounts (scaled)
-	active      []bool    // pure species present
-	phaseOn     []bool
-	lnN         []float64 // ln of each mixture phase's amount
-	mu          []float64
-	pi          []float64
-	tolY, tolS  float64
-	tolRes      float64
-	lnMw, lnP   float64
-	iterations  int
-	maxIter     int
-	dy          []float64
-	rho         []float64
-	waits       []int
-	lastOmega   float64
-	entries     []int
-	bestDy      float64
-	stagnant    int
-	firstTry    bool
-	stationBest float64
+	y          []float64 // ln n of mixture species
+	n          []float64 // amounts (scaled)
+	active     []bool    // pure species present
+	phaseOn    []bool
+	lnN        []float64 // ln of each mixture phase's amount
+	mu         []float64
+	pi         []float64
+	tolY, tolS float64
+	tolRes     float64
+	lnMw, lnP  float64
+	iterations int
+	maxIter    int
+	dy         []float64
+	rho        []float64
+	waits      []int
+	lastOmega  float64
+	entries    []int
+	bestDy     float64
+	stagnant   int
+	firstTry   bool
 }
 
 // Solve minimises G/RT of p. It returns an error only for an invalid or
@@ -758,15 +755,6 @@ func (sv *solver) newton() bool {
 			sv.bestDy, sv.stagnant = maxDy, 0
 		} else {
 			sv.stagnant++
-		}
-		if dbg {
-			np := 0
-			for _, a := range sv.active {
-				if a {
-					np++
-				}
-			}
-			fmt.Printf("it %d maxDy %.3g maxDn %.3g res %.3g pures %d phases %v\n", sv.iterations, maxDy, maxDn, res, np, sv.phaseOn)
 		}
 		if res > 1e3 || math.IsNaN(res) {
 			return false // diverging: the amounts are of order the feed
