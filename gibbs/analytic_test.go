@@ -349,3 +349,36 @@ func TestFixedActivity(t *testing.T) {
 		}
 	}
 }
+
+func TestGasDissolves(t *testing.T) {
+	// CO2(g) ⇌ CO2(aq) with K_H = m/(p/p°) over 1 kg of water with an inert
+	// gas: n_aq = K_H·y·P·(kg water), y = n_g/(n_g + n_N2). With 1 mol CO2 and
+	// 1 mol N2: n_aq = K_H P (1 − n_aq)/(2 − n_aq), a quadratic.
+	const KH = 0.034 // invented magnitude, of the order of CO2 near 25 °C
+	for _, P := range []float64{1, 10, 100} {
+		p := Problem{
+			Phases: []Phase{{Name: "g", Kind: IdealGas}, {Name: "aq", Kind: Aqueous}},
+			Species: []Species{
+				{Name: "CO2(g)", Phase: 0, Mu0: -50},
+				{Name: "N2", Phase: 0, Mu0: -5},
+				{Name: "H2O", Phase: 1, Solvent: true, Mu0: -95},
+				{Name: "CO2(aq)", Phase: 1, Mu0: -50 - math.Log(KH)},
+			},
+			B: dense([][]float64{
+				{1, 0, 0, 1}, // C
+				{2, 0, 1, 2}, // O
+				{0, 2, 0, 0}, // N
+				{0, 0, 2, 0}, // H
+			}),
+			N0:               []float64{1, 1, 1 / mw, 0},
+			PRatio:           P,
+			SolventMolarMass: mw,
+		}
+		r := mustSolve(t, p, Options{})
+		// a x² − b x + c = 0 from x(2 − x) = k(1 − x), k = K_H P.
+		k := KH * P
+		x := ((2 + k) - math.Sqrt((2+k)*(2+k)-4*k)) / 2
+		relClose(t, "CO2(aq)", r.N[3], x, 1e-9)
+		relClose(t, "CO2(g)", r.N[0], 1-x, 1e-9)
+	}
+}

@@ -51,12 +51,34 @@ func FuzzSolve(f *testing.F) {
 			N0:      feed,
 			PRatio:  math.Exp(lnP),
 		}
-		if basis%2 == 1 {
+		switch basis % 4 {
+		case 1:
 			B, err := ReactionsConservation(dense(chonReactions()[:7]))
 			if err != nil {
 				t.Fatal(err)
 			}
 			p.B = B
+		case 2:
+			// A salt over water and a vapour: aqueous, pure and gas phases
+			// with a charge row; the feed and T-like numbers reused.
+			p = salt(math.Exp(-20+40*math.Mod(T, 1000)/1000), feed[3])
+			p.Phases = append(p.Phases, Phase{Name: "g", Kind: IdealGas})
+			p.Species = append(p.Species, Species{Name: "H2O(g)", Phase: 2, Mu0: -90 + lnP})
+			p.B = dense([][]float64{{2, 0, 0, 0, 2}, {1, 0, 0, 0, 1}, {0, 1, 0, 1, 0}, {0, 0, 1, 1, 0}, {0, 1, -1, 0, 0}})
+			p.N0 = []float64{feed[0], feed[1], feed[1], feed[3], feed[4]}
+			p.PRatio = math.Exp(lnP)
+		case 3:
+			// Vapour over an ideal liquid solution.
+			p = Problem{
+				Phases: []Phase{{Name: "g", Kind: IdealGas}, {Name: "l", Kind: Solution}},
+				Species: []Species{
+					{Name: "A(g)", Phase: 0}, {Name: "B(g)", Phase: 0},
+					{Name: "A(l)", Phase: 1, Mu0: 3000/T - 3}, {Name: "B(l)", Phase: 1, Mu0: 4000/T - 3},
+				},
+				B:      dense([][]float64{{1, 0, 1, 0}, {0, 1, 0, 1}}),
+				N0:     feed[:4],
+				PRatio: math.Exp(lnP),
+			}
 		}
 		r, err := Solve(p, Options{})
 		if err != nil {

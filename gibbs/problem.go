@@ -118,7 +118,9 @@ type Result struct {
 	Iterations int
 	// ElementResidual is max_i |(B·n − b)_i| / max(Σ n₀, 1e-300).
 	ElementResidual float64
-	// Stationarity is the largest |μ_j − Σ_i B_ij λ_i| over present species.
+	// Stationarity is the largest |μ_j − Σ_i B_ij λ_i| over present species
+	// (mixture species: those above 1e-12 of the feed; below, the balances
+	// fix the amount to their rounding).
 	Stationarity float64
 	// G is G/RT at the solution, mol (excluding fixed species).
 	G float64

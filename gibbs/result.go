@@ -63,7 +63,11 @@ func (sv *solver) result(converged bool) Result {
 		default:
 			r.LnActivity[j] = 0
 		}
-		station = math.Max(station, math.Abs(sv.mu[j]-sv.dotB(j)))
+		if sv.kind[j] != kMix || sv.n[j] > 1e-12 {
+			// Amounts at the rounding of the balances (below 1e-12 of the
+			// feed) are fixed by the balances, not their potentials.
+			station = math.Max(station, math.Abs(sv.mu[j]-sv.dotB(j)))
+		}
 		if sv.kind[j] != kFixed {
 			g += r.N[j] * sv.mu[j]
 		}
@@ -94,6 +98,6 @@ func (sv *solver) result(converged bool) Result {
 	}
 	r.ElementResidual = res / math.Max(feed, 1e-300)
 	tolRes := math.Max(1e-9, sv.tolY*100)
-	r.Converged = converged && r.ElementResidual <= tolRes && !math.IsNaN(station)
+	r.Converged = converged && r.ElementResidual <= tolRes && station <= math.Max(1e-7, 1e3*sv.tolY)
 	return r
 }

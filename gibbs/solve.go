@@ -65,6 +65,7 @@ type solver struct {
 	bestDy     float64
 	stagnant   int
 	firstTry   bool
+	phaseDrops []int
 }
 
 // Solve minimises G/RT of p. It returns an error only for an invalid or
@@ -269,6 +270,7 @@ func newSolver(p *Problem, opts Options, feedPures bool) (*solver, error) {
 	sv.rho = make([]float64, s)
 	sv.waits = make([]int, s)
 	sv.entries = make([]int, s)
+	sv.phaseDrops = make([]int, np)
 	sv.mu0 = make([]float64, s)
 	sv.pi = make([]float64, len(sv.rows))
 	if st := opts.Start; st != nil && st.key == key && len(st.lnN) == s && len(st.PhasePresent) == np {
@@ -525,6 +527,9 @@ func (sv *solver) activeSet() bool {
 				}
 				excess = math.Log(sum)
 			}
+			if sv.phaseDrops[k] >= 3 && excess < 1e-6 {
+				continue // anti-cycling, as for pure phases
+			}
 			if excess > pworst {
 				pworst, pk = excess, k
 			}
@@ -667,9 +672,19 @@ func (sv *solver) newton() bool {
 			}
 			rhs[K] = sv.rho[j]
 		}
-		x, ok := solveSym(A, rhs)
+		x, ls, ok := solveSym(A, rhs)
 		if !ok {
 			return false
+		}
+		if ls && len(phaseIdx) > 1 && inconsistent(A, x, rhs) {
+			// The present mixture phases cannot coexist (two phases of the
+			// same single species, as vapour over a solution off its
+			// boiling point): the least-squares step would stall. The
+			// smallest leaves; the stability test brings it back if it belongs.
+			if !sv.dropSmallest(phaseIdx) {
+				return false
+			}
+			continue
 		}
 		for r := 0; r < m; r++ {
 			sv.pi[r] += x[r]
@@ -858,7 +873,7 @@ func (sv *solver) residual() float64 {
 // solveSym solves the symmetric (indefinite) system after symmetric
 // equilibration, by LU, falling back to the SVD's least-squares solution
 // when the matrix is singular.
-func solveSym(A *mat.SymDense, rhs []float64) ([]float64, bool) {
+func solveSym(A *mat.SymDense, rhs []float64) (x []float64, leastSquares, ok bool) {
 	n := A.SymmetricDim()
 	d := make([]float64, n)
 	for i := 0; i < n; i++ {
@@ -882,13 +897,13 @@ func solveSym(A *mat.SymDense, rhs []float64) ([]float64, bool) {
 	for i := range rhs {
 		b.SetVec(i, d[i]*rhs[i])
 	}
-	var x mat.VecDense
+	var xv mat.VecDense
 	var lu mat.LU
 	lu.Factorize(S)
-	if err := lu.SolveVecTo(&x, false, b); err != nil || lu.Cond() > 1e15 {
+	if err := lu.SolveVecTo(&xv, false, b); err != nil || lu.Cond() > 1e15 {
 		var svd mat.SVD
 		if !svd.Factorize(S, mat.SVDThin) {
-			return nil, false
+			return nil, false, false
 		}
 		vals := svd.Values(nil)
 		rank := 0
@@ -898,25 +913,26 @@ func solveSym(A *mat.SymDense, rhs []float64) ([]float64, bool) {
 			}
 		}
 		if rank == 0 {
-			return nil, false
+			return nil, false, false
 		}
-		svd.SolveVecTo(&x, b, rank)
+		svd.SolveVecTo(&xv, b, rank)
+		leastSquares = true
 	}
 	// One step of iterative refinement on the scaled system.
 	var r, dx mat.VecDense
-	r.MulVec(S, &x)
+	r.MulVec(S, &xv)
 	r.SubVec(b, &r)
-	if err := lu.SolveVecTo(&dx, false, &r); err == nil && lu.Cond() <= 1e15 {
-		x.AddVec(&x, &dx)
+	if err := lu.SolveVecTo(&dx, false, &r); !leastSquares && err == nil && lu.Cond() <= 1e15 {
+		xv.AddVec(&xv, &dx)
 	}
 	out := make([]float64, n)
 	for i := range out {
-		out[i] = d[i] * x.AtVec(i)
+		out[i] = d[i] * xv.AtVec(i)
 		if math.IsNaN(out[i]) || math.IsInf(out[i], 0) {
-			return nil, false
+			return nil, false, false
 		}
 	}
-	return out, true
+	return out, leastSquares, true
 }
 
 // state is what cleanup restores.
@@ -962,5 +978,41 @@ func (sv *solver) cleanup() bool {
 			sv.restore(saved)
 		}
 	}
+	return true
+}
+
+// inconsistent reports whether x leaves a residual of the Newton system
+// that is not rounding: the system had no solution, only a least-squares one.
+func inconsistent(A *mat.SymDense, x, rhs []float64) bool {
+	n := len(rhs)
+	worst, scale := 0.0, 0.0
+	for i := 0; i < n; i++ {
+		v := -rhs[i]
+		mag := math.Abs(rhs[i])
+		for j := 0; j < n; j++ {
+			t := A.At(i, j) * x[j]
+			v += t
+			mag = math.Max(mag, math.Abs(t))
+		}
+		worst = math.Max(worst, math.Abs(v)/math.Max(mag, 1e-300))
+		scale = math.Max(scale, mag)
+	}
+	return worst > 1e-6 && scale > 0
+}
+
+// dropSmallest removes the present mixture phase with the smallest amount.
+func (sv *solver) dropSmallest(phaseIdx []int) bool {
+	best, bk := math.Inf(1), -1
+	for _, k := range phaseIdx {
+		if sv.lnN[k] < best {
+			best, bk = sv.lnN[k], k
+		}
+	}
+	if bk < 0 {
+		return false
+	}
+	sv.phaseOn[bk] = false
+	sv.phaseDrops[bk]++
+	sv.refresh()
 	return true
 }
