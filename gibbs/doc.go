@@ -38,4 +38,16 @@
 // Species the constraints force to exactly zero (an element absent from the
 // feed, a species no reaction can make from the feed) are found first by
 // linear programming (gonum's simplex) and removed, and come out exactly 0.
+//
+// Robustness: the potentials are solved as corrections to the current ones,
+// so the right-hand side is the small stationarity residual and trace
+// species keep their precision. A cold start holds the pure phases the feed
+// could form, no more than the phase rule allows, independent (a dependent
+// one enters by an exchange, like a simplex pivot); a start that wanders is
+// abandoned for one with only the feed's pure phases. Mixture phases that
+// cannot coexist (two phases of one species off their transition) give an
+// inconsistent step: the smaller leaves. Phases that come and go at rounding
+// level three times are held out unless clearly unstable. Iterations are
+// bounded; a solve that misses its tolerances says so (Converged false, with
+// its residuals), never silently.
 package gibbs

@@ -75,10 +75,12 @@ type Problem struct {
 	PRatio float64
 	// SolventMolarMass is M_w in kg/mol for Aqueous phases (0.01801528 for water).
 	SolventMolarMass float64
-	// LnGamma, when set, returns ln γ_j for every species at amounts n (mol);
-	// out has the length of Species and is zeroed before each call. Entries
-	// for pure and fixed species are ignored. The solver iterates to a fixed
-	// point of the activity coefficients.
+	// LnGamma, when set, returns ln γ_j for every species at amounts n (mol;
+	// fixed species 0); out has the length of Species and is zeroed before
+	// each call. For a solvent it is ln of the ratio of its activity to the
+	// ideal-dilute one. Entries for pure and fixed species are ignored. The
+	// solver iterates the ideal solve to a fixed point of the coefficients
+	// (at most 200 rounds); a model that does not settle gives Converged false.
 	LnGamma func(n []float64, out []float64)
 }
 
@@ -101,15 +103,17 @@ type Result struct {
 	// constraints force to zero and for absent phases; for a fixed species
 	// the signed amount taken from the reservoir.
 	N            []float64
-	PhaseAmount  []float64 // mol in each phase (0 for Pure phases that are absent)
+	PhaseAmount  []float64 // mol in each phase (0 where absent; fixed species count in none)
 	PhasePresent []bool
 	// LnActivity is ln a_j at the solution (mixture species: ln(y_j P/p°),
 	// ln x_j, ln m_j or ln a_w, plus ln γ_j; pure present: 0; species with
 	// amount 0: -Inf; fixed species: NaN, their activity being the caller's).
 	LnActivity []float64
 	// Potentials are the Lagrange multipliers λ/RT, one per row of B (for
-	// element rows: the element potentials). Rows removed as dependent or
-	// empty get 0.
+	// element rows: the element potentials; for a reactions basis, the
+	// potentials of its rows). At the solution μ_j/RT = Σ_i B_ij λ_i for every
+	// present species. Rows removed as dependent or empty get 0, and where
+	// rows are dependent the split among them is one of many.
 	Potentials []float64
 	// Zero marks species the conservation constraints force to exactly zero.
 	Zero []bool
@@ -130,11 +134,9 @@ type Result struct {
 	scale float64
 }
 
-// Validation errors.
-var (
-	ErrInput      = errors.New("gibbs: invalid problem")
-	ErrInfeasible = errors.New("gibbs: no non-negative amounts meet the conservation constraints")
-)
+// ErrInput wraps every error about an invalid problem. (A valid problem is
+// always feasible: the feed itself meets B·n = B·N0.)
+var ErrInput = errors.New("gibbs: invalid problem")
 
 const maxSpecies = 1 << 16
 
