@@ -1,6 +1,8 @@
 package gibbs
 
 import (
+	"math"
+
 	"gonum.org/v1/gonum/mat"
 	"gonum.org/v1/gonum/optimize/convex/lp"
 )
@@ -35,6 +37,13 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 			undetermined++
 		}
 	}
+	span := newSpan(B, rows)
+	for j := range n0 {
+		if possible[j] {
+			span.add(j)
+		}
+	}
+	undetermined -= span.close(possible, fixed)
 	if undetermined == 0 {
 		return zero, point, true
 	}
@@ -95,11 +104,13 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 			if !possible[j] && x[k] > thr {
 				possible[j] = true
 				marked = true
+				span.add(j)
 			}
 			if x[k] > 0 {
 				point[j] += x[k]
 			}
 		}
+		span.close(possible, fixed)
 		found++
 		if !marked {
 			// The optimum is positive but spread below the threshold on
@@ -115,4 +126,77 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 		point[j] = 0
 	}
 	return zero, point, true
+}
+
+// colSpan is an orthonormal basis (Gram–Schmidt) of the span of some columns
+// of B restricted to the kept rows.
+type colSpan struct {
+	B    *mat.Dense
+	rows []int
+	q    [][]float64
+}
+
+func newSpan(B *mat.Dense, rows []int) *colSpan { return &colSpan{B: B, rows: rows} }
+
+func (c *colSpan) col(j int) []float64 {
+	v := make([]float64, len(c.rows))
+	for k, i := range c.rows {
+		v[k] = c.B.At(i, j)
+	}
+	return v
+}
+
+// residual projects v off the span in place and returns |v| before and after.
+func (c *colSpan) residual(v []float64) (before, after float64) {
+	before = norm(v)
+	for pass := 0; pass < 2; pass++ {
+		for _, q := range c.q {
+			d := 0.0
+			for k := range v {
+				d += q[k] * v[k]
+			}
+			for k := range v {
+				v[k] -= d * q[k]
+			}
+		}
+	}
+	return before, norm(v)
+}
+
+func (c *colSpan) add(j int) {
+	v := c.col(j)
+	before, after := c.residual(v)
+	if after > 1e-10*before && after > 0 {
+		for k := range v {
+			v[k] /= after
+		}
+		c.q = append(c.q, v)
+	}
+}
+
+// close marks possible every species whose column lies in the span of the
+// possible ones: with a feasible point positive on all of those, moving along
+// e_j − Σ c_i e_i (B_j = Σ c_i B_i) keeps B·n = b and, for a small step,
+// n ≥ 0, so species j can be positive too. It returns how many it marked.
+func (c *colSpan) close(possible, fixed []bool) int {
+	marked := 0
+	for j := range possible {
+		if possible[j] || fixed[j] {
+			continue
+		}
+		before, after := c.residual(c.col(j))
+		if after <= 1e-10*before {
+			possible[j] = true
+			marked++
+		}
+	}
+	return marked
+}
+
+func norm(v []float64) float64 {
+	s := 0.0
+	for _, x := range v {
+		s += x * x
+	}
+	return math.Sqrt(s)
 }
