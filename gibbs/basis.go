@@ -49,6 +49,9 @@ func ReactionsConservation(N *mat.Dense) (B *mat.Dense, err error) {
 		}
 		return B, nil
 	}
+	if B, ok := intLeftNull(N); ok {
+		return B, nil
+	}
 	if float64(s)*float64(r)*float64(min(s, r)) <= exactLimit {
 		if B, ok := exactLeftNull(N); ok {
 			return B, nil

@@ -128,3 +128,21 @@ func TestWarmStartSweep(t *testing.T) {
 		prev = &warm
 	}
 }
+
+func TestIntegerAndRationalEliminationAgree(t *testing.T) {
+	// The int64 elimination and the big.Rat one give the same rows.
+	for _, N := range []*mat.Dense{
+		dense(chonReactions()),
+		syntheticReactions(synthetic(1, 60, 4, 1000), 200),
+		dense([][]float64{{-0.5, 1}, {-0.5, 0}, {1, -1}, {0, 0.25}}),
+	} {
+		a, ok1 := intLeftNull(N)
+		b, ok2 := exactLeftNull(N)
+		if !ok1 || !ok2 {
+			t.Fatalf("elimination refused: int %v rat %v", ok1, ok2)
+		}
+		if !mat.Equal(a, b) {
+			t.Errorf("int64 and big.Rat rows differ:\n%v\n%v", mat.Formatted(a), mat.Formatted(b))
+		}
+	}
+}
