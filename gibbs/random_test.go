@@ -54,3 +54,49 @@ func TestRandomFeedsConverge(t *testing.T) {
 		t.Errorf("%d of %d not converged", bad, n)
 	}
 }
+
+// TestSyntheticBasesAgree solves seeded invented 60-species systems (gas and
+// pure phases) at several temperatures on the elements basis and on a
+// reactions basis spanning every element-conserving change: both must
+// converge to the same amounts.
+func TestSyntheticBasesAgree(t *testing.T) {
+	for seed := uint64(1); seed <= 12; seed++ {
+		for _, T := range []float64{500, 1000, 2000} {
+			pe := synthetic(seed, 60, 4, T)
+			B, err := ReactionsConservation(syntheticReactions(pe, 200))
+			if err != nil {
+				t.Fatal(err)
+			}
+			pr := pe
+			pr.B = B
+			re, err1 := Solve(pe, Options{})
+			rr, err2 := Solve(pr, Options{})
+			if err1 != nil || err2 != nil || !re.Converged || !rr.Converged {
+				t.Errorf("seed %d T %g: %v %v converged %v %v (residuals %g %g)", seed, T, err1, err2, re.Converged, rr.Converged, re.ElementResidual, rr.ElementResidual)
+				continue
+			}
+			for j := range re.N {
+				if d := math.Abs(re.N[j] - rr.N[j]); d > 1e-8*math.Max(re.N[j], 1e-4) {
+					t.Errorf("seed %d T %g species %d: elements %.10g reactions %.10g", seed, T, j, re.N[j], rr.N[j])
+					break
+				}
+			}
+		}
+	}
+}
+
+// TestSyntheticLarge solves seeded invented 500-species systems with six
+// elements at three temperatures: each must converge.
+func TestSyntheticLarge(t *testing.T) {
+	if testing.Short() {
+		t.Skip("long")
+	}
+	for seed := uint64(1); seed <= 6; seed++ {
+		for _, T := range []float64{400, 1000, 3000} {
+			r, err := Solve(synthetic(seed, 500, 6, T), Options{})
+			if err != nil || !r.Converged {
+				t.Errorf("seed %d T %g: %v converged %v residual %g stationarity %g iterations %d", seed, T, err, r.Converged, r.ElementResidual, r.Stationarity, r.Iterations)
+			}
+		}
+	}
+}
