@@ -15,7 +15,9 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] FILE...",
 		"Compile each root file with everything it includes, run every check, and\n"+
 			"report the diagnostics. Exit status: 0 when there are no errors (and, with\n"+
-			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.", stderr)
+			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.\n"+
+			"The file \"-\" is standard input, named <stdin> in diagnostics; its includes\n"+
+			"are relative to the working folder.", stderr)
 	format := &choice{value: "text", allowed: []string{"text", "json", "sarif"}}
 	color := &choice{value: "auto", allowed: []string{"auto", "always", "never"}}
 	fs.Var(format, "format", "report format: text, json or sarif")
@@ -39,7 +41,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	case "json":
 		err = renderJSON(stdout, rep)
 	case "sarif":
-		err = renderSARIF(stdout, rep, network.Checks(), version)
+		err = renderSARIF(stdout, rep, network.Checks(), toolVersion())
 	default:
 		err = renderText(stdout, rep, useColor(color.value, stdout))
 	}

@@ -6,6 +6,7 @@ import (
 	"unicode/utf8"
 
 	"hess/network"
+	"hess/suggest"
 )
 
 func runExplain(args []string, stdout, stderr io.Writer) int {
@@ -24,7 +25,15 @@ func runExplain(args []string, stdout, stderr io.Writer) int {
 	case 1:
 		c := network.LookupCheck(codes[0])
 		if c == nil {
-			fmt.Fprintf(stderr, "hess explain: no check named %q ('hess explain' lists them)\n", codes[0])
+			var names []string
+			for _, c := range network.Checks() {
+				names = append(names, c.Name)
+			}
+			hint := suggest.Phrase(codes[0], names)
+			if hint != "" {
+				hint = "; " + hint
+			}
+			fmt.Fprintf(stderr, "hess explain: no check named %q%s ('hess explain' lists them)\n", codes[0], hint)
 			return exitTrouble
 		}
 		fmt.Fprintf(stdout, "%s (%s by default): %s\n\n%s\n", c.Name, c.Severity, c.Title(), wrap(c.Explanation(), 78))

@@ -10,6 +10,8 @@ import (
 	"os"
 	"runtime/debug"
 	"strings"
+
+	"hess/suggest"
 )
 
 // Exit statuses (CLI.md).
@@ -66,17 +68,43 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	switch args[0] {
 	case "help", "-h", "-help", "--help":
-		usage(stdout)
-		return exitOK
-	}
-	for _, c := range commands() {
-		if c.name == args[0] {
-			return c.run(args[1:], stdout, stderr)
+		if len(args) == 1 {
+			usage(stdout)
+			return exitOK
 		}
+		if len(args) > 2 {
+			fmt.Fprintln(stderr, "hess help: takes at most one command")
+			return exitTrouble
+		}
+		if c, ok := lookupCommand(args[1], stderr); ok {
+			return c.run([]string{"--help"}, stdout, stderr)
+		}
+		return exitTrouble
+	case "--version", "-version":
+		return runVersion(args[1:], stdout, stderr)
 	}
-	fmt.Fprintf(stderr, "hess: unknown command %q\n", args[0])
-	usage(stderr)
+	if c, ok := lookupCommand(args[0], stderr); ok {
+		return c.run(args[1:], stdout, stderr)
+	}
 	return exitTrouble
+}
+
+// lookupCommand finds a subcommand by name; for an unknown name it says so
+// on stderr, with the nearest command's name when one is close.
+func lookupCommand(name string, stderr io.Writer) (command, bool) {
+	var names []string
+	for _, c := range commands() {
+		if c.name == name {
+			return c, true
+		}
+		names = append(names, c.name)
+	}
+	msg := fmt.Sprintf("hess: unknown command %q", name)
+	if hint := suggest.Phrase(name, names); hint != "" {
+		msg += "; " + hint
+	}
+	fmt.Fprintf(stderr, "%s\nRun 'hess help' for the list of commands.\n", msg)
+	return command{}, false
 }
 
 func usage(w io.Writer) {
@@ -88,7 +116,8 @@ func usage(w io.Writer) {
 		fmt.Fprintf(w, "  %-8s %s\n", c.name, c.summary)
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, "Run 'hess COMMAND --help' for a command's flags.")
+	fmt.Fprintln(w, "Run 'hess help COMMAND' (or 'hess COMMAND --help') for a command's flags,")
+	fmt.Fprintln(w, "and 'hess --version' for the version.")
 }
 
 // newFlags makes a flag set for a subcommand whose --help prints the given
@@ -103,10 +132,39 @@ func newFlags(name, synopsis, description string, stderr io.Writer) *flag.FlagSe
 		fs.VisitAll(func(*flag.Flag) { hasFlags = true })
 		if hasFlags {
 			fmt.Fprintln(out, "\nflags:")
-			fs.PrintDefaults()
+			printFlags(out, fs, synopsis)
 		}
 	}
 	return fs
+}
+
+// printFlags lists a flag set's flags as the synopses write them: a
+// one-letter flag with one dash (-w), every other with two (--format), its
+// value's name, its description, and a default that is not the zero value.
+// The flag package accepts both spellings; only its own listing, which
+// prints one dash throughout, is replaced.
+func printFlags(w io.Writer, fs *flag.FlagSet, synopsis string) {
+	fs.VisitAll(func(f *flag.Flag) {
+		dash := "--"
+		if len([]rune(f.Name)) == 1 {
+			dash = "-"
+		}
+		arg, desc := flag.UnquoteUsage(f)
+		head := "  " + dash + f.Name
+		if arg != "" {
+			head += " " + flagValueName(synopsis, dash+f.Name)
+		}
+		line := head
+		if len(head) <= 20 {
+			line += strings.Repeat(" ", 22-len(head)) + desc
+		} else {
+			line += "\n" + strings.Repeat(" ", 22) + desc
+		}
+		if d := f.DefValue; d != "" && d != "false" && d != "0" && d != "[]" {
+			line += fmt.Sprintf(" (default %s)", d)
+		}
+		fmt.Fprintln(w, line)
+	})
 }
 
 // parseFlags parses flags that may stand before or after the file
@@ -139,6 +197,21 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 		files = append(files, rest[0])
 		args = rest[1:]
 	}
+}
+
+// flagValueName is the name the synopsis gives a flag's value ("LIST" in
+// "[--temperatures LIST]"), or VALUE when it gives none.
+func flagValueName(synopsis, flagName string) string {
+	fields := strings.Fields(synopsis)
+	for i, f := range fields {
+		if strings.TrimLeft(f, "[") == flagName && i+1 < len(fields) {
+			v := strings.TrimRight(fields[i+1], "].")
+			if v != "" && !strings.HasPrefix(v, "-") && !strings.HasPrefix(v, "[") {
+				return v
+			}
+		}
+	}
+	return "VALUE"
 }
 
 // choice is a flag that accepts one of a fixed set of words.
