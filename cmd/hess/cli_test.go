@@ -151,3 +151,25 @@ func TestStdin(t *testing.T) {
 		t.Errorf("check -: the include did not resolve against the working folder:\n%s", r.stdout)
 	}
 }
+
+func TestNearMissNames(t *testing.T) {
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"table", "--reaction", "so2-absorbs", "examples/flue-gas-scrubber.hess"}, `no reaction named "so2-absorbs"; did you mean "so2-absorb"?`},
+		{[]string{"plot", "--reaction", "so2-absrob", "-o", "/dev/null.svg", "examples/flue-gas-scrubber.hess"}, `did you mean "so2-absorb"?`},
+	} {
+		r := runHess(t, tc.args...)
+		if r.code == 0 || !strings.Contains(r.stderr, tc.want) {
+			t.Errorf("hess %v: exit %d, stderr %q; want %q", tc.args, r.code, r.stderr, tc.want)
+		}
+	}
+}
+
+func TestNearMissMixture(t *testing.T) {
+	r := runHess(t, "approach", "--mixture", "smup", "examples/flue-gas-scrubber.hess")
+	if r.code != exitTrouble || !strings.Contains(r.stderr, `did you mean "sump"?`) {
+		t.Errorf("approach --mixture smup: exit %d, stderr %q", r.code, r.stderr)
+	}
+}
