@@ -10,6 +10,8 @@ import (
 
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
+
+	"hess/suggest"
 )
 
 // definition adapts the lexer to participle. The parser is only ever fed
@@ -298,7 +300,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 		return result{diags: Diagnostics{{
 			Code:     "syntax",
 			Severity: Error,
-			Message:  fmt.Sprintf("expected a statement (include, settings, element, phase, species, reaction, mixture), found %s", describe(first)),
+			Message:  fmt.Sprintf("expected a statement (include, settings, element, phase, species, reaction, mixture), found %s", describe(first)) + keywordHint(first),
 			Subject:  span,
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
 		}}}
@@ -340,6 +342,9 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 			d.Message = "unexpected " + describe(found)
 		} else {
 			d.Message = "expected " + exp + ", found " + describe(found)
+		}
+		if startsLine(toks, found) {
+			d.Message += keywordHint(found)
 		}
 	case errors.As(err, &perr):
 		p := perr.Position()
@@ -473,6 +478,33 @@ var productionWords = map[string]string{
 	"Lint":             "a check name",
 	"Statement":        "a statement",
 	"FormulaProp":      "a formula",
+}
+
+// startsLine reports whether at is the first of toks on its line, where a
+// misspelt statement keyword would stand.
+func startsLine(toks []lexer.Token, at lexer.Token) bool {
+	for i, t := range toks {
+		if t.Pos.Offset == at.Pos.Offset {
+			return i == 0 || toks[i-1].Pos.Line < at.Pos.Line
+		}
+	}
+	return false
+}
+
+// statementKeywordList is statementKeywords in the order messages list
+// them.
+var statementKeywordList = []string{"include", "settings", "element", "phase", "species", "reaction", "mixture"}
+
+// keywordHint is "; did you mean …?" when a word that starts a statement is
+// a near miss of a statement keyword (speces, Reaction), else "".
+func keywordHint(t lexer.Token) string {
+	if t.Type == Keyword || t.Type == Number || t.Type == String || isEnd(t) {
+		return ""
+	}
+	if hint := suggest.Phrase(t.Value, statementKeywordList); hint != "" {
+		return "; " + hint
+	}
+	return ""
 }
 
 func describe(t lexer.Token) string {

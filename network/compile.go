@@ -8,6 +8,7 @@ import (
 	"unicode/utf8"
 
 	"hess/lang"
+	"hess/suggest"
 )
 
 // compiler turns the parsed files of a network into its model. The
@@ -17,12 +18,13 @@ type compiler struct {
 	net  *Network
 	out  *lang.Diagnostics   // where report writes; nil for net.Diagnostics
 	refs map[string]*Species // species by reference as written, when caching
+	near *nearNames          // near-miss species names, shared by the workers
 }
 
 // worker returns a compiler for one worker of a parallel pass, reporting
 // into out.
 func (c *compiler) worker(out *lang.Diagnostics) *compiler {
-	return &compiler{net: c.net, out: out, refs: map[string]*Species{}}
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near}
 }
 
 func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -42,7 +44,7 @@ var builtinPhases = map[string]Convention{
 }
 
 func compile(n *Network) {
-	c := &compiler{net: n}
+	c := &compiler{net: n, near: &nearNames{}}
 	n.Elements = BuiltinElements()
 	n.Phases = map[string]*Phase{}
 	for tag, conv := range builtinPhases {
@@ -766,6 +768,10 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 	if len(near) > 0 {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
+	} else if c.near != nil {
+		if key := c.near.closest(c.net.Species, ref.Text, parts.Base); key != "" {
+			msg += "; " + suggest.DidYouMean(key)
+		}
 	}
 	c.report("undefined-species", ref.Span(), "%s", msg)
 }

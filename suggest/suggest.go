@@ -58,7 +58,7 @@ func Closest(name string, candidates []string) (string, bool) {
 	if len(rn) == 0 || len(rn) > maxLen {
 		return "", false
 	}
-	folded := fold(rn)
+	folded := Fold(rn)
 	best, bestScore := "", -1
 	for _, c := range candidates {
 		if c == name {
@@ -70,7 +70,7 @@ func Closest(name string, candidates []string) (string, bool) {
 		}
 		// Twice the folded distance, plus one for each slip that folding
 		// hid: a case or look-alike slip costs 1, any other 2.
-		folds := distance(folded, fold(rc))
+		folds := distance(folded, Fold(rc))
 		exact := distance(rn, rc)
 		score := 2*folds + (exact - folds)
 		if score > 2*allowance(len(rn)) {
@@ -94,9 +94,10 @@ func allowance(n int) int {
 	return n / 3
 }
 
-// fold maps a name to lower case with the digit look-alikes of letters
-// replaced by the letters.
-func fold(rs []rune) []rune {
+// Fold maps a name to lower case with the digit look-alikes of letters
+// (0 for O, 1 for l) replaced by the letters: the form in which Closest
+// counts such slips as half a mistake.
+func Fold(rs []rune) []rune {
 	out := make([]rune, len(rs))
 	for i, r := range rs {
 		switch r {

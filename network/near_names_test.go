@@ -1,0 +1,108 @@
+package network
+
+import (
+	"fmt"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+func loadNearText(t *testing.T, src string) *Network {
+	t.Helper()
+	root, err := filepath.Abs("near.hess")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}})
+}
+
+// TestSpeciesSuggestion: an undeclared species names the declared one it is
+// close to, with or without its state tag; a far name gets no suggestion.
+func TestSpeciesSuggestion(t *testing.T) {
+	n := loadNearText(t, `species CaCO3(cr), CaO(cr), CO2(g), H2O(l)
+reaction a: CaC03 <-> CaO(cr) + CO2(g)
+reaction b: CaCO3(cr) <-> CaO(cr) + C02(g)
+reaction c: caco3(cr) <-> CaO(cr) + CO2(g)
+reaction d: Xe(g) <-> Xe(g)
+`)
+	want := map[int]string{
+		2: `species CaC03 is not declared; did you mean "CaCO3(cr)"?`,
+		3: `species C02(g) is not declared; did you mean "CO2(g)"?`,
+		4: `did you mean "CaCO3(cr)"?`,
+	}
+	got := map[int]string{}
+	for _, d := range n.Diagnostics {
+		if d.Code == "undefined-species" {
+			got[d.Subject.Start.Line] = d.Message
+		}
+	}
+	for line, w := range want {
+		if !strings.Contains(got[line], w) {
+			t.Errorf("line %d: %q, want %q", line, got[line], w)
+		}
+	}
+	if strings.Contains(got[5], "did you mean") {
+		t.Errorf("line 5: %q suggests a far name", got[5])
+	}
+}
+
+// TestSpeciesSuggestionScale: the suggestion comes from an index, so many
+// undeclared references among many species stay cheap, and it still finds
+// the near name.
+func TestSpeciesSuggestionScale(t *testing.T) {
+	var b strings.Builder
+	for i := 0; i < 3000; i++ {
+		fmt.Fprintf(&b, "species Q%dXO(g)\n", i)
+	}
+	for i := 0; i < 3000; i++ {
+		fmt.Fprintf(&b, "reaction r%d: Q%dX0(g) <-> Q%dXO(g)\n", i, i, i)
+	}
+	n := loadNearText(t, b.String())
+	var hits int
+	for _, d := range n.Diagnostics {
+		if d.Code == "undefined-species" && strings.Contains(d.Message, "did you mean") {
+			hits++
+		}
+	}
+	if hits != 3000 {
+		t.Errorf("%d of 3000 undeclared references got a suggestion", hits)
+	}
+}
+
+// TestUnitSuggestion: unit messages name the unit once and suggest the
+// unit that was likely meant.
+func TestUnitSuggestion(t *testing.T) {
+	n := loadNearText(t, `settings { temperatures 25 C }
+species H2O(g) {
+  hf -241.826 kJ
+  s 188.834 kj/mol/K
+  cp 33.6 J/molK
+}
+species H2(g) { hf 0 kJ/mol  s 130.68 J/K }
+species O2(g) { hf 0 kJ/mol  s 205.15 J/mol/K }
+reaction burn: 2 H2(g) + O2(g) <-> 2 H2O(g)
+`)
+	want := map[int]string{
+		1: `unknown unit "C"; did you mean "degC"?`,
+		3: `found kJ (energy); did you mean "kJ/mol"?`,
+		4: `unknown unit symbol "kj" in "kj/mol/K"; did you mean "kJ/mol/K"?`,
+		5: `did you mean "J/mol/K"?`,
+		7: `did you mean "J/mol/K"?`,
+	}
+	got := map[int]string{}
+	for _, d := range n.Diagnostics {
+		if d.Code == "unit-mismatch" {
+			got[d.Subject.Start.Line] = d.Message
+		}
+	}
+	for line, w := range want {
+		if !strings.Contains(got[line], w) {
+			t.Errorf("line %d: %q, want %q", line, got[line], w)
+		}
+	}
+	for line, msg := range got {
+		if strings.Count(msg, `"C"`) > 1 || strings.HasPrefix(msg, "C:") || strings.HasPrefix(msg, "kj/mol/K:") {
+			t.Errorf("line %d repeats the unit: %q", line, msg)
+		}
+	}
+}
