@@ -173,3 +173,25 @@ func TestNearMissMixture(t *testing.T) {
 		t.Errorf("approach --mixture smup: exit %d, stderr %q", r.code, r.stderr)
 	}
 }
+
+// TestFlagErrors: flag errors spell the flags as the help does and
+// suggest the nearest flag.
+func TestFlagErrors(t *testing.T) {
+	for _, tc := range []struct {
+		args []string
+		want string
+	}{
+		{[]string{"check", "--stric", "x.hess"}, "hess check: unknown flag --stric; did you mean --strict?"},
+		{[]string{"check", "--format", "xml", "x.hess"}, `invalid value "xml" for flag --format: must be one of text, json, sarif`},
+		{[]string{"check", "--strict=maybe", "x.hess"}, `invalid boolean value "maybe" for --strict: takes true or false`},
+		{[]string{"table", "-o"}, "flag needs an argument: -o"},
+	} {
+		r := runHess(t, tc.args...)
+		if r.code != exitTrouble || !strings.HasPrefix(r.stderr, "hess ") || !strings.Contains(r.stderr, tc.want) {
+			t.Errorf("hess %v: exit %d, stderr %q; want 2 and %q", tc.args, r.code, r.stderr, tc.want)
+		}
+		if regexp.MustCompile(`(^| )-[a-z]{2,}`).MatchString(strings.SplitN(r.stderr, "\n", 2)[0]) {
+			t.Errorf("hess %v: a long flag with one dash: %q", tc.args, r.stderr)
+		}
+	}
+}

@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"regexp"
 	"runtime/debug"
 	"strings"
 
@@ -145,14 +146,10 @@ func newFlags(name, synopsis, description string, stderr io.Writer) *flag.FlagSe
 // prints one dash throughout, is replaced.
 func printFlags(w io.Writer, fs *flag.FlagSet, synopsis string) {
 	fs.VisitAll(func(f *flag.Flag) {
-		dash := "--"
-		if len([]rune(f.Name)) == 1 {
-			dash = "-"
-		}
 		arg, desc := flag.UnquoteUsage(f)
-		head := "  " + dash + f.Name
+		head := "  " + dashed(f.Name)
 		if arg != "" {
-			head += " " + flagValueName(synopsis, dash+f.Name)
+			head += " " + flagValueName(synopsis, dashed(f.Name))
 		}
 		line := head
 		if len(head) <= 20 {
@@ -176,14 +173,21 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 	// print it here instead, once, on the right stream.
 	usage := fs.Usage
 	fs.Usage = func() {}
-	defer func() { fs.Usage = usage }()
+	out := fs.Output()
+	defer func() { fs.Usage = usage; fs.SetOutput(out) }()
 	for {
-		if err := fs.Parse(args); err != nil {
+		// The flag package words its errors with one dash and prints them
+		// itself; say them here instead, as the help spells the flags.
+		fs.SetOutput(io.Discard)
+		err := fs.Parse(args)
+		fs.SetOutput(out)
+		if err != nil {
 			if errors.Is(err, flag.ErrHelp) {
 				fs.SetOutput(stdout)
 				usage()
 				return nil, exitOK, false
 			}
+			fmt.Fprintf(out, "hess %s: %s\n\n", fs.Name(), flagErrorText(fs, err))
 			usage()
 			return nil, exitTrouble, false
 		}
@@ -197,6 +201,40 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 		files = append(files, rest[0])
 		args = rest[1:]
 	}
+}
+
+// flagSpelling matches a flag name as the flag package writes it in its
+// errors: one dash, after "flag ", "for " or ": ".
+var flagSpelling = regexp.MustCompile(`(^|flag |for |: )-([A-Za-z][\w-]*)`)
+
+// flagErrorText rewords an error of the flag package: each flag spelt as
+// the help spells it (--format, -o), a boolean's value explained, and an
+// unknown flag's nearest known name suggested.
+func flagErrorText(fs *flag.FlagSet, err error) string {
+	msg := err.Error()
+	const undefined = "flag provided but not defined: -"
+	if name, ok := strings.CutPrefix(msg, undefined); ok {
+		var names []string
+		fs.VisitAll(func(f *flag.Flag) { names = append(names, f.Name) })
+		msg = "unknown flag " + dashed(name)
+		if c, ok := suggest.Closest(name, names); ok {
+			msg += "; did you mean " + dashed(c) + "?"
+		}
+		return msg
+	}
+	msg = strings.Replace(msg, ": parse error", ": takes true or false", 1)
+	return flagSpelling.ReplaceAllStringFunc(msg, func(m string) string {
+		sub := flagSpelling.FindStringSubmatch(m)
+		return sub[1] + dashed(sub[2])
+	})
+}
+
+// dashed is a flag's name as the help writes it: -o, --format.
+func dashed(name string) string {
+	if len([]rune(name)) == 1 {
+		return "-" + name
+	}
+	return "--" + name
 }
 
 // flagValueName is the name the synopsis gives a flag's value ("LIST" in
