@@ -192,3 +192,91 @@ func readJSON(t *testing.T, path string, v any, nvimOutput []byte) {
 		t.Fatalf("%s: %v: %s", path, err, data)
 	}
 }
+
+// nvimRecipeScript opens the hydrogen plant's reformer, then its included
+// gases file (as going to a definition there would), and writes how many
+// servers run and the codes of the gases file's diagnostics.
+const nvimRecipeScript = `
+local function write(name, value)
+  local f = assert(io.open(vim.env.HESS_OUT .. '/' .. name, 'w'))
+  f:write(vim.json.encode(value))
+  f:close()
+end
+vim.cmd('edit reformer.hess')
+vim.wait(20000, function() return #vim.diagnostic.get(0) > 0 end, 50)
+vim.cmd('edit gases.hess')
+local buf = vim.api.nvim_get_current_buf()
+vim.wait(5000, function() return #vim.lsp.buf_get_clients(buf) > 0 end, 50)
+-- Give a second server, if one was started, the time to report.
+vim.wait(3000, function() return #vim.lsp.get_active_clients() > 1 or #vim.diagnostic.get(buf) > 0 end, 50)
+local codes = {}
+for _, d in ipairs(vim.diagnostic.get(buf)) do table.insert(codes, d.code or '') end
+write('recipe.json', {servers = #vim.lsp.get_active_clients(), attached = #vim.lsp.buf_get_clients(buf), codes = codes})
+vim.cmd('qa!')
+`
+
+// TestNeovimReadmeRecipe runs the README's Neovim 0.7 set-up as the
+// editor's init file: opening an included file after its root reuses the
+// one server, which checks the library through the root (no false
+// unused-species).
+func TestNeovimReadmeRecipe(t *testing.T) {
+	nvim := requireTool(t, "nvim", "apt-get install -y neovim")
+	bin := hessBinary(t)
+	readme, err := os.ReadFile(filepath.Join("..", "..", "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := string(readme)
+	i := strings.Index(s, "**Neovim 0.7**")
+	if i < 0 {
+		t.Fatal("the README has no Neovim 0.7 recipe")
+	}
+	start := strings.Index(s[i:], "```lua\n")
+	if start < 0 {
+		t.Fatal("the Neovim 0.7 recipe has no Lua block")
+	}
+	block := s[i+start+len("```lua\n"):]
+	block = block[:strings.Index(block, "```")]
+
+	dir := t.TempDir()
+	brokenReformer(t, dir)
+	binDir := filepath.Join(dir, "bin")
+	if err := os.Mkdir(binDir, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Symlink(bin, filepath.Join(binDir, "hess")); err != nil {
+		t.Fatal(err)
+	}
+	for name, text := range map[string]string{"init.lua": block, "test.lua": nvimRecipeScript} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
+	defer cancel()
+	cmd := exec.CommandContext(ctx, nvim, "--headless", "-u", "init.lua", "-c", "luafile test.lua")
+	cmd.Dir = dir
+	cmd.Env = append(os.Environ(),
+		"PATH="+binDir+string(os.PathListSeparator)+os.Getenv("PATH"), "HESS_OUT="+dir,
+		"XDG_CONFIG_HOME="+dir, "XDG_DATA_HOME="+dir, "XDG_STATE_HOME="+dir, "XDG_CACHE_HOME="+dir,
+	)
+	out, err := cmd.CombinedOutput()
+	if err != nil {
+		t.Fatalf("nvim: %v\n%s", err, out)
+	}
+	var got struct {
+		Servers  int      `json:"servers"`
+		Attached int      `json:"attached"`
+		Codes    []string `json:"codes"`
+	}
+	readJSON(t, filepath.Join(dir, "recipe.json"), &got, out)
+	if got.Servers != 1 || got.Attached != 1 {
+		t.Errorf("%d servers running, %d attached to the included file; want one server for both", got.Servers, got.Attached)
+	}
+	for _, c := range got.Codes {
+		if c == "unused-species" {
+			t.Errorf("the included file was checked on its own: %v", got.Codes)
+			break
+		}
+	}
+}
