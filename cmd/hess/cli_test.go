@@ -81,6 +81,9 @@ func TestHelpCommand(t *testing.T) {
 			}
 		}
 	}
+	if r := runHess(t, "help", "help"); r.code != 0 || !strings.Contains(r.stdout, "usage: hess COMMAND") {
+		t.Errorf("help help: exit %d, %q", r.code, r.stdout)
+	}
 	r := runHess(t, "help", "table")
 	for _, want := range []string{"--format text|csv|json|markdown", "--reaction NAME", "-o FILE", "--temperatures LIST"} {
 		if !strings.Contains(r.stdout, want) {

@@ -77,6 +77,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintln(stderr, "hess help: takes at most one command")
 			return exitTrouble
 		}
+		if args[1] == "help" {
+			usage(stdout)
+			return exitOK
+		}
 		if c, ok := lookupCommand(args[1], stderr); ok {
 			return c.run([]string{"--help"}, stdout, stderr)
 		}
