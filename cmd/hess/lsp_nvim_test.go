@@ -222,22 +222,7 @@ vim.cmd('qa!')
 func TestNeovimReadmeRecipe(t *testing.T) {
 	nvim := requireTool(t, "nvim", "apt-get install -y neovim")
 	bin := hessBinary(t)
-	readme, err := os.ReadFile(filepath.Join("..", "..", "README.md"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	s := string(readme)
-	i := strings.Index(s, "**Neovim 0.7**")
-	if i < 0 {
-		t.Fatal("the README has no Neovim 0.7 recipe")
-	}
-	start := strings.Index(s[i:], "```lua\n")
-	if start < 0 {
-		t.Fatal("the Neovim 0.7 recipe has no Lua block")
-	}
-	block := s[i+start+len("```lua\n"):]
-	block = block[:strings.Index(block, "```")]
-
+	block := readmeBlock(t, "**Neovim 0.7**", "lua")
 	dir := t.TempDir()
 	brokenReformer(t, dir)
 	binDir := filepath.Join(dir, "bin")
