@@ -18,7 +18,7 @@ type compiler struct {
 	net  *Network
 	out  *lang.Diagnostics   // where report writes; nil for net.Diagnostics
 	refs map[string]*Species // species by reference as written, when caching
-	near *nearNames          // near-miss species names, shared by the workers
+	near *nearIndexes        // near-miss names, shared by the workers
 }
 
 // worker returns a compiler for one worker of a parallel pass, reporting
@@ -44,7 +44,7 @@ var builtinPhases = map[string]Convention{
 }
 
 func compile(n *Network) {
-	c := &compiler{net: n, near: &nearNames{}}
+	c := &compiler{net: n, near: &nearIndexes{}}
 	n.Elements = BuiltinElements()
 	n.Phases = map[string]*Phase{}
 	for tag, conv := range builtinPhases {
@@ -349,7 +349,15 @@ func (c *compiler) lint(l *lang.Lint) {
 		return
 	}
 	if LookupCheck(l.Check.Name) == nil {
-		c.report("syntax", l.Check.Span(), "lint names no known check %q (`hess explain` lists them)", l.Check.Name)
+		var names []string
+		for _, ch := range checks {
+			names = append(names, ch.Name)
+		}
+		hint := suggest.Phrase(l.Check.Name, names)
+		if hint != "" {
+			hint = "; " + hint
+		}
+		c.report("syntax", l.Check.Span(), "lint names no known check %q%s (`hess explain` lists them)", l.Check.Name, hint)
 		return
 	}
 	sev, ok := lang.ParseSeverity(l.Level.Name)
@@ -383,7 +391,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		if ph, ok := c.net.Phases[parts.State]; ok {
 			sp.Phase = ph
 		} else {
-			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase", parts.State)
+			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase%s", parts.State, c.phaseHint(parts.State))
 		}
 	}
 	return sp
@@ -769,7 +777,7 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
 	} else if c.near != nil {
-		if key := c.near.closest(c.net.Species, ref.Text, parts.Base); key != "" {
+		if key := c.near.species.closestSpecies(c.net.Species, ref.Text, parts.Base); key != "" {
 			msg += "; " + suggest.DidYouMean(key)
 		}
 	}
@@ -906,7 +914,13 @@ func (c *compiler) combination(r *lang.Reaction) {
 		ct := ComboTerm{Weight: w, Name: t.Name.Name, Span: t.Span()}
 		ct.Reaction = c.net.reactionByName[ct.Name]
 		if ct.Reaction == nil {
-			c.report("undefined-reaction", t.Name.Span(), "reaction %s is not defined", ct.Name)
+			msg := fmt.Sprintf("reaction %s is not defined", ct.Name)
+			if c.near != nil {
+				if near := c.near.reactions.closestReaction(c.net.Reactions, ct.Name); near != "" {
+					msg += "; " + suggest.DidYouMean(near)
+				}
+			}
+			c.report("undefined-reaction", t.Name.Span(), "%s", msg)
 		} else if ct.Reaction == rx {
 			c.report("undefined-reaction", t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
 			ct.Reaction = nil

@@ -1,37 +1,50 @@
 package network
 
 import (
+	"sort"
+	"strings"
 	"sync"
 	"unicode/utf8"
 
 	"hess/suggest"
 )
 
-// nearNames finds the declared species a misspelt reference most likely
-// meant. Comparing a reference with every species would cost the number of
-// species for each undefined reference; instead the index keeps, for each
-// species' key and bare name, the spellings one deletion away (after
-// folding case and the look-alikes 0/O, 1/l), so that a lookup tries only
-// the few species within two edits. It is built once per compile, on the
-// first undefined reference, and read by every worker.
+// nearNames finds the declared name (of a species or a reaction) a
+// misspelt reference most likely meant. Comparing a reference with every
+// name would cost the number of names for each undefined reference;
+// instead the index keeps, for each name (and each species' bare name),
+// the spellings one deletion away (after folding case and the look-alikes
+// 0/O, 1/l), so that a lookup tries only the few names within two edits. It
+// is built once per compile, on the first undefined reference, and read by
+// every worker.
 type nearNames struct {
 	once     sync.Once
-	keys     []string         // species keys, in declaration order
+	keys     []string         // names, in declaration order
+	bases    []string         // species' bare names beside keys (or the keys)
 	variants map[string][]int // folded spelling or one deletion of it → keys
+}
+
+// nearIndexes are the indexes of one compile, shared by its workers.
+type nearIndexes struct {
+	species   nearNames
+	reactions nearNames
 }
 
 // maxIndexedName bounds the names indexed (and looked up): longer ones
 // get no suggestion, which keeps the index proportional to the input.
 const maxIndexedName = 48
 
-func (n *nearNames) build(species []*Species) {
+// build indexes keys, and beside each its bare name (bases may be nil).
+func (n *nearNames) build(keys, bases []string) {
 	n.variants = map[string][]int{}
-	for _, sp := range species {
-		i := len(n.keys)
-		n.keys = append(n.keys, sp.Key)
-		n.add(sp.Key, i)
-		if sp.Parts.Base != "" && sp.Parts.Base != sp.Key {
-			n.add(sp.Parts.Base, i)
+	n.keys, n.bases = keys, bases
+	if n.bases == nil {
+		n.bases = keys
+	}
+	for i, k := range keys {
+		n.add(k, i)
+		if b := n.bases[i]; b != "" && b != k {
+			n.add(b, i)
 		}
 	}
 }
@@ -62,11 +75,37 @@ func deletions(name string) []string {
 	return out
 }
 
-// closest is the declared species key nearest to the reference as
-// written, or whose bare name is nearest to the reference's bare name (CaC03
-// for CaCO3(cr)), or "" when none is near enough to be a likely slip.
-func (n *nearNames) closest(species []*Species, ref, base string) string {
-	n.once.Do(func() { n.build(species) })
+// closestSpecies is the declared species key nearest to the reference as
+// written, or whose bare name is nearest to the reference's bare name
+// (CaC03 for CaCO3(cr)), or "" when none is near enough to be a likely
+// slip.
+func (n *nearNames) closestSpecies(species []*Species, ref, base string) string {
+	n.once.Do(func() {
+		keys := make([]string, len(species))
+		bases := make([]string, len(species))
+		for i, sp := range species {
+			keys[i], bases[i] = sp.Key, sp.Parts.Base
+		}
+		n.build(keys, bases)
+	})
+	return n.closest(ref, base, plausibleSpeciesSlip)
+}
+
+// closestReaction is the reaction name nearest to name, or "".
+func (n *nearNames) closestReaction(reactions []*Reaction, name string) string {
+	n.once.Do(func() {
+		keys := make([]string, len(reactions))
+		for i, rx := range reactions {
+			keys[i] = rx.Name
+		}
+		n.build(keys, nil)
+	})
+	return n.closest(name, name, func(string, string) bool { return true })
+}
+
+// closest looks ref up among the keys and base among the bare names,
+// keeping only suggestions that plausible accepts.
+func (n *nearNames) closest(ref, base string, plausible func(got, want string) bool) string {
 	seen := map[int]bool{}
 	var cands []string
 	var bare []string
@@ -76,7 +115,7 @@ func (n *nearNames) closest(species []*Species, ref, base string) string {
 				if !seen[i] {
 					seen[i] = true
 					cands = append(cands, n.keys[i])
-					bare = append(bare, species[i].Parts.Base)
+					bare = append(bare, n.bases[i])
 				}
 			}
 		}
@@ -86,7 +125,7 @@ func (n *nearNames) closest(species []*Species, ref, base string) string {
 		among []string
 	}{{ref, cands}, {base, bare}} {
 		c, ok := suggest.Closest(try.name, try.among)
-		if !ok || !plausibleSpeciesSlip(try.name, c) {
+		if !ok || !plausible(try.name, c) {
 			continue
 		}
 		for i, x := range try.among {
@@ -109,4 +148,31 @@ func plausibleSpeciesSlip(got, want string) bool {
 		return true
 	}
 	return utf8.RuneCountInString(got) >= 8
+}
+
+// phaseWords are state tags written out in words, and the tag meant.
+var phaseWords = map[string]string{
+	"gas": "g", "vapour": "g", "vapor": "g", "liquid": "l", "liq": "l",
+	"solid": "s", "sol": "s", "c": "cr", "cryst": "cr", "crystal": "cr", "crystalline": "cr",
+	"aqueous": "aq", "aqu": "aq", "a": "aq",
+}
+
+// phaseHint is "; did you mean (x)?" for a state tag that names a built-in
+// tag in words or is a near miss of a declared phase's tag, else "".
+func (c *compiler) phaseHint(tag string) string {
+	if t, ok := phaseWords[strings.ToLower(tag)]; ok {
+		return "; did you mean (" + t + ")?"
+	}
+	if len([]rune(tag)) < 2 {
+		return "" // one letter is a near miss of every built-in tag
+	}
+	tags := make([]string, 0, len(c.net.Phases))
+	for t := range c.net.Phases {
+		tags = append(tags, t)
+	}
+	sort.Strings(tags)
+	if t, ok := suggest.Closest(tag, tags); ok {
+		return "; did you mean (" + t + ")?"
+	}
+	return ""
 }

@@ -106,3 +106,37 @@ reaction burn: 2 H2(g) + O2(g) <-> 2 H2O(g)
 		}
 	}
 }
+
+// TestOtherNameSuggestions: combination terms, state tags and lint
+// settings name what was likely meant.
+func TestOtherNameSuggestions(t *testing.T) {
+	n := loadNearText(t, `settings { lint unused-specis off }
+phase melt { convention pure }
+species CO(g), O2(g), CO2(g), H2(g), H2O(g)
+species Fe(meltt), Fe(gas)
+reaction burn: 2 CO(g) + O2(g) <-> 2 CO2(g)
+reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
+reaction both: 2 H2(g) + O2(g) <-> 2 H2O(g) = brun - 2 shift
+`)
+	want := []string{
+		`lint names no known check "unused-specis"; did you mean "unused-species"?`,
+		`state tag (meltt) is neither built in (g, l, s, cr, aq) nor a declared phase; did you mean (melt)?`,
+		`state tag (gas) is neither built in (g, l, s, cr, aq) nor a declared phase; did you mean (g)?`,
+		`reaction brun is not defined; did you mean "burn"?`,
+	}
+	var all []string
+	for _, d := range n.Diagnostics {
+		all = append(all, d.Message)
+	}
+	for _, w := range want {
+		found := false
+		for _, m := range all {
+			if strings.Contains(m, w) {
+				found = true
+			}
+		}
+		if !found {
+			t.Errorf("no diagnostic says %q; got:\n%s", w, strings.Join(all, "\n"))
+		}
+	}
+}
