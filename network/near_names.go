@@ -30,6 +30,12 @@ type nearIndexes struct {
 	reactions nearNames
 }
 
+// maxNearCandidates bounds the names one lookup compares, so that a file
+// of many similar names and many undeclared references stays cheap; the
+// candidates are taken in a fixed order, so the suggestion does not depend
+// on scheduling.
+const maxNearCandidates = 256
+
 // maxIndexedName bounds the names indexed (and looked up): longer ones
 // get no suggestion, which keeps the index proportional to the input.
 const maxIndexedName = 48
@@ -112,6 +118,9 @@ func (n *nearNames) closest(ref, base string, plausible func(got, want string) b
 	for _, name := range []string{ref, base} {
 		for _, v := range deletions(name) {
 			for _, i := range n.variants[v] {
+				if len(cands) == maxNearCandidates {
+					break
+				}
 				if !seen[i] {
 					seen[i] = true
 					cands = append(cands, n.keys[i])

@@ -140,3 +140,31 @@ reaction both: 2 H2(g) + O2(g) <-> 2 H2O(g) = brun - 2 shift
 		}
 	}
 }
+
+// BenchmarkUndeclaredSuggestions compiles 10 000 species and 2 000
+// reactions whose every species reference is a slip (0 for O), so that each
+// of the 4 000 references looks for a suggestion; compare with the same
+// network written correctly (sub-benchmark "correct").
+func BenchmarkUndeclaredSuggestions(b *testing.B) {
+	for _, tc := range []struct{ name, o string }{{"slips", "0"}, {"correct", "O"}} {
+		var s strings.Builder
+		for a := 1; a <= 20; a++ {
+			for h := 1; h <= 50; h++ {
+				for o := 1; o <= 10; o++ {
+					fmt.Fprintf(&s, "species C%dH%dO%d(g)\n", a, h, o)
+				}
+			}
+		}
+		for i := 0; i < 2000; i++ {
+			a, h := i%20+1, i%50+1
+			fmt.Fprintf(&s, "reaction r%d: C%dH%d%s2(g) <-> C%dH%d%s3(g)\n", i, a, h, tc.o, a, h, tc.o)
+		}
+		src := []byte(s.String())
+		root, _ := filepath.Abs("bench.hess")
+		b.Run(tc.name, func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				Load(root, Overlay{Files: map[string][]byte{root: src}, Base: Disk{}})
+			}
+		})
+	}
+}

@@ -16,16 +16,30 @@ const maxLen = 64
 
 // Distance is the optimal-string-alignment distance between a and b,
 // counted in Unicode code points: insertions, deletions, substitutions and
-// swaps of two neighbours each cost one.
+// swaps of two neighbours each cost one. Its work grows with the product of
+// the lengths; Closest bounds them.
 func Distance(a, b string) int {
-	return distance([]rune(a), []rune(b))
+	ra, rb := []rune(a), []rune(b)
+	var r rows
+	r.grow(len(rb) + 1)
+	return r.distance(ra, rb)
 }
 
-func distance(a, b []rune) int {
-	// Three rows: the one two back (for swaps), the previous and this one.
-	prev2 := make([]int, len(b)+1)
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
+// rows are the three rows of the distance table (the one two back, for
+// swaps; the previous; this one), kept between calls to save allocations.
+type rows struct {
+	prev2, prev, cur []int
+}
+
+func (r *rows) grow(n int) {
+	if cap(r.cur) < n {
+		r.prev2, r.prev, r.cur = make([]int, n), make([]int, n), make([]int, n)
+	}
+}
+
+func (r *rows) distance(a, b []rune) int {
+	r.grow(len(b) + 1)
+	prev2, prev, cur := r.prev2[:len(b)+1], r.prev[:len(b)+1], r.cur[:len(b)+1]
 	for j := range prev {
 		prev[j] = j
 	}
@@ -59,19 +73,34 @@ func Closest(name string, candidates []string) (string, bool) {
 		return "", false
 	}
 	folded := Fold(rn)
+	var r rows
+	r.grow(maxLen + 1)
+	var rc, fc [maxLen]rune
 	best, bestScore := "", -1
 	for _, c := range candidates {
 		if c == name {
 			continue
 		}
-		rc := []rune(c)
-		if len(rc) > maxLen || abs(len(rc)-len(rn)) > allowance(len(rn)) {
+		n := 0
+		for _, x := range c {
+			if n == maxLen {
+				n = maxLen + 1
+				break
+			}
+			rc[n] = x
+			n++
+		}
+		if n > maxLen || abs(n-len(rn)) > allowance(len(rn)) {
 			continue
 		}
+		foldInto(fc[:n], rc[:n])
 		// Twice the folded distance, plus one for each slip that folding
 		// hid: a case or look-alike slip costs 1, any other 2.
-		folds := distance(folded, Fold(rc))
-		exact := distance(rn, rc)
+		folds := r.distance(folded, fc[:n])
+		if folds > allowance(len(rn)) {
+			continue
+		}
+		exact := r.distance(rn, rc[:n])
 		score := 2*folds + (exact - folds)
 		if score > 2*allowance(len(rn)) {
 			continue
@@ -99,6 +128,12 @@ func allowance(n int) int {
 // counts such slips as half a mistake.
 func Fold(rs []rune) []rune {
 	out := make([]rune, len(rs))
+	foldInto(out, rs)
+	return out
+}
+
+// foldInto writes the folded form of rs into out (of the same length).
+func foldInto(out, rs []rune) {
 	for i, r := range rs {
 		switch r {
 		case '0':
@@ -108,7 +143,6 @@ func Fold(rs []rune) []rune {
 		}
 		out[i] = unicode.ToLower(r)
 	}
-	return out
 }
 
 func abs(n int) int {
