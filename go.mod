@@ -5,6 +5,7 @@ go 1.26
 require (
 	github.com/alecthomas/participle/v2 v2.1.4
 	github.com/fsnotify/fsnotify v1.10.1
+	github.com/santhosh-tekuri/jsonschema/v6 v6.0.3
 	github.com/sourcegraph/jsonrpc2 v0.2.3
 	gonum.org/v1/gonum v0.17.0
 	gonum.org/v1/plot v0.17.0

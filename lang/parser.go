@@ -11,6 +11,8 @@ import (
 
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
+
+	"hess/suggest"
 )
 
 // definition adapts the lexer to participle. The parser is only ever fed
@@ -327,7 +329,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 		return result{diags: Diagnostics{{
 			Code:     "syntax",
 			Severity: Error,
-			Message:  notAStatement + describe(first),
+			Message:  notAStatement + describe(first) + keywordHint(first),
 			Subject:  span,
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
 		}}}
@@ -343,4 +345,31 @@ func parseStatement(group []lexer.Token, c chunk) result {
 		return result{st: st, diags: Diagnostics{syntaxDiag(toks, err)}}
 	}
 	return result{st: st}
+}
+
+// startsLine reports whether at is the first of toks on its line, where a
+// misspelt statement keyword would stand.
+func startsLine(toks []lexer.Token, at lexer.Token) bool {
+	for i, t := range toks {
+		if t.Pos.Offset == at.Pos.Offset {
+			return i == 0 || toks[i-1].Pos.Line < at.Pos.Line
+		}
+	}
+	return false
+}
+
+// statementKeywordList is statementKeywords in the order messages list
+// them.
+var statementKeywordList = []string{"include", "settings", "element", "phase", "species", "reaction", "mixture"}
+
+// keywordHint is "; did you mean …?" when a word that starts a statement is
+// a near miss of a statement keyword (speces, Reaction), else "".
+func keywordHint(t lexer.Token) string {
+	if t.Type == Keyword || t.Type == Number || t.Type == String || isEnd(t) {
+		return ""
+	}
+	if hint := suggest.Phrase(t.Value, statementKeywordList); hint != "" {
+		return "; " + hint
+	}
+	return ""
 }

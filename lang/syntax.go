@@ -138,6 +138,9 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 	default:
 		d.Subject = TokenSpan(se.found)
 		d.Message = se.message(toks)
+		if startsLine(toks, se.found) {
+			d.Message += keywordHint(se.found)
+		}
 	}
 	return d
 }

@@ -76,7 +76,7 @@ func collect(roots []*compiled, snap *snapshot, uriOf func(string) string, enc e
 	for _, c := range roots {
 		for _, d := range c.net.Diagnostics {
 			path, r := snap.spanRange(c.net, d.Subject, enc)
-			msg := d.Message
+			msg := untitledText(d.Message, d.Code)
 			if d.Detail != "" {
 				msg += "\n" + d.Detail
 			}

@@ -176,7 +176,7 @@ func (s *stream) Close() error {
 // request error for a request whose id can be read. Anything else (an
 // invalid notification, a broken response) gets no answer.
 func (s *stream) reject(body []byte, err error) {
-	s.log.Printf("skipping malformed message (%d bytes): %v: %s", len(body), err, clip(body))
+	s.log.Printf("skipping malformed message (%d bytes): %s: %s", len(body), jsonErrorText(err), clip(body))
 	if !json.Valid(body) {
 		s.replyError(json.RawMessage("null"), -32700, "parse error: the message is not valid JSON")
 		return
@@ -189,7 +189,7 @@ func (s *stream) reject(body []byte, err error) {
 	}
 	switch probe.ID[0] {
 	case '"', '-', '0', '1', '2', '3', '4', '5', '6', '7', '8', '9':
-		s.replyError(probe.ID, -32600, "invalid request: "+err.Error())
+		s.replyError(probe.ID, -32600, "invalid request: "+jsonErrorText(err))
 	}
 }
 

@@ -202,7 +202,7 @@ func TestServerSurvivesGarbage(t *testing.T) {
 	if m := rc.next(t); m["id"] != 6.0 || errorCode(m) != jsonrpc2.CodeInvalidParams {
 		t.Errorf("bad params: %v, want InvalidParams", m)
 	}
-	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didOpen","params":{"textDocument":{"uri":"git:/x.hess","text":"x"}}}`))
+	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didOpen","params":{"textDocument":{"uri":"git:/x.hess","languageId":"hess","version":1,"text":"x"}}}`))
 	rc.send(t, frame(`{"jsonrpc":"2.0","method":"textDocument/didChange","params":{"textDocument":{"uri":"file:///nowhere/x.hess","version":2},"contentChanges":[{"text":"y"}]}}`))
 	// A length shorter than the body: the cut body is not JSON, and the
 	// rest of it is garbage before the next header.

@@ -258,6 +258,15 @@ type CompletionList struct {
 // DocumentFormattingParams asks for the edits that format a document.
 type DocumentFormattingParams struct {
 	TextDocument TextDocumentIdentifier `json:"textDocument"`
+	// Options are the editor's preferences; the canonical layout does not
+	// depend on them, but the protocol requires them.
+	Options FormattingOptions `json:"options"`
+}
+
+// FormattingOptions are an editor's formatting preferences.
+type FormattingOptions struct {
+	TabSize      uint32 `json:"tabSize"`
+	InsertSpaces bool   `json:"insertSpaces"`
 }
 
 // TextEdit replaces a range with new text.

@@ -5,8 +5,6 @@ package lsp
 
 import (
 	"context"
-	"encoding/json"
-	"fmt"
 	"io"
 	"log"
 	"runtime/debug"
@@ -257,16 +255,8 @@ func (s *server) dispatch(ctx context.Context, req *jsonrpc2.Request) (any, erro
 	return s.guard(req, func() (any, error) { return h(ctx, req) })
 }
 
-// params decodes a message's parameters into v.
-func params(req *jsonrpc2.Request, v any) error {
-	if req.Params == nil {
-		return &jsonrpc2.Error{Code: jsonrpc2.CodeInvalidParams, Message: req.Method + ": parameters are missing"}
-	}
-	if err := json.Unmarshal(*req.Params, v); err != nil {
-		return &jsonrpc2.Error{Code: jsonrpc2.CodeInvalidParams, Message: fmt.Sprintf("%s: %v", req.Method, err)}
-	}
-	return nil
-}
+// params decodes a message's parameters into v (decodeParams).
+func params(req *jsonrpc2.Request, v any) error { return decodeParams(req.Method, req.Params, v) }
 
 func (s *server) initialize(ctx context.Context, req *jsonrpc2.Request) (any, error) {
 	var p InitializeParams

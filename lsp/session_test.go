@@ -197,7 +197,7 @@ func TestSession(t *testing.T) {
 
 	// Formatting: the edits turn the text into the canonical layout.
 	var edits []TextEdit
-	c.mustCall("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: plant}}, &edits)
+	c.mustCall("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: plant}, Options: FormattingOptions{TabSize: 2, InsertSpaces: true}}, &edits)
 	got := applyEdits(t, fixed, edits)
 	want, diags := lang.FormatSource(plantPath, []byte(fixed))
 	if diags.HasErrors() || got != string(want) {

@@ -59,3 +59,43 @@ func pathToURI(path string) string {
 	}
 	return (&url.URL{Scheme: "file", Path: p}).String()
 }
+
+// untitledRoot is the pseudo-folder of unsaved buffers with a trailing
+// separator, as it appears at the start of their paths.
+var untitledRoot = string(filepath.Separator) + untitledDir + string(filepath.Separator)
+
+// untitledText rewrites a message that names paths under the pseudo-folder
+// of unsaved buffers: each becomes the name the user knows (the buffer's
+// name, or the include as written), and a file an unsaved buffer includes
+// gets the reason it cannot be found.
+func untitledText(msg, code string) string {
+	if !strings.Contains(msg, untitledRoot) {
+		return msg
+	}
+	var b strings.Builder
+	rest := msg
+	for {
+		i := strings.Index(rest, untitledRoot)
+		if i < 0 {
+			b.WriteString(rest)
+			break
+		}
+		b.WriteString(rest[:i])
+		rest = rest[i+len(untitledRoot):]
+		end := strings.IndexAny(rest, " :)\n")
+		if end < 0 {
+			end = len(rest)
+		}
+		name := rest[:end]
+		if u, err := url.PathUnescape(name); err == nil {
+			name = u
+		}
+		b.WriteString(filepath.ToSlash(name))
+		rest = rest[end:]
+	}
+	out := b.String()
+	if code == "include-missing" {
+		out += "; an unsaved buffer has no folder to include from: save it first"
+	}
+	return out
+}

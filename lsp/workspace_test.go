@@ -179,12 +179,12 @@ func TestFormattingRefusesBrokenText(t *testing.T) {
 	c.initialize()
 	c.open(plant, "reaction broken: -> {\n", 1)
 	var edits []TextEdit
-	err := c.call("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: plant}}, &edits)
+	err := c.call("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: plant}, Options: FormattingOptions{TabSize: 2, InsertSpaces: true}}, &edits)
 	if !isCode(err, codeRequestFailed) || !strings.Contains(err.Error(), "syntax errors") {
 		t.Errorf("formatting broken text: %v, want RequestFailed about syntax errors", err)
 	}
 	c.open(fileURI(dir, "ok.hess"), "species H2(g)\n", 1)
-	c.mustCall("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: fileURI(dir, "ok.hess")}}, &edits)
+	c.mustCall("textDocument/formatting", DocumentFormattingParams{TextDocument: TextDocumentIdentifier{URI: fileURI(dir, "ok.hess")}, Options: FormattingOptions{TabSize: 2, InsertSpaces: true}}, &edits)
 	if edits == nil || len(edits) != 0 {
 		t.Errorf("formatting canonical text: %+v, want an empty list", edits)
 	}

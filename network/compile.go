@@ -14,12 +14,13 @@ type compiler struct {
 	net  *Network
 	out  *lang.Diagnostics   // where report writes; nil for net.Diagnostics
 	refs map[string]*Species // species by reference as written, when caching
+	near *nearIndexes        // near-miss names, shared by the workers
 }
 
 // worker returns a compiler for one worker of a parallel pass, reporting
 // into out.
 func (c *compiler) worker(out *lang.Diagnostics) *compiler {
-	return &compiler{net: c.net, out: out, refs: map[string]*Species{}}
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near}
 }
 
 func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -39,7 +40,7 @@ var builtinPhases = map[string]Convention{
 }
 
 func compile(n *Network) {
-	c := &compiler{net: n}
+	c := &compiler{net: n, near: &nearIndexes{}}
 	n.Elements = chem.BuiltinElements()
 	n.Phases = map[string]*Phase{}
 	for tag, conv := range builtinPhases {

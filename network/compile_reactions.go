@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"hess/lang"
+	"hess/suggest"
 )
 
 // builtReaction is a reaction statement compiled on its own, before the
@@ -167,6 +168,10 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 	if len(near) > 0 {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
+	} else if c.near != nil {
+		if key := c.near.species.closestSpecies(c.net.Species, ref.Text, parts.Base); key != "" {
+			msg += "; " + suggest.DidYouMean(key)
+		}
 	}
 	c.report("undefined-species", ref.Span(), "%s", msg)
 }
@@ -301,7 +306,13 @@ func (c *compiler) combination(r *lang.Reaction) {
 		ct := ComboTerm{Weight: w, Name: t.Name.Name, Span: t.Span()}
 		ct.Reaction = c.net.reactionByName[ct.Name]
 		if ct.Reaction == nil {
-			c.report("undefined-reaction", t.Name.Span(), "reaction %s is not defined", ct.Name)
+			msg := fmt.Sprintf("reaction %s is not defined", ct.Name)
+			if c.near != nil {
+				if near := c.near.reactions.closestReaction(c.net.Reactions, ct.Name); near != "" {
+					msg += "; " + suggest.DidYouMean(near)
+				}
+			}
+			c.report("undefined-reaction", t.Name.Span(), "%s", msg)
 		} else if ct.Reaction == rx {
 			c.report("undefined-reaction", t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
 			ct.Reaction = nil

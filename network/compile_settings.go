@@ -8,6 +8,7 @@ import (
 
 	"hess/chem"
 	"hess/lang"
+	"hess/suggest"
 )
 
 func (c *compiler) element(e *lang.Element) {
@@ -239,7 +240,15 @@ func (c *compiler) lint(l *lang.Lint) {
 		return
 	}
 	if LookupCheck(l.Check.Name) == nil {
-		c.report("syntax", l.Check.Span(), "lint names no known check %q (`hess explain` lists them)", l.Check.Name)
+		var names []string
+		for _, ch := range checks {
+			names = append(names, ch.Name)
+		}
+		hint := suggest.Phrase(l.Check.Name, names)
+		if hint != "" {
+			hint = "; " + hint
+		}
+		c.report("syntax", l.Check.Span(), "lint names no known check %q%s (`hess explain` lists them)", l.Check.Name, hint)
 		return
 	}
 	sev, ok := lang.ParseSeverity(l.Level.Name)

@@ -28,7 +28,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		if ph, ok := c.net.Phases[parts.State]; ok {
 			sp.Phase = ph
 		} else {
-			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase", parts.State)
+			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase%s", parts.State, c.phaseHint(parts.State))
 		}
 	}
 	return sp

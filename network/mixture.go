@@ -214,7 +214,7 @@ func (c *compiler) unitNotUnit(q *lang.Quantity) {
 		return
 	}
 	_, err := thermo.ParseUnit(text)
-	c.report("unit-mismatch", q.Unit.Span(), "%s: %v", text, err)
+	c.report("unit-mismatch", q.Unit.Span(), "%s", unitErrorMessage(err))
 }
 
 // untaggedMessage explains a species written without its state tag after

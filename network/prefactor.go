@@ -25,7 +25,7 @@ func (c *compiler) prefactor(q *lang.Quantity) (*Value, bool) {
 	}
 	u, err := thermo.ParseUnit(q.Unit.Text)
 	if err != nil {
-		c.report("unit-mismatch", q.Unit.Span(), "%s: %v", q.Unit.Text, err)
+		c.report("unit-mismatch", q.Unit.Span(), "A takes a rate unit (such as 1/s or cm3/mol/s): %s", unitErrorMessage(err, prefactorDims()...))
 		return nil, false
 	}
 	for order := 0; order <= maxOrder; order++ {
@@ -45,4 +45,13 @@ func (c *compiler) prefactor(q *lang.Quantity) (*Value, bool) {
 	}
 	c.report("unit-mismatch", q.Unit.Span(), "A takes a rate unit (volume/mol)^(order-1)/s, such as 1/s or cm3/mol/s, found %s (%s)", q.Unit.Text, thermo.DimName(u.Dim))
 	return nil, false
+}
+
+// prefactorDims lists the dimensions of the rate prefactors of every order.
+func prefactorDims() []thermo.Dim {
+	out := make([]thermo.Dim, 0, maxOrder+1)
+	for o := 0; o <= maxOrder; o++ {
+		out = append(out, thermo.RatePrefactorDim(o))
+	}
+	return out
 }

@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"hess/lang"
+	"hess/suggest"
 	"hess/thermo"
 )
 
@@ -125,12 +126,17 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 	}
 	u, err := thermo.ParseUnit(q.Unit.Text)
 	if err != nil {
-		c.report("unit-mismatch", q.Unit.Span(), "%s: %v", q.Unit.Text, err)
+		c.report("unit-mismatch", q.Unit.Span(), "%s takes %s (such as %s): %s",
+			what, kind.name, kind.example, unitErrorMessage(err, kind.dim))
 		return nil, false
 	}
 	if u.Dim != kind.dim {
-		c.report("unit-mismatch", q.Unit.Span(), "%s takes %s (such as %s), found %s (%s)",
+		msg := fmt.Sprintf("%s takes %s (such as %s), found %s (%s)",
 			what, kind.name, kind.example, q.Unit.Text, thermo.DimName(u.Dim))
+		if fix := perMoleFix(q.Unit.Text, kind.dim); fix != "" {
+			msg += "; " + suggest.DidYouMean(fix)
+		}
+		c.report("unit-mismatch", q.Unit.Span(), "%s", msg)
 		return nil, false
 	}
 	out := &Value{Sigma: sigma * u.Scale, Span: q.Span()}

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"sort"
 	"strings"
 	"unicode"
 	"unicode/utf8"
@@ -98,12 +99,43 @@ func ParseUnit(s string) (Unit, error) {
 		err = p.errorf("unexpected %q", p.rest())
 	}
 	if err != nil {
+		var unknown *UnknownSymbolError
+		if errors.As(err, &unknown) {
+			unknown.Unit = s
+			return Unit{}, unknown
+		}
 		return Unit{}, fmt.Errorf("unit %q: %w", s, err)
 	}
 	if math.IsInf(v.scale, 0) || v.scale == 0 || math.IsNaN(v.scale) {
 		return Unit{}, fmt.Errorf("unit %q: scale factor out of range", s)
 	}
 	return Unit{Text: s, Dim: v.dim, Scale: v.scale}, nil
+}
+
+// UnknownSymbolError is a unit with a symbol that is not a unit: the whole
+// unit as written, the symbol and its byte offset in the unit, so that a
+// caller can propose a replacement.
+type UnknownSymbolError struct {
+	Unit   string
+	Symbol string
+	Offset int
+}
+
+func (e *UnknownSymbolError) Error() string {
+	if e.Symbol == e.Unit {
+		return fmt.Sprintf("unknown unit %q", e.Symbol)
+	}
+	return fmt.Sprintf("unknown unit symbol %q in %q", e.Symbol, e.Unit)
+}
+
+// UnitSymbols lists every unit symbol ParseUnit knows, sorted.
+func UnitSymbols() []string {
+	out := make([]string, 0, len(unitSymbols))
+	for s := range unitSymbols {
+		out = append(out, s)
+	}
+	sort.Strings(out)
+	return out
 }
 
 // unitValue is a partial result of the parser.
@@ -226,7 +258,7 @@ func (p *unitParser) factor() (unitValue, error) {
 		name := p.src[start:p.pos]
 		sym, ok := unitSymbols[name]
 		if !ok {
-			return unitValue{}, fmt.Errorf("unknown unit symbol %q", name)
+			return unitValue{}, &UnknownSymbolError{Symbol: name, Offset: start}
 		}
 		if sym.offset != 0 {
 			return unitValue{}, fmt.Errorf("%q is valid only alone, not inside a compound unit", name)

@@ -1,7 +1,9 @@
 package thermo
 
 import (
+	"errors"
 	"math"
+	"sort"
 	"strings"
 	"testing"
 )
@@ -112,10 +114,10 @@ func TestParseUnitEquivalent(t *testing.T) {
 func TestParseUnitErrors(t *testing.T) {
 	tests := []struct{ in, want string }{
 		{"", "empty unit"},
-		{"kj", `unknown unit symbol "kj"`},
-		{"kj/mol", `unknown unit symbol "kj"`},
-		{"J/mole", `unknown unit symbol "mole"`},
-		{"F", `unknown unit symbol "F"`},
+		{"kj", `unknown unit "kj"`},
+		{"kj/mol", `unknown unit symbol "kj" in "kj/mol"`},
+		{"J/mole", `unknown unit symbol "mole" in "J/mole"`},
+		{"F", `unknown unit "F"`},
 		{"J mol", "white space"},
 		{" J", "white space"},
 		{"J/", "expected a unit symbol at the end"},
@@ -228,5 +230,31 @@ func TestRatePrefactorDim(t *testing.T) {
 	}
 	if RatePrefactorDim(1000) != RatePrefactorDim(42) {
 		t.Error("orders beyond 42 are not clamped")
+	}
+}
+
+// TestUnknownSymbolError: the message names the unit once, and the error
+// carries the symbol and where it stands.
+func TestUnknownSymbolError(t *testing.T) {
+	for _, tc := range []struct {
+		in, msg, sym string
+		off          int
+	}{
+		{"C", `unknown unit "C"`, "C", 0},
+		{"kj/mol", `unknown unit symbol "kj" in "kj/mol"`, "kj", 0},
+		{"J/(mol*Kelvin)", `unknown unit symbol "Kelvin" in "J/(mol*Kelvin)"`, "Kelvin", 7},
+	} {
+		_, err := ParseUnit(tc.in)
+		var e *UnknownSymbolError
+		if !errors.As(err, &e) {
+			t.Errorf("ParseUnit(%q) = %v, not an UnknownSymbolError", tc.in, err)
+			continue
+		}
+		if err.Error() != tc.msg || e.Symbol != tc.sym || e.Offset != tc.off || e.Unit != tc.in {
+			t.Errorf("ParseUnit(%q): %q %+v; want %q, %q at %d", tc.in, err, e, tc.msg, tc.sym, tc.off)
+		}
+	}
+	if got := UnitSymbols(); len(got) != len(unitSymbols) || !sort.StringsAreSorted(got) {
+		t.Errorf("UnitSymbols = %v", got)
 	}
 }

@@ -7,6 +7,7 @@ import (
 
 	"hess/equilibrium"
 	"hess/network"
+	"hess/suggest"
 )
 
 func runApproach(args []string, stdout, stderr io.Writer) int {
@@ -77,7 +78,15 @@ func approachDocument(root, name string, stderr io.Writer) (*approachDoc, int) {
 	if name != "" {
 		m := net.LookupMixture(name)
 		if m == nil {
-			fmt.Fprintf(stderr, "hess approach: %s has no mixture named %q\n", displayName(root), name)
+			var known []string
+			for _, m := range net.Mixtures {
+				known = append(known, m.Name)
+			}
+			hint := suggest.Phrase(name, known)
+			if hint != "" {
+				hint = "; " + hint
+			}
+			fmt.Fprintf(stderr, "hess approach: %s has no mixture named %q%s\n", displayName(root), name, hint)
 			return nil, exitTrouble
 		}
 		mixtures = []*network.Mixture{m}

@@ -15,7 +15,9 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] FILE...",
 		"Compile each root file with everything it includes, run every check, and\n"+
 			"report the diagnostics. Exit status: 0 when there are no errors (and, with\n"+
-			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.", stderr)
+			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.\n"+
+			"The file \"-\" is standard input, named <stdin> in diagnostics; its includes\n"+
+			"are relative to the working folder.", stderr)
 	format := &choice{value: "text", allowed: []string{"text", "json", "sarif"}}
 	color := &choice{value: "auto", allowed: []string{"auto", "always", "never"}}
 	fs.Var(format, "format", "report format: text, json or sarif")
@@ -30,8 +32,8 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	rep, trouble := compileAll(files, stderr)
-	if trouble {
+	rep, trouble := compileAll(files, os.Stdin, stderr)
+	if trouble && format.value != "sarif" {
 		return exitTrouble
 	}
 	var err error
@@ -39,12 +41,15 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	case "json":
 		err = renderJSON(stdout, rep)
 	case "sarif":
-		err = renderSARIF(stdout, rep, network.Checks(), version)
+		err = renderSARIF(stdout, rep, network.Checks(), toolVersion())
 	default:
 		err = renderText(stdout, rep, useColor(color.value, stdout))
 	}
 	if err != nil {
 		fmt.Fprintf(stderr, "hess check: %v\n", err)
+		return exitTrouble
+	}
+	if trouble {
 		return exitTrouble
 	}
 	return findingsStatus(rep.Diagnostics, *strict)
@@ -58,23 +63,46 @@ func findingsStatus(ds lang.Diagnostics, strict bool) int {
 	return exitOK
 }
 
+// stdinName is the display name of standard input, read for the file
+// argument "-". Its includes resolve against the working folder.
+const stdinName = "<stdin>"
+
 // compileAll loads each root file and merges the results into one report
-// with display file names. It reports trouble (and says why on stderr) when
-// a root file cannot be read.
-func compileAll(roots []string, stderr io.Writer) (*report, bool) {
+// with display file names. The root "-" is standard input (read from
+// stdin). A root that cannot be read is said on stderr and recorded in the
+// report's Trouble, and compileAll reports trouble; the other roots are
+// still compiled.
+func compileAll(roots []string, stdin io.Reader, stderr io.Writer) (*report, bool) {
 	rep := &report{}
 	sources := map[string][]byte{}
 	seenFile := map[string]bool{}
 	seenDiag := map[string]bool{}
+	fail := func(root, msg string) {
+		fmt.Fprintf(stderr, "hess: %s\n", msg)
+		rep.Trouble = append(rep.Trouble, inputTrouble{File: root, Message: msg})
+	}
+	readStdin := false
 	for _, root := range roots {
-		if _, err := os.Stat(root); err != nil {
-			fmt.Fprintf(stderr, "hess: cannot read %s: %v\n", root, unwrapPathError(err))
-			return nil, true
+		var src network.Source = network.Disk{}
+		if root == "-" {
+			if readStdin {
+				continue
+			}
+			readStdin = true
+			var ok bool
+			root, src, ok = stdinSource(stdin)
+			if !ok {
+				fail("", "cannot read standard input")
+				continue
+			}
+		} else if _, err := os.Stat(root); err != nil {
+			fail(displayName(root), fmt.Sprintf("cannot read %s: %v", displayName(root), unwrapPathError(err)))
+			continue
 		}
-		net := network.Load(root, network.Disk{})
+		net := network.Load(root, src)
 		if len(net.Files) == 0 {
-			fmt.Fprintf(stderr, "hess: %s\n", unreadableRoot(root, net))
-			return nil, true
+			fail(displayName(root), unreadableRoot(displayName(root), net))
+			continue
 		}
 		for _, f := range net.Files {
 			name := displayName(f.Path)
@@ -96,7 +124,7 @@ func compileAll(roots []string, stderr io.Writer) (*report, bool) {
 	}
 	rep.Diagnostics.Sort()
 	rep.Source = func(file string) []byte { return sources[file] }
-	return rep, false
+	return rep, len(rep.Trouble) > 0
 }
 
 // unreadableRoot says why a root file gave no network: the loader's
@@ -109,6 +137,28 @@ func unreadableRoot(root string, net *network.Network) string {
 	}
 	return "cannot read " + root
 }
+
+// stdinSource reads standard input whole (up to maxStdin bytes) and serves
+// it as the file "<stdin>" in the working folder, so that its includes
+// resolve against that folder and its diagnostics name "<stdin>".
+func stdinSource(stdin io.Reader) (string, network.Source, bool) {
+	if stdin == nil {
+		return "", nil, false
+	}
+	b, err := io.ReadAll(io.LimitReader(stdin, maxStdin+1))
+	if err != nil || len(b) > maxStdin {
+		return "", nil, false
+	}
+	wd, err := os.Getwd()
+	if err != nil {
+		return "", nil, false
+	}
+	path := filepath.Join(wd, stdinName)
+	return path, network.Overlay{Files: map[string][]byte{path: b}, Base: network.Disk{}}, true
+}
+
+// maxStdin bounds what "-" reads from standard input.
+const maxStdin = 1 << 30
 
 func unwrapPathError(err error) error {
 	if pe, ok := err.(*os.PathError); ok {

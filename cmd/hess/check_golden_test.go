@@ -26,7 +26,7 @@ func TestCheckGolden(t *testing.T) {
 		base := strings.TrimSuffix(f, ".hess")
 		t.Run(filepath.Base(f), func(t *testing.T) {
 			var stderr bytes.Buffer
-			rep, trouble := compileAll([]string{filepath.ToSlash(f)}, &stderr)
+			rep, trouble := compileAll([]string{filepath.ToSlash(f)}, nil, &stderr)
 			if trouble {
 				t.Fatalf("compile: %s", stderr.String())
 			}

@@ -7,6 +7,7 @@ import (
 	"unicode/utf8"
 
 	"hess/network"
+	"hess/suggest"
 )
 
 func runExplain(args []string, stdout, stderr io.Writer) int {
@@ -26,7 +27,15 @@ func runExplain(args []string, stdout, stderr io.Writer) int {
 	case 1:
 		c := network.LookupCheck(codes[0])
 		if c == nil {
-			fmt.Fprintf(stderr, "hess explain: no check named %q ('hess explain' lists them)\n", codes[0])
+			var names []string
+			for _, c := range network.Checks() {
+				names = append(names, c.Name)
+			}
+			hint := suggest.Phrase(codes[0], names)
+			if hint != "" {
+				hint = "; " + hint
+			}
+			fmt.Fprintf(stderr, "hess explain: no check named %q%s ('hess explain' lists them)\n", codes[0], hint)
 			return exitTrouble
 		}
 		return writeOut("explain", stdout, stderr, fmt.Sprintf("%s (%s by default): %s\n\n%s\n", c.Name, c.Severity, c.Title(), wrap(c.Explanation(), 78)))

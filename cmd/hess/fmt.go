@@ -13,7 +13,9 @@ func runFmt(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("fmt", "fmt [-w] [--check] FILE...",
 		"Print each file in the canonical layout. Every comment is kept, and\n"+
 			"formatting a formatted file changes nothing. A file with syntax errors is\n"+
-			"left alone and its errors reported (exit status 1).", stderr)
+			"left alone and its errors reported (exit status 1). The file \"-\" is\n"+
+			"standard input, printed formatted to standard output (for editors that\n"+
+			"format through a filter).", stderr)
 	write := fs.Bool("w", false, "rewrite the files in place (atomically) instead of printing them")
 	check := fs.Bool("check", false, "print nothing but the names of files that would change; exit 1 if any")
 	files, status, ok := parseFlags(fs, args, stdout)
@@ -27,16 +29,34 @@ func runFmt(args []string, stdout, stderr io.Writer) int {
 	}
 	result := exitOK
 	for _, path := range files {
-		src, err := os.ReadFile(path)
+		name := displayName(path)
+		var src []byte
+		var err error
+		if path == "-" {
+			if *write {
+				fmt.Fprintln(stderr, "hess fmt: -w cannot rewrite standard input")
+				return exitTrouble
+			}
+			name = stdinName
+			src, err = io.ReadAll(io.LimitReader(os.Stdin, maxStdin+1))
+			if err == nil && len(src) > maxStdin {
+				err = fmt.Errorf("more than %d bytes", maxStdin)
+			}
+		} else {
+			src, err = os.ReadFile(path)
+		}
 		if err != nil {
-			fmt.Fprintf(stderr, "hess fmt: cannot read %s: %v\n", path, unwrapPathError(err))
+			fmt.Fprintf(stderr, "hess fmt: cannot read %s: %v\n", name, unwrapPathError(err))
 			return exitTrouble
 		}
-		out, diags := lang.FormatSource(path, src)
+		out, diags := lang.FormatSource(name, src)
 		if out == nil {
-			rep := &report{Files: []string{displayName(path)}, Source: func(string) []byte { return src }}
+			rep := &report{Files: []string{name}, Source: func(string) []byte { return src }}
 			for _, d := range diags {
-				rep.Diagnostics = append(rep.Diagnostics, displayDiagnostic(d))
+				if path != "-" {
+					d = displayDiagnostic(d)
+				}
+				rep.Diagnostics = append(rep.Diagnostics, d)
 			}
 			rep.Diagnostics.Sort()
 			if err := renderText(stderr, rep, useColor("auto", stderr)); err != nil {
@@ -49,7 +69,7 @@ func runFmt(args []string, stdout, stderr io.Writer) int {
 		switch {
 		case *check:
 			if changed {
-				fmt.Fprintln(stdout, displayName(path))
+				fmt.Fprintln(stdout, name)
 				result = exitFindings
 			}
 		case *write:

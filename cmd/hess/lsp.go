@@ -23,5 +23,5 @@ func runLSP(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "hess lsp: takes no arguments")
 		return exitTrouble
 	}
-	return lsp.Serve(context.Background(), os.Stdin, stdout, lsp.Options{Version: version, Log: stderr})
+	return lsp.Serve(context.Background(), os.Stdin, stdout, lsp.Options{Version: toolVersion(), Log: stderr})
 }

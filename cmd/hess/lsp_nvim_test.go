@@ -48,42 +48,14 @@ vim.cmd('qa!')
 // opens a copy of the hydrogen plant example with an imbalance written
 // after a non-ASCII arrow, receives the diagnostic, and hovers a species.
 func TestNeovimClient(t *testing.T) {
-	nvim, err := exec.LookPath("nvim")
-	if err != nil {
-		if os.Getenv("HESS_REQUIRE_EXTERNAL") == "1" {
-			t.Fatalf("nvim is not installed (apt-get install -y neovim), and HESS_REQUIRE_EXTERNAL=1 requires it")
-		}
-		t.Skip("nvim is not installed (apt-get install -y neovim): skipping the editor test")
-	}
+	nvim := requireTool(t, "nvim", "apt-get install -y neovim")
 	bin := hessBinary(t)
 	dir := t.TempDir()
-	example := filepath.Join("..", "..", "examples", "hydrogen-plant")
-	gases, err := os.ReadFile(filepath.Join(example, "gases.hess"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	reformer, err := os.ReadFile(filepath.Join(example, "reformer.hess"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	const good = "reaction reform: CH4(g) + H2O(g) <-> CO(g) + 3 H2(g)"
-	const bad = "reaction reform: CH4(g) + H2O(g) ⇌ CO(g) + 2 H2(g)"
-	if !strings.Contains(string(reformer), good) {
-		t.Fatalf("the example no longer has the line %q", good)
-	}
-	broken := strings.Replace(string(reformer), good, bad, 1)
-	if err := os.WriteFile(filepath.Join(dir, "gases.hess"), gases, 0o644); err != nil {
-		t.Fatal(err)
-	}
-	file := filepath.Join(dir, "reformer.hess")
-	if err := os.WriteFile(file, []byte(broken), 0o644); err != nil {
-		t.Fatal(err)
-	}
+	file, bad, line := brokenReformer(t, dir)
 	script := filepath.Join(dir, "test.lua")
 	if err := os.WriteFile(script, []byte(nvimScript), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	line := strings.Count(broken[:strings.Index(broken, bad)], "\n")
 	hoverAt := strings.Index(bad, "CO(g)") + 1
 	hoverChar := len(utf16.Encode([]rune(bad[:hoverAt])))
 
@@ -141,18 +113,73 @@ func TestNeovimClient(t *testing.T) {
 		Value string `json:"value"`
 	}
 	readJSON(t, filepath.Join(dir, "hover.json"), &hover, out)
-	// The example's data may be revised: take the expected label, enthalpy
-	// and source from the compiler.
-	co := network.Load(file, network.Disk{}).LookupSpecies("CO(g)")
-	if co == nil || co.Hf == nil {
-		t.Fatalf("the example has no CO(g) with hf")
-	}
-	for _, want := range []string{"`CO(g)`", co.Label, "formula CO", "molar mass 28.01 g/mol",
-		"hf " + strconv.FormatFloat(co.Hf.V/1000, 'g', 7, 64) + " kJ/mol", "source: " + co.Source} {
+	for _, want := range append(coHoverWants(t, file), "`CO(g)`") {
 		if !strings.Contains(hover.Value, want) {
 			t.Errorf("hover lacks %q:\n%s", want, hover.Value)
 		}
 	}
+}
+
+// The hydrogen plant's reforming step, as the example writes it and as the
+// editor tests break it: a non-ASCII arrow and a wrong H2 coefficient.
+const (
+	reformGood = "reaction reform: CH4(g) + H2O(g) <-> CO(g) + 3 H2(g)"
+	reformBad  = "reaction reform: CH4(g) + H2O(g) ⇌ CO(g) + 2 H2(g)"
+)
+
+// brokenReformer copies the hydrogen plant example into dir with the
+// reforming step broken (reformBad), and returns the reformer file, the
+// broken line and its 0-based line number.
+func brokenReformer(t *testing.T, dir string) (file, bad string, line int) {
+	t.Helper()
+	example := filepath.Join("..", "..", "examples", "hydrogen-plant")
+	gases, err := os.ReadFile(filepath.Join(example, "gases.hess"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	reformer, err := os.ReadFile(filepath.Join(example, "reformer.hess"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(reformer), reformGood) {
+		t.Fatalf("the example no longer has the line %q", reformGood)
+	}
+	broken := strings.Replace(string(reformer), reformGood, reformBad, 1)
+	if err := os.WriteFile(filepath.Join(dir, "gases.hess"), gases, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	file = filepath.Join(dir, "reformer.hess")
+	if err := os.WriteFile(file, []byte(broken), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return file, reformBad, strings.Count(broken[:strings.Index(broken, reformBad)], "\n")
+}
+
+// coHoverWants is what a hover on CO(g) in the example must show: the
+// label, formula, molar mass, enthalpy and source, taken from the compiler
+// so that revised example data do not break the editor tests.
+func coHoverWants(t *testing.T, file string) []string {
+	t.Helper()
+	co := network.Load(file, network.Disk{}).LookupSpecies("CO(g)")
+	if co == nil || co.Hf == nil {
+		t.Fatalf("the example has no CO(g) with hf")
+	}
+	return []string{co.Label, "formula CO", "molar mass 28.01 g/mol",
+		"hf " + strconv.FormatFloat(co.Hf.V/1000, 'g', 7, 64) + " kJ/mol", "source: " + co.Source}
+}
+
+// requireTool finds an outside program for an editor test: the test skips
+// without it, and fails when HESS_REQUIRE_EXTERNAL=1.
+func requireTool(t *testing.T, name, install string) string {
+	t.Helper()
+	path, err := exec.LookPath(name)
+	if err != nil {
+		if os.Getenv("HESS_REQUIRE_EXTERNAL") == "1" {
+			t.Fatalf("%s is not installed (%s), and HESS_REQUIRE_EXTERNAL=1 requires it", name, install)
+		}
+		t.Skipf("%s is not installed (%s): skipping the editor test", name, install)
+	}
+	return path
 }
 
 func readJSON(t *testing.T, path string, v any, nvimOutput []byte) {
@@ -163,5 +190,78 @@ func readJSON(t *testing.T, path string, v any, nvimOutput []byte) {
 	}
 	if err := json.Unmarshal(data, v); err != nil {
 		t.Fatalf("%s: %v: %s", path, err, data)
+	}
+}
+
+// nvimRecipeScript opens the hydrogen plant's reformer, then its included
+// gases file (as going to a definition there would), and writes how many
+// servers run and the codes of the gases file's diagnostics.
+const nvimRecipeScript = `
+local function write(name, value)
+  local f = assert(io.open(vim.env.HESS_OUT .. '/' .. name, 'w'))
+  f:write(vim.json.encode(value))
+  f:close()
+end
+vim.cmd('edit reformer.hess')
+vim.wait(20000, function() return #vim.diagnostic.get(0) > 0 end, 50)
+vim.cmd('edit gases.hess')
+local buf = vim.api.nvim_get_current_buf()
+vim.wait(5000, function() return #vim.lsp.buf_get_clients(buf) > 0 end, 50)
+-- Give a second server, if one was started, the time to report.
+vim.wait(3000, function() return #vim.lsp.get_active_clients() > 1 or #vim.diagnostic.get(buf) > 0 end, 50)
+local codes = {}
+for _, d in ipairs(vim.diagnostic.get(buf)) do table.insert(codes, d.code or '') end
+write('recipe.json', {servers = #vim.lsp.get_active_clients(), attached = #vim.lsp.buf_get_clients(buf), codes = codes})
+vim.cmd('qa!')
+`
+
+// TestNeovimReadmeRecipe runs the README's Neovim 0.7 set-up as the
+// editor's init file: opening an included file after its root reuses the
+// one server, which checks the library through the root (no false
+// unused-species).
+func TestNeovimReadmeRecipe(t *testing.T) {
+	nvim := requireTool(t, "nvim", "apt-get install -y neovim")
+	bin := hessBinary(t)
+	block := readmeBlock(t, "**Neovim 0.7**", "lua")
+	dir := t.TempDir()
+	brokenReformer(t, dir)
+	binDir := filepath.Join(dir, "bin")
+	if err := os.Mkdir(binDir, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.Symlink(bin, filepath.Join(binDir, "hess")); err != nil {
+		t.Fatal(err)
+	}
+	for name, text := range map[string]string{"init.lua": block, "test.lua": nvimRecipeScript} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	ctx, cancel := context.WithTimeout(context.Background(), 60*time.Second)
+	defer cancel()
+	cmd := exec.CommandContext(ctx, nvim, "--headless", "-u", "init.lua", "-c", "luafile test.lua")
+	cmd.Dir = dir
+	cmd.Env = append(os.Environ(),
+		"PATH="+binDir+string(os.PathListSeparator)+os.Getenv("PATH"), "HESS_OUT="+dir,
+		"XDG_CONFIG_HOME="+dir, "XDG_DATA_HOME="+dir, "XDG_STATE_HOME="+dir, "XDG_CACHE_HOME="+dir,
+	)
+	out, err := cmd.CombinedOutput()
+	if err != nil {
+		t.Fatalf("nvim: %v\n%s", err, out)
+	}
+	var got struct {
+		Servers  int      `json:"servers"`
+		Attached int      `json:"attached"`
+		Codes    []string `json:"codes"`
+	}
+	readJSON(t, filepath.Join(dir, "recipe.json"), &got, out)
+	if got.Servers != 1 || got.Attached != 1 {
+		t.Errorf("%d servers running, %d attached to the included file; want one server for both", got.Servers, got.Attached)
+	}
+	for _, c := range got.Codes {
+		if c == "unused-species" {
+			t.Errorf("the included file was checked on its own: %v", got.Codes)
+			break
+		}
 	}
 }

@@ -8,8 +8,11 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"regexp"
 	"runtime/debug"
 	"strings"
+
+	"hess/suggest"
 )
 
 // Exit statuses (CLI.md).
@@ -66,17 +69,47 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	switch args[0] {
 	case "help", "-h", "-help", "--help":
-		usage(stdout)
-		return exitOK
-	}
-	for _, c := range commands() {
-		if c.name == args[0] {
-			return c.run(args[1:], stdout, stderr)
+		if len(args) == 1 {
+			usage(stdout)
+			return exitOK
 		}
+		if len(args) > 2 {
+			fmt.Fprintln(stderr, "hess help: takes at most one command")
+			return exitTrouble
+		}
+		if args[1] == "help" {
+			usage(stdout)
+			return exitOK
+		}
+		if c, ok := lookupCommand(args[1], stderr); ok {
+			return c.run([]string{"--help"}, stdout, stderr)
+		}
+		return exitTrouble
+	case "--version", "-version":
+		return runVersion(args[1:], stdout, stderr)
 	}
-	fmt.Fprintf(stderr, "hess: unknown command %q\n", args[0])
-	usage(stderr)
+	if c, ok := lookupCommand(args[0], stderr); ok {
+		return c.run(args[1:], stdout, stderr)
+	}
 	return exitTrouble
+}
+
+// lookupCommand finds a subcommand by name; for an unknown name it says so
+// on stderr, with the nearest command's name when one is close.
+func lookupCommand(name string, stderr io.Writer) (command, bool) {
+	var names []string
+	for _, c := range commands() {
+		if c.name == name {
+			return c, true
+		}
+		names = append(names, c.name)
+	}
+	msg := fmt.Sprintf("hess: unknown command %q", name)
+	if hint := suggest.Phrase(name, names); hint != "" {
+		msg += "; " + hint
+	}
+	fmt.Fprintf(stderr, "%s\nRun 'hess help' for the list of commands.\n", msg)
+	return command{}, false
 }
 
 func usage(w io.Writer) {
@@ -88,7 +121,8 @@ func usage(w io.Writer) {
 		fmt.Fprintf(w, "  %-8s %s\n", c.name, c.summary)
 	}
 	fmt.Fprintln(w)
-	fmt.Fprintln(w, "Run 'hess COMMAND --help' for a command's flags.")
+	fmt.Fprintln(w, "Run 'hess help COMMAND' (or 'hess COMMAND --help') for a command's flags,")
+	fmt.Fprintln(w, "and 'hess --version' for the version.")
 }
 
 // newFlags makes a flag set for a subcommand whose --help prints the given
@@ -103,10 +137,35 @@ func newFlags(name, synopsis, description string, stderr io.Writer) *flag.FlagSe
 		fs.VisitAll(func(*flag.Flag) { hasFlags = true })
 		if hasFlags {
 			fmt.Fprintln(out, "\nflags:")
-			fs.PrintDefaults()
+			printFlags(out, fs, synopsis)
 		}
 	}
 	return fs
+}
+
+// printFlags lists a flag set's flags as the synopses write them: a
+// one-letter flag with one dash (-w), every other with two (--format), its
+// value's name, its description, and a default that is not the zero value.
+// The flag package accepts both spellings; only its own listing, which
+// prints one dash throughout, is replaced.
+func printFlags(w io.Writer, fs *flag.FlagSet, synopsis string) {
+	fs.VisitAll(func(f *flag.Flag) {
+		arg, desc := flag.UnquoteUsage(f)
+		head := "  " + dashed(f.Name)
+		if arg != "" {
+			head += " " + flagValueName(synopsis, dashed(f.Name))
+		}
+		line := head
+		if len(head) <= 20 {
+			line += strings.Repeat(" ", 22-len(head)) + desc
+		} else {
+			line += "\n" + strings.Repeat(" ", 22) + desc
+		}
+		if d := f.DefValue; d != "" && d != "false" && d != "0" && d != "[]" {
+			line += fmt.Sprintf(" (default %s)", d)
+		}
+		fmt.Fprintln(w, line)
+	})
 }
 
 // parseFlags parses flags that may stand before or after the file
@@ -118,14 +177,21 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 	// print it here instead, once, on the right stream.
 	usage := fs.Usage
 	fs.Usage = func() {}
-	defer func() { fs.Usage = usage }()
+	out := fs.Output()
+	defer func() { fs.Usage = usage; fs.SetOutput(out) }()
 	for {
-		if err := fs.Parse(args); err != nil {
+		// The flag package words its errors with one dash and prints them
+		// itself; say them here instead, as the help spells the flags.
+		fs.SetOutput(io.Discard)
+		err := fs.Parse(args)
+		fs.SetOutput(out)
+		if err != nil {
 			if errors.Is(err, flag.ErrHelp) {
 				fs.SetOutput(stdout)
 				usage()
 				return nil, exitOK, false
 			}
+			fmt.Fprintf(out, "hess %s: %s\n\n", fs.Name(), flagErrorText(fs, err))
 			usage()
 			return nil, exitTrouble, false
 		}
@@ -139,6 +205,55 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 		files = append(files, rest[0])
 		args = rest[1:]
 	}
+}
+
+// flagSpelling matches a flag name as the flag package writes it in its
+// errors: one dash, after "flag ", "for " or ": ".
+var flagSpelling = regexp.MustCompile(`(^|flag |for |: )-([A-Za-z][\w-]*)`)
+
+// flagErrorText rewords an error of the flag package: each flag spelt as
+// the help spells it (--format, -o), a boolean's value explained, and an
+// unknown flag's nearest known name suggested.
+func flagErrorText(fs *flag.FlagSet, err error) string {
+	msg := err.Error()
+	const undefined = "flag provided but not defined: -"
+	if name, ok := strings.CutPrefix(msg, undefined); ok {
+		var names []string
+		fs.VisitAll(func(f *flag.Flag) { names = append(names, f.Name) })
+		msg = "unknown flag " + dashed(name)
+		if c, ok := suggest.Closest(name, names); ok {
+			msg += "; did you mean " + dashed(c) + "?"
+		}
+		return msg
+	}
+	msg = strings.Replace(msg, ": parse error", ": takes true or false", 1)
+	return flagSpelling.ReplaceAllStringFunc(msg, func(m string) string {
+		sub := flagSpelling.FindStringSubmatch(m)
+		return sub[1] + dashed(sub[2])
+	})
+}
+
+// dashed is a flag's name as the help writes it: -o, --format.
+func dashed(name string) string {
+	if len([]rune(name)) == 1 {
+		return "-" + name
+	}
+	return "--" + name
+}
+
+// flagValueName is the name the synopsis gives a flag's value ("LIST" in
+// "[--temperatures LIST]"), or VALUE when it gives none.
+func flagValueName(synopsis, flagName string) string {
+	fields := strings.Fields(synopsis)
+	for i, f := range fields {
+		if strings.TrimLeft(f, "[") == flagName && i+1 < len(fields) {
+			v := strings.TrimRight(fields[i+1], "].")
+			if v != "" && !strings.HasPrefix(v, "-") && !strings.HasPrefix(v, "[") {
+				return v
+			}
+		}
+	}
+	return "VALUE"
 }
 
 // choice is a flag that accepts one of a fixed set of words.

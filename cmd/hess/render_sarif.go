@@ -34,9 +34,23 @@ type sarifLog struct {
 type sarifRun struct {
 	Tool               sarifTool                        `json:"tool"`
 	OriginalURIBaseIDs map[string]sarifArtifactLocation `json:"originalUriBaseIds"`
+	Invocations        []sarifInvocation                `json:"invocations,omitempty"`
 	Artifacts          []sarifArtifact                  `json:"artifacts"`
 	ColumnKind         string                           `json:"columnKind"`
 	Results            []sarifResult                    `json:"results"`
+}
+
+// sarifInvocation records how the run went: whether it finished, and a
+// notification for each input it could not read.
+type sarifInvocation struct {
+	ExecutionSuccessful        bool                `json:"executionSuccessful"`
+	ToolExecutionNotifications []sarifNotification `json:"toolExecutionNotifications,omitempty"`
+}
+
+type sarifNotification struct {
+	Level     string          `json:"level"`
+	Message   sarifMessage    `json:"message"`
+	Locations []sarifLocation `json:"locations,omitempty"`
 }
 
 type sarifTool struct {
@@ -53,6 +67,7 @@ type sarifRule struct {
 	ID                   string             `json:"id"`
 	ShortDescription     *sarifMessage      `json:"shortDescription,omitempty"`
 	FullDescription      *sarifMessage      `json:"fullDescription,omitempty"`
+	Help                 *sarifHelp         `json:"help,omitempty"`
 	DefaultConfiguration sarifConfiguration `json:"defaultConfiguration"`
 }
 
@@ -62,6 +77,14 @@ type sarifConfiguration struct {
 
 type sarifMessage struct {
 	Text string `json:"text"`
+}
+
+// sarifHelp is a rule's help in plain text and in Markdown. Rules carry no
+// helpUri: there is no page to point at, and `hess explain CODE` prints the
+// same paragraph.
+type sarifHelp struct {
+	Text     string `json:"text"`
+	Markdown string `json:"markdown,omitempty"`
 }
 
 type sarifArtifact struct {
@@ -107,7 +130,9 @@ type sarifRegion struct {
 // renderSARIF writes the report as a SARIF 2.1.0 log with one run: every
 // check in checks becomes a rule, in order, and every diagnostic a result.
 // Relative file names resolve against the working folder, recorded as the
-// SRCROOT base. A diagnostic whose code is not among the checks still
+// SRCROOT base; so do files outside it, with "../" segments. A root file
+// that could not be read (r.Trouble) becomes a tool execution notification
+// of an unsuccessful invocation. A diagnostic whose code is not among the checks still
 // becomes a result, with its ruleId but no ruleIndex; one without a file
 // has no location.
 func renderSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion string) error {
@@ -115,14 +140,17 @@ func renderSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion st
 	if err != nil {
 		return fmt.Errorf("finding the working folder for SARIF: %w", err)
 	}
-	return writeSARIF(w, r, checks, toolVersion, folderURI(wd))
+	return writeSARIF(w, r, checks, toolVersion, wd)
 }
 
-// writeSARIF is renderSARIF with the SRCROOT base URI given.
-func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, rootURI string) error {
+// writeSARIF is renderSARIF with the SRCROOT folder given (an absolute
+// path).
+func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, root string) error {
 	if r == nil {
 		r = &report{}
 	}
+	rootURI := folderURI(root)
+	artifactLocation := func(file string) sarifArtifactLocation { return artifactLocationIn(root, file) }
 	run := sarifRun{
 		Tool: sarifTool{Driver: sarifDriver{
 			Name:    "hess",
@@ -152,8 +180,9 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 			rule.ShortDescription = &sarifMessage{Text: t}
 		}
 		if e := c.Explanation(); e != "" {
-			rule.FullDescription = &sarifMessage{Text: e}
+			rule.FullDescription = &sarifMessage{Text: clipSentences(e, maxDescription)}
 		}
+		rule.Help = sarifRuleHelp(c)
 		run.Tool.Driver.Rules = append(run.Tool.Driver.Rules, rule)
 	}
 
@@ -209,8 +238,71 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 		run.Results = append(run.Results, res)
 	}
 
+	run.Invocations = []sarifInvocation{{ExecutionSuccessful: len(r.Trouble) == 0}}
+	for _, tr := range r.Trouble {
+		n := sarifNotification{Level: "error", Message: sarifMessage{Text: tr.Message}}
+		if tr.File != "" {
+			n.Locations = []sarifLocation{{PhysicalLocation: &sarifPhysicalLocation{ArtifactLocation: artifactLocation(tr.File)}}}
+		}
+		run.Invocations[0].ToolExecutionNotifications = append(run.Invocations[0].ToolExecutionNotifications, n)
+	}
+
 	doc := sarifLog{Schema: sarifSchema, Version: sarifVersion, Runs: []sarifRun{run}}
 	return writeIndentedJSON(w, doc, "SARIF log")
+}
+
+// maxDescription is the longest rule description code-scanning services
+// take; the whole paragraph is always in the rule's help.
+const maxDescription = 1024
+
+// clipSentences shortens text to at most max bytes, ending after the last
+// whole sentence that fits (or at a word, with an ellipsis, when not even
+// one sentence fits).
+func clipSentences(text string, max int) string {
+	if len(text) <= max {
+		return text
+	}
+	cut := text[:max]
+	if i := strings.LastIndex(cut, ". "); i > 0 {
+		return cut[:i+1]
+	}
+	cut = text[:max-len("…")]
+	if i := strings.LastIndexByte(cut, ' '); i > 0 {
+		cut = cut[:i]
+	}
+	return strings.ToValidUTF8(cut, "") + "…"
+}
+
+// sarifRuleHelp is a check's help: its title and the paragraph `hess
+// explain` prints, as text and as Markdown; nil for a check with no doc.
+func sarifRuleHelp(c *network.Check) *sarifHelp {
+	title, para := c.Title(), c.Explanation()
+	if title == "" && para == "" {
+		return nil
+	}
+	text := strings.TrimSpace(title + "\n\n" + para)
+	md := "**" + markdownEscape(c.Name) + "**"
+	if title != "" {
+		md += ": " + markdownEscape(title)
+	}
+	if para != "" {
+		md += "\n\n" + markdownEscape(para)
+	}
+	md += "\n\nRun `hess explain " + c.Name + "` for this text in a terminal."
+	return &sarifHelp{Text: text, Markdown: md}
+}
+
+// markdownEscape backslash-escapes the characters that Markdown would read
+// as emphasis, code, links or HTML.
+func markdownEscape(s string) string {
+	var b strings.Builder
+	for _, r := range s {
+		if strings.ContainsRune("\\`*_[]<>#|", r) {
+			b.WriteByte('\\')
+		}
+		b.WriteRune(r)
+	}
+	return b.String()
 }
 
 // sarifLevel maps a severity to a SARIF level; off (and an invalid
@@ -275,11 +367,17 @@ func lineHash(d lang.Diagnostic, src *sourceLines) string {
 	return hex.EncodeToString(h.Sum(nil)[:8])
 }
 
-// artifactLocation is where SARIF finds a file: a relative name becomes a
-// URI reference against SRCROOT, an absolute one a file URI.
-func artifactLocation(file string) sarifArtifactLocation {
+// artifactLocationIn is where SARIF finds a file: a relative name becomes
+// a URI reference against SRCROOT (the folder root), and so does an
+// absolute one outside root where a relative path reaches it (with ".."
+// segments); only one on another volume keeps a file URI.
+func artifactLocationIn(root, file string) sarifArtifactLocation {
 	if filepath.IsAbs(file) {
-		return sarifArtifactLocation{URI: fileURI(file)}
+		rel, err := filepath.Rel(root, file)
+		if err != nil || filepath.IsAbs(rel) || filepath.VolumeName(rel) != "" {
+			return sarifArtifactLocation{URI: fileURI(file)}
+		}
+		file = rel
 	}
 	return sarifArtifactLocation{URI: escapeURIPath(filepath.ToSlash(file)), URIBaseID: sarifRoot}
 }

@@ -13,7 +13,12 @@ import (
 	"hess/network"
 )
 
-const testRootURI = "file:///work/project/"
+// testRoot is the SRCROOT folder of the SARIF tests, and testRootURI its
+// URI.
+const (
+	testRoot    = "/work/project"
+	testRootURI = "file:///work/project/"
+)
 
 // Sources of the sample report. plant.hess has a non-ASCII line, a line
 // starting with a tab, a reaction spread over two lines and two identical
@@ -168,7 +173,7 @@ func TestRenderJSONGolden(t *testing.T) {
 
 func TestRenderSARIFGolden(t *testing.T) {
 	var buf bytes.Buffer
-	if err := writeSARIF(&buf, sampleReport(), sampleChecks(), "0.3.0", testRootURI); err != nil {
+	if err := writeSARIF(&buf, sampleReport(), sampleChecks(), "0.3.0", testRoot); err != nil {
 		t.Fatalf("writeSARIF: %v", err)
 	}
 	checkGolden(t, "render/report.sarif", buf.Bytes())
@@ -413,7 +418,7 @@ func TestRenderJSONEmpty(t *testing.T) {
 func sarifDoc(t *testing.T, r *report) map[string]any {
 	t.Helper()
 	var buf bytes.Buffer
-	if err := writeSARIF(&buf, r, sampleChecks(), "0.3.0", testRootURI); err != nil {
+	if err := writeSARIF(&buf, r, sampleChecks(), "0.3.0", testRoot); err != nil {
 		t.Fatalf("writeSARIF: %v", err)
 	}
 	var doc map[string]any
@@ -584,7 +589,7 @@ func TestSARIFFields(t *testing.T) {
 
 func TestSARIFEmptyArrays(t *testing.T) {
 	var buf bytes.Buffer
-	if err := writeSARIF(&buf, &report{Files: []string{"a.hess"}}, nil, "", testRootURI); err != nil {
+	if err := writeSARIF(&buf, &report{Files: []string{"a.hess"}}, nil, "", testRoot); err != nil {
 		t.Fatalf("writeSARIF: %v", err)
 	}
 	for _, want := range []string{`"results": []`, `"rules": []`} {
@@ -693,9 +698,11 @@ func TestArtifactLocation(t *testing.T) {
 		{"../shared/a b.hess", "../shared/a%20b.hess", "SRCROOT"},
 		{"c:d.hess", "c%3Ad.hess", "SRCROOT"},
 		{"50%#?.hess", "50%25%23%3F.hess", "SRCROOT"},
-		{"/srv/nets/ΔfH.hess", "file:///srv/nets/%CE%94fH.hess", ""},
+		{"/srv/nets/ΔfH.hess", "../../srv/nets/%CE%94fH.hess", "SRCROOT"},
+		{"/work/project/lib/a.hess", "lib/a.hess", "SRCROOT"},
+		{"/work/shared/gases.hess", "../shared/gases.hess", "SRCROOT"},
 	} {
-		got := artifactLocation(tc.file)
+		got := artifactLocationIn(testRoot, tc.file)
 		if got.URI != tc.uri || got.URIBaseID != tc.base {
 			t.Errorf("artifactLocation(%q) = %q, %q; want %q, %q", tc.file, got.URI, got.URIBaseID, tc.uri, tc.base)
 		}
@@ -736,7 +743,7 @@ func TestRenderWriteErrors(t *testing.T) {
 	for name, err := range map[string]error{
 		"text":  renderText(failingWriter{}, r, false),
 		"json":  renderJSON(failingWriter{}, r),
-		"sarif": writeSARIF(failingWriter{}, r, sampleChecks(), "", testRootURI),
+		"sarif": writeSARIF(failingWriter{}, r, sampleChecks(), "", testRoot),
 	} {
 		if !errors.Is(err, errDiskFull) {
 			t.Errorf("%s: error %v does not wrap the write failure", name, err)
@@ -781,7 +788,7 @@ func FuzzRenderText(f *testing.F) {
 		if err := renderJSON(&bytes.Buffer{}, r); err != nil {
 			t.Fatalf("renderJSON: %v", err)
 		}
-		if err := writeSARIF(&bytes.Buffer{}, r, sampleChecks(), "", testRootURI); err != nil {
+		if err := writeSARIF(&bytes.Buffer{}, r, sampleChecks(), "", testRoot); err != nil {
 			t.Fatalf("writeSARIF: %v", err)
 		}
 	})

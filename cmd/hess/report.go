@@ -14,4 +14,14 @@ type report struct {
 	// Source returns the text of a file for snippets; it may be nil, and
 	// may return nil for a file it does not have.
 	Source func(file string) []byte
+	// Trouble lists the inputs that could not be read at all (a missing
+	// root file); the SARIF log records them as notifications.
+	Trouble []inputTrouble
+}
+
+// inputTrouble is one input that could not be read: its display name and
+// what went wrong, in words for the user.
+type inputTrouble struct {
+	File    string
+	Message string
 }

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -10,6 +11,7 @@ import (
 	"hess/equilibrium"
 	"hess/lang"
 	"hess/network"
+	"hess/suggest"
 )
 
 // cautionText is printed in the help of the commands that compute
@@ -173,7 +175,15 @@ func newTableDoc(net *network.Network, root string, temps []float64, names []str
 	for _, name := range names {
 		rx := net.LookupReaction(name)
 		if rx == nil {
-			return nil, fmt.Errorf("%s has no reaction named %q", displayName(root), name)
+			var known []string
+			for _, r := range net.Reactions {
+				known = append(known, r.Name)
+			}
+			msg := fmt.Sprintf("%s has no reaction named %q", displayName(root), name)
+			if hint := suggest.Phrase(name, known); hint != "" {
+				msg += "; " + hint
+			}
+			return nil, errors.New(msg)
 		}
 		if !seen[name] {
 			seen[name] = true
