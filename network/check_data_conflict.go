@@ -38,7 +38,11 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 			temps = append(temps, lk.T)
 		}
 	}
-	rows := n.reactionRows(rx, temps)
+	k := n.ReactionK(rx)
+	rows := make([]TableRow, 0, len(temps))
+	for _, T := range temps {
+		rows = append(rows, k.SpeciesRow(T))
+	}
 	fromSpecies := func(row TableRow) bool {
 		return row.Valid && (row.Basis == BasisSpecies || row.Basis == BasisFormation)
 	}

@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 
+	"hess/chem"
 	"hess/lang"
 	"hess/thermo"
 )
@@ -209,6 +210,8 @@ func thermoIntentWithin(rx *Reaction, seen map[*Reaction]bool) bool {
 func lackReason(sp *Species) string {
 	m := sp.Model()
 	switch {
+	case m != nil && isGibbsOnly(m) && sp.Hf != nil && sp.S == nil:
+		return "has hf and gf but no s, and S° cannot be worked out from them: " + noEntropyReason(sp)
 	case m != nil && isGibbsOnly(m):
 		return "has only gf, which holds at 298.15 K alone"
 	case m != nil:
@@ -303,4 +306,18 @@ func (n *Network) TemperatureDiagnostics(temps []float64) lang.Diagnostics {
 // the network's own findings of that code.
 func IsTemperatureCode(code string) bool {
 	return code == extrapolationCheck.Name || code == missingThermoCheck.Name
+}
+
+// noEntropyReason says why the elements' entropies cannot give a species'
+// S° from its hf and gf.
+func noEntropyReason(sp *Species) string {
+	if sp.Charge != 0 && (sp.Phase == nil || sp.Phase.Convention != Solute) {
+		return "a charged species outside an aqueous phase has no formation reaction from the elements"
+	}
+	for _, ec := range sp.Formula.Elements {
+		if _, ok := chem.LookupReferenceState(ec.Symbol); !ok {
+			return "element " + ec.Symbol + " has no tabulated reference entropy (add s)"
+		}
+	}
+	return "its formula gives no formation reaction"
 }

@@ -114,6 +114,9 @@ type Phase struct {
 type Value struct {
 	V, Sigma float64
 	Span     lang.Span
+	// Stated reports that the uncertainty was written (± or +-), so that a
+	// σ of zero is a statement and not the absence of one.
+	Stated bool
 }
 
 // PolyRange is one Shomate or NASA 7-term range of a species.
@@ -146,6 +149,10 @@ type Species struct {
 	ints  speciesInts  // the formula in small integers
 	model thermo.Model // built once the species is compiled; see Model
 	built bool
+	// derivedS is S° worked out from hf and gf (see DerivedS); p0 the
+	// network's standard pressure, which that derivation uses.
+	derivedS *Value
+	p0       float64
 }
 
 // Term is one species with its exact coefficient on one side of a reaction.

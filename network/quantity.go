@@ -110,7 +110,7 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 			what, kind.name, kind.example, q.Unit.Text, thermo.DimName(u.Dim))
 		return nil, false
 	}
-	out := &Value{Sigma: sigma * u.Scale, Span: q.Span()}
+	out := &Value{Sigma: sigma * u.Scale, Span: q.Span(), Stated: q.Sigma != nil}
 	if difference {
 		out.V = v * u.Scale
 	} else {

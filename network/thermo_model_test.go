@@ -161,8 +161,8 @@ species G(g) {
 		gibbs   bool
 		lackMsg string
 	}{
-		{"A(g)", false, 10, 10000, 0, -10000, false, ""},
-		{"B(g)", false, 10, 10000, 30, -10000 + 30*(400-298.15), false, ""},
+		{"A(g)", false, thermo.ConstTmin, thermo.ConstTmax, 0, -10000, false, ""},
+		{"B(g)", false, thermo.ConstTmin, thermo.ConstTmax, 30, -10000 + 30*(400-298.15), false, ""},
 		{"C(aq)", false, 298.15, 298.15, math.NaN(), math.NaN(), true, "has only gf"},
 		{"D(g)", true, 0, 0, 0, 0, false, "has hf but no s"},
 		{"E(g)", true, 0, 0, 0, 0, false, "has s but no hf"},
