@@ -69,6 +69,10 @@ var checks = []*Check{
 	mixtureIncompleteCheck,
 	mixtureFractionsCheck,
 	notInMixtureCheck,
+	emptyReactionCheck,
+	partialCpCheck,
+	untaggedSpeciesCheck,
+	mixtureRescaledCheck,
 }
 
 var checkByName = func() map[string]*Check {
