@@ -73,6 +73,7 @@ var checks = []*Check{
 	partialCpCheck,
 	untaggedSpeciesCheck,
 	mixtureRescaledCheck,
+	unstatedPressureCheck,
 }
 
 var checkByName = func() map[string]*Check {

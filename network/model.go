@@ -67,11 +67,15 @@ func (n *Network) StandardPressure() float64 {
 
 // Settings are the network's settings in SI units, defaults filled in.
 type Settings struct {
-	Pressure     float64   // standard-state pressure p°, Pa
-	Temperatures []float64 // requested temperatures, K
-	Tolerance    float64   // J/mol
-	Lint         map[string]lang.Severity
-	Span         lang.Span // the settings block, if any
+	Pressure    float64 // standard-state pressure p°, Pa
+	PressureSet bool    // the root's settings give pressure
+	// DataPressures are the standard pressures files state for their own
+	// data (standard-pressure), by file path.
+	DataPressures map[string]DataPressure
+	Temperatures  []float64 // requested temperatures, K
+	Tolerance     float64   // J/mol
+	Lint          map[string]lang.Severity
+	Span          lang.Span // the settings block, if any
 }
 
 // Convention is how a phase's species enter an equilibrium expression.

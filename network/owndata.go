@@ -54,6 +54,17 @@ func hasRatePair(rx *Reaction) bool { return rx.TwoWay && rx.Rate != nil && rx.R
 // 298.15 K; the forward and reverse rates, where the species' data do not
 // give ΔrG° at T (otherwise detailed-balance compares the rates with K).
 func ownDatum(n *Network, rx *Reaction, q quantity) (datum, bool) {
+	d, ok := ownDatumAtDataPressure(n, rx, q)
+	if ok && !q.enthalpy && !d.rates {
+		// ΔrG° at the network's standard pressure (Network.ownDataShift).
+		d.v += thermo.R * q.T * n.ownDataShift(rx)
+	}
+	return d, ok
+}
+
+// ownDatumAtDataPressure is ownDatum at the standard pressure the
+// reaction's data refer to.
+func ownDatumAtDataPressure(n *Network, rx *Reaction, q quantity) (datum, bool) {
 	if q.enthalpy {
 		if rx.Dh == nil {
 			return datum{}, false

@@ -103,7 +103,7 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 	if c, ok := memo[rx]; ok {
 		return c
 	}
-	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure(), own: newOwnK(rx)}
+	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure(), own: newOwnK(rx, n.ownDataShift(rx))}
 	if len(rx.Combo) > 0 {
 		path[rx] = true
 		c.partsOK = true
@@ -136,7 +136,7 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		var g thermo.Model
 		if sp.Gf != nil {
 			if gm, err := thermo.NewGibbsOnly(sp.Gf.V); err == nil {
-				g = gm
+				g = n.pressureShiftedModel(sp, gm)
 			}
 		}
 		if g == nil {

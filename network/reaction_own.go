@@ -23,6 +23,7 @@ import (
 //   - dg alone, at 298.15 K only.
 type ownK struct {
 	rx    *Reaction
+	shift float64 // Δn·ln(p°/p_data): see Network.ownDataShift
 	lin   linear
 	linOK bool
 	fit   *LogKFit
@@ -39,8 +40,8 @@ type linear struct {
 	stated   bool
 }
 
-func newOwnK(rx *Reaction) ownK {
-	o := ownK{rx: rx}
+func newOwnK(rx *Reaction, shift float64) ownK {
+	o := ownK{rx: rx, shift: shift}
 	o.lin, o.linOK = linearData(rx)
 	o.fit = FitLogK(rx.LogK)
 	return o
@@ -51,8 +52,13 @@ func (o *ownK) has() bool {
 	return o.linOK || o.fit != nil || len(o.rx.LogK) > 0 || o.rx.Dg != nil
 }
 
-// at evaluates the own data at T.
-func (o *ownK) at(T float64) point {
+// at evaluates the own data at T, converted to the network's standard
+// pressure.
+func (o *ownK) at(T float64) point { return shiftPoint(o.atDataPressure(T), T, o.shift) }
+
+// atDataPressure evaluates the own data at T at the standard pressure they
+// refer to.
+func (o *ownK) atDataPressure(T float64) point {
 	rx := o.rx
 	for _, lk := range rx.LogK {
 		if math.Abs(lk.T-T) <= thermo.T298Tolerance {

@@ -24,10 +24,9 @@ func (s *Species) Model() thermo.Model {
 // buildModels builds every species' model once the network is compiled, so
 // that Model is a plain read afterwards (safe for concurrent readers).
 func buildModels(n *Network) {
-	p0 := n.StandardPressure()
 	for _, sp := range n.Species {
-		sp.p0 = p0
-		sp.model = sp.buildModel()
+		sp.p0, _ = n.DataPressure(sp.Span.File)
+		sp.model = n.pressureShiftedModel(sp, sp.buildModel())
 		sp.built = true
 	}
 }
@@ -158,7 +157,7 @@ func (s *Species) sigmaStated() bool {
 
 // DerivedS is S° at 298.15 K worked out from hf and gf for a species that
 // gives both but no s: S° = (ΔfH° − ΔfG°)/T + Σ S° of its elements in their
-// reference states at the network's standard pressure. Nil where the
+// reference states at the standard pressure its data refer to. Nil where the
 // species gives s, lacks hf or gf, or has an element of no tabulated
 // reference entropy.
 func (s *Species) DerivedS() *Value {
@@ -237,8 +236,9 @@ func coveredBy(spans [][2]float64, T float64) bool {
 }
 
 // deriveS works out S° at 298.15 K from hf and gf: ΔfS° = (ΔfH° − ΔfG°)/T
-// at T = 298.15 K, plus the elements' reference entropies at the species'
-// standard pressure. Nil when an element has no tabulated entropy.
+// at T = 298.15 K, plus the elements' reference entropies at the standard
+// pressure the species' data refer to. Nil when an element has no
+// tabulated entropy.
 func (s *Species) deriveS() *Value {
 	p0 := s.p0
 	if !(p0 > 0) {
