@@ -288,3 +288,58 @@ func TestJSONNumber(t *testing.T) {
 		}
 	}
 }
+
+// TestTableSourceEveryFormat: every table format names each row's source
+// and, where the row comes from the reaction's own data, the species'
+// log10 K beside it with the difference; a species without a state tag has
+// its convention named.
+func TestTableSourceEveryFormat(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "calcite.hess")
+	src := `species CaCO3(cr) { hf -1207.6 kJ/mol s 91.7 J/mol/K }
+species Ca++(aq) { hf -543.0 kJ/mol s -56.2 J/mol/K }
+species CO3--(aq) { hf -675.23 kJ/mol s -50.0 J/mol/K }
+species loose { formula CaCO3 hf -1207.6 kJ/mol s 91.7 J/mol/K }
+reaction calcite: CaCO3(cr) <-> Ca++(aq) + CO3--(aq) { logk -8.48 }
+reaction lump: loose <-> Ca++(aq) + CO3--(aq)
+`
+	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := func(format string) string {
+		var stdout, stderr bytes.Buffer
+		if code := run([]string{"table", "--format", format, path}, &stdout, &stderr); code != exitOK {
+			t.Fatalf("%s: exit %d: %s", format, code, stderr.String())
+		}
+		return stdout.String()
+	}
+	text := strings.Join(strings.Fields(out("text")), " ")
+	for _, want := range []string{"source log10 K (species) difference", "no reaction -8.4747 -0.0053",
+		"no state tag on loose: activity taken as a mole fraction (solution convention)", "no species"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("text lacks %q:\n%s", want, out("text"))
+		}
+	}
+	if md := out("markdown"); !strings.Contains(md, "| source | log10 K (species) | difference |") || !strings.Contains(md, "| reaction | -8.4747 | -0.0053 |") {
+		t.Errorf("markdown:\n%s", md)
+	}
+	if csv := out("csv"); !strings.Contains(csv, ",false,reaction,-8.474737994,-0.005262006219") || !strings.Contains(csv, ",false,species,,") {
+		t.Errorf("csv:\n%s", csv)
+	}
+	var doc struct {
+		Reactions []struct {
+			Untagged []string         `json:"untagged"`
+			Rows     []map[string]any `json:"rows"`
+		} `json:"reactions"`
+	}
+	if err := json.Unmarshal([]byte(out("json")), &doc); err != nil {
+		t.Fatal(err)
+	}
+	row := doc.Reactions[0].Rows[0]
+	if row["source"] != "reaction" || row["sigmaLog10K"] != nil || math.Abs(row["differenceLog10K"].(float64)+0.005262006) > 1e-6 {
+		t.Errorf("JSON row %v", row)
+	}
+	if got := doc.Reactions[1].Untagged; len(got) != 1 || got[0] != "loose" {
+		t.Errorf("untagged %v", got)
+	}
+}
