@@ -6,13 +6,12 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 	"time"
 	"unicode/utf16"
-
-	"hess/network"
 )
 
 // nvimScript attaches `hess lsp` to a buffer in Neovim 0.7 (which has
@@ -141,18 +140,32 @@ func TestNeovimClient(t *testing.T) {
 		Value string `json:"value"`
 	}
 	readJSON(t, filepath.Join(dir, "hover.json"), &hover, out)
-	// The example's data may be revised: take the expected label, enthalpy
-	// and source from the compiler.
-	co := network.Load(file, network.Disk{}).LookupSpecies("CO(g)")
-	if co == nil || co.Hf == nil {
-		t.Fatalf("the example has no CO(g) with hf")
-	}
-	for _, want := range []string{"`CO(g)`", co.Label, "formula CO", "molar mass 28.01 g/mol",
-		"hf " + strconv.FormatFloat(co.Hf.V/1000, 'g', 7, 64) + " kJ/mol", "source: " + co.Source} {
+	// Expected values from outside the compiler: the label and source as
+	// the example file writes them, ΔfH°(CO, g) = −110.527 kJ/mol
+	// (NIST-JANAF 1998, which the example quotes), and M(CO) = 28.010 g/mol
+	// (CIAAW 2021 conventional weights, REFERENCE-DATA §4).
+	label, source := exampleCO(t, string(gases))
+	for _, want := range []string{"`CO(g)`", label, "formula CO", "molar mass 28.01 g/mol",
+		"hf -110.527 kJ/mol", "source: " + source} {
 		if !strings.Contains(hover.Value, want) {
 			t.Errorf("hover lacks %q:\n%s", want, hover.Value)
 		}
 	}
+}
+
+// exampleCO reads CO(g)'s label and source string from the example
+// library's text, without the compiler.
+func exampleCO(t *testing.T, text string) (label, source string) {
+	t.Helper()
+	m := regexp.MustCompile(`(?s)species CO\(g\) "([^"]*)" \{(.*?)\n\}`).FindStringSubmatch(text)
+	if m == nil {
+		t.Fatalf("the example has no labelled CO(g)")
+	}
+	src := regexp.MustCompile(`source "([^"]*)"`).FindStringSubmatch(m[2])
+	if src == nil || !strings.Contains(m[2], "hf -110.527 kJ/mol") {
+		t.Fatalf("the example's CO(g) has no source or not JANAF's hf:\n%s", m[2])
+	}
+	return m[1], src[1]
 }
 
 func readJSON(t *testing.T, path string, v any, nvimOutput []byte) {
