@@ -14,8 +14,11 @@ var extrapolationCheck = &Check{
 	Name:     "extrapolation",
 	Severity: lang.Warning,
 	Doc: `a requested temperature lies outside a species' data range
-Each shomate or nasa7 range holds between its two bounds; hf/s data are
-taken to hold from 10 K to 10 000 K. A requested temperature (settings
+Each shomate or nasa7 range holds between its two bounds; hf and s (with
+or without a constant cp), which state no range, are taken to hold within
+100 K of 298.15 K, where leaving out how Cp° varies costs about the default
+tolerance (ΔrCp° of 35 J/mol/K gives 0.5 to 0.7 kJ/mol in ΔrG° at the
+edges). A requested temperature (settings
 temperatures, or hess table --temperatures) outside every range of a
 species used in a reaction is computed by extending the nearest range,
 and such values can be far off, above all for Cp°. The message names the
