@@ -176,7 +176,7 @@ func (c *ReactionK) Row(T float64) TableRow {
 		return r
 	}
 	r.Valid = true
-	lnK := -p.dg / (thermo.R * T)
+	lnK := -p.dg/(thermo.R*T) + 0 // + 0: no −0 where ΔrG° = 0
 	r.K = math.Exp(lnK)
 	r.Log10K = lnK / math.Ln10
 	r.Kc = r.K
