@@ -14,7 +14,10 @@ var extrapolationCheck = &Check{
 	Name:     "extrapolation",
 	Severity: lang.Warning,
 	Doc: `a requested temperature lies outside a species' data range
-Each shomate or nasa7 range holds between its two bounds; hf and s (with
+Each shomate or nasa7 range holds between its two bounds, and a reaction's
+own data between theirs (a fit of several logk from the lowest to the
+highest logk temperature, two of dh, ds and dg or dh with one logk within
+100 K of the temperature they refer to); hf and s (with
 or without a constant cp), which state no range, are taken to hold within
 100 K of 298.15 K, where leaving out how Cp° varies costs about the default
 tolerance (ΔrCp° of 35 J/mol/K gives 0.5 to 0.7 kJ/mol in ΔrG° at the
@@ -49,10 +52,49 @@ values as extrapolated.`,
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
 		}
+		for _, rx := range p.Net.Reactions {
+			extrapolatedOwnData(p, rx, temps)
+		}
 		for _, mx := range p.Net.Mixtures {
 			extrapolatedInMixture(p, mx)
 		}
 	},
+}
+
+// extrapolatedOwnData reports the requested temperatures at which a
+// reaction's rows come from its own data beyond their range (a fit beyond
+// its logk temperatures, a constant ΔrH° and ΔrS° more than
+// thermo.DefaultSpan from the temperature its data refer to).
+func extrapolatedOwnData(p *Pass, rx *Reaction, temps []float64) {
+	if !rx.Resolved {
+		return
+	}
+	o := newOwnK(rx, 0)
+	lo, hi := o.span()
+	if !(lo < hi) {
+		return
+	}
+	var out []float64
+	for _, T := range temps {
+		if T > 0 && (T < lo-thermo.T298Tolerance || T > hi+thermo.T298Tolerance) {
+			if pt := p.Net.ReactionK(rx).at(T); pt.ok() && pt.extrapolated && (pt.basis == BasisReactionData || pt.basis == BasisFit) {
+				out = append(out, T)
+			}
+		}
+	}
+	if len(out) == 0 {
+		return
+	}
+	what := "its dh, ds, dg or logk hold"
+	if o.fit != nil {
+		what = "the fit of its logk holds"
+	}
+	verb := "is"
+	if len(out) > 1 {
+		verb = "are"
+	}
+	p.Reportf(rx.NameSpan, "%s %s outside the own data of %s (%s from %s to %s); values there are extrapolated",
+		kelvinList(out), verb, rx.Name, what, kelvin(lo), kelvin(hi))
 }
 
 // extrapolatedInMixture reports the members of a mixture whose data do not

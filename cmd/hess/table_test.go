@@ -175,7 +175,7 @@ func TestTableHelpAndUsage(t *testing.T) {
 func TestTableTemperaturesFlag(t *testing.T) {
 	inRoot(t)
 	var stdout, stderr bytes.Buffer
-	code := run([]string{"table", "--format", "csv", "--temperatures", "1000 K to 1600 K by 300 K", "testdata/check/extrapolation.hess"}, &stdout, &stderr)
+	code := run([]string{"table", "--format", "csv", "--temperatures", "1000 K to 1600 K by 300 K", "--reaction", "shift", "testdata/check/extrapolation.hess"}, &stdout, &stderr)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr.String())
 	}
