@@ -2,6 +2,9 @@ package equilibrium
 
 import (
 	"math"
+	"sort"
+	"strconv"
+	"strings"
 
 	"hess/network"
 	"hess/thermo"
@@ -58,6 +61,11 @@ type ReactionApproach struct {
 	// K(T) = Q (the one nearest the mixture's temperature); NaN where K
 	// never reaches Q there.
 	EquilibriumT float64
+	// EquilibriumTs are all the temperatures inside the data's range at
+	// which K(T) = Q, in increasing order.
+	EquilibriumTs []float64
+	// Tmin and Tmax bound the data's range, where EquilibriumTs are sought.
+	Tmin, Tmax float64
 	// Missing lists the species lacking data at the mixture's temperature
 	// when K cannot be computed there.
 	Missing []*network.Species
@@ -75,6 +83,35 @@ func (r ReactionApproach) ApproachK(T float64) float64 { return T - r.Equilibriu
 type AbsentReaction struct {
 	Reaction *network.Reaction
 	Lacking  []*network.Species
+}
+
+// Reason says why the reaction has no quotient in the mixture.
+func (a AbsentReaction) Reason() string {
+	if !a.Reaction.Resolved {
+		return "some species of the reaction are undeclared"
+	}
+	return "the mixture lacks " + speciesList(a.Lacking)
+}
+
+// Reason says why a reaction has no direction in the mixture ("" where it
+// has one): its K cannot be computed at the mixture's temperature.
+func (r ReactionApproach) Reason(T float64) string {
+	if r.Direction != DirectionUnknown {
+		return ""
+	}
+	return "K cannot be computed at " + strconv.FormatFloat(math.Round(T*100)/100, 'f', -1, 64) + " K (no data for " + speciesList(r.Missing) + ")"
+}
+
+// speciesList names species, separated by commas.
+func speciesList(sps []*network.Species) string {
+	if len(sps) == 0 {
+		return "some species"
+	}
+	names := make([]string, len(sps))
+	for i, sp := range sps {
+		names[i] = sp.Key
+	}
+	return strings.Join(names, ", ")
 }
 
 // Counts tallies the reactions by direction.
@@ -135,31 +172,38 @@ func approachOne(n *network.Network, rx *network.Reaction, T, lnQ float64) React
 	default:
 		r.Direction = Reverse
 	}
-	r.EquilibriumT = equilibriumTemperature(k, T, lnQ)
+	r.Tmin, r.Tmax = k.Span()
+	r.EquilibriumTs = equilibriumTemperatures(k, lnQ)
+	r.EquilibriumT = math.NaN()
+	for _, t := range r.EquilibriumTs {
+		if math.IsNaN(r.EquilibriumT) || math.Abs(t-T) < math.Abs(r.EquilibriumT-T) {
+			r.EquilibriumT = t
+		}
+	}
 	return r
 }
 
-// equilibriumTemperature finds where ln K(T) = ln Q, that is where
-// ΔrG°(T) + RT ln Q = 0, by a bracketing root search over the data's span;
-// of several roots it takes the one nearest T. It is NaN when K never
-// reaches Q there.
-func equilibriumTemperature(k *network.ReactionK, T, lnQ float64) float64 {
+// equilibriumTemperatures finds every temperature where ln K(T) = ln Q,
+// that is where ΔrG°(T) + RT ln Q = 0, by a bracketing root search over the
+// span of the data of the reaction's first source (its own data, its
+// parts, or its species: ReactionK.Span), in increasing order. None lies
+// outside that span, where the data would be extrapolated.
+func equilibriumTemperatures(k *network.ReactionK, lnQ float64) []float64 {
 	lo, hi := k.Span()
 	if !(lo < hi) || math.IsInf(hi, 0) || math.IsInf(lo, 0) {
-		return math.NaN()
+		return nil
 	}
 	dg := k.DeltaG
-	if r, ok := k.Species(); ok {
+	if r, ok := k.Species(); ok && k.SpanSource() == network.BasisSpecies {
 		dg = r.DeltaG
 	}
 	roots := thermo.Crossovers(func(t float64) float64 {
 		return dg(t) + thermo.R*t*lnQ
 	}, lo, hi)
-	best := math.NaN()
+	out := make([]float64, 0, len(roots))
 	for _, r := range roots {
-		if math.IsNaN(best) || math.Abs(r.T-T) < math.Abs(best-T) {
-			best = r.T
-		}
+		out = append(out, r.T)
 	}
-	return best
+	sort.Float64s(out)
+	return out
 }

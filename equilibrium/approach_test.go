@@ -120,10 +120,16 @@ func TestApproachPressureScaling(t *testing.T) {
 		t.Errorf("K moved with the mixture's pressure: %g, %g", r1.LnK, r30.LnK)
 	}
 
-	// Theory: ΔrG = 0 where ln Q(1 bar) + 2 ln(P/1 bar) = ln K, so
-	// P* = exp((ln K − ln Q(1 bar))/2) bar; below it reform runs forward,
-	// above it in reverse.
-	pStar := math.Exp((r1.LnK - r1.LnQ) / 2)
+	// Theory: ΔrG = 0 where Q(1 bar)·(P/1 bar)² = K, so P* = √(K/Q(1 bar))
+	// bar; below it reform runs forward, above it in reverse. Both from
+	// outside the code: log10 K(900 K) = 0.113 for CH4 + H2O ⇌ CO + 3 H2
+	// (REFERENCE-DATA §3, derived from NIST-JANAF, ±0.002), and Q(1 bar) by
+	// hand from the fractions, which sum to 1.
+	qByHand := 0.10 * math.Pow(0.44, 3) / (0.05 * 0.35)
+	if d := r1.LnQ - math.Log(qByHand); math.Abs(d) > 1e-12 {
+		t.Errorf("reform: ln Q(1 bar) = %.12g, by hand %.12g", r1.LnQ, math.Log(qByHand))
+	}
+	pStar := math.Sqrt(math.Pow(10, 0.113) / qByHand)
 	n = loadPlant(t, mix("below", pStar/1.5)+mix("at", pStar)+mix("above", pStar*1.5))
 	for _, tc := range []struct {
 		mixture string
@@ -135,10 +141,13 @@ func TestApproachPressureScaling(t *testing.T) {
 		}
 	}
 	_, at := approachOf(t, n, "at", "reform")
-	if math.Abs(at.DG) > 1e-6 {
-		t.Errorf("reform at P*: ΔrG = %g J/mol, want 0", at.DG)
+	// JANAF's rounding of log10 K (0.002) allows ΔrG = R·T·ln 10·0.002 =
+	// 34.5 J/mol, and moves T_eq by 0.002·ln 10/(ΔrH°/(R·T²)) = 0.14 K
+	// (ΔrH° = 224.5 kJ/mol at 900 K, REFERENCE-DATA §3).
+	if lim := thermo.R * 900 * math.Ln10 * 0.002; math.Abs(at.DG) > lim {
+		t.Errorf("reform at P*: ΔrG = %g J/mol, want 0 within %.1f", at.DG, lim)
 	}
-	if math.Abs(at.EquilibriumT-900) > 0.01 {
+	if math.Abs(at.EquilibriumT-900) > 0.15 {
 		t.Errorf("reform at P*: equilibrium T %.4f K, want the mixture's 900 K", at.EquilibriumT)
 	}
 }

@@ -22,7 +22,17 @@ type Table struct {
 	// Tmin and Tmax bound the temperatures the data cover (Tmin > Tmax when
 	// the data hold at no span of temperatures, such as gf alone).
 	Tmin, Tmax float64
-	Rows       []network.TableRow
+	// RangeSource is the source whose data make Tmin to Tmax (the first
+	// source of the provenance rule that has a range).
+	RangeSource network.Basis
+	// Fit is the van 't Hoff fit of the reaction's logk values, nil unless
+	// it has logk at two or more temperatures.
+	Fit *network.LogKFit
+	// Untagged are the reaction's species without a state tag: their
+	// activity is taken as a mole fraction (the solution convention), which
+	// a table names.
+	Untagged []*network.Species
+	Rows     []network.TableRow
 }
 
 // ReactionTable computes a reaction's K(T) table at the given temperatures
@@ -43,6 +53,13 @@ func ReactionTable(n *network.Network, rx *network.Reaction, temps []float64) *T
 		StandardPressure: k.StandardPressure(),
 	}
 	t.Tmin, t.Tmax = k.Span()
+	t.RangeSource = k.SpanSource()
+	t.Fit = k.Fit()
+	for _, nt := range terms {
+		if nt.Species.Phase == nil {
+			t.Untagged = append(t.Untagged, nt.Species)
+		}
+	}
 	t.Crossovers = crossovers(k)
 	t.Rows = make([]network.TableRow, 0, len(temps))
 	for _, T := range temps {
@@ -57,7 +74,7 @@ func crossovers(k *network.ReactionK) []thermo.Crossover {
 	if !(lo < hi) || math.IsInf(hi, 0) {
 		return nil
 	}
-	if r, ok := k.Species(); ok {
+	if r, ok := k.Species(); ok && k.SpanSource() == network.BasisSpecies {
 		return thermo.ScanCrossovers(r.SummedDeltaG(), r.DeltaG, lo, hi)
 	}
 	return thermo.Crossovers(k.DeltaG, lo, hi)

@@ -144,11 +144,17 @@ func TestSolidDecomposition(t *testing.T) {
 	if got := tb.Rows[0].Log10K; math.Abs(got+22.845) > 0.01 {
 		t.Errorf("log10 K(298.15 K) = %.4f, want −22.845 (NBS82, derived)", got)
 	}
-	if len(tb.Crossovers) != 1 || math.Abs(tb.Crossovers[0].T-1110) > 1 || !tb.Crossovers[0].FavoredAbove {
-		t.Fatalf("crossovers %+v, want one near 1110 K favoured above", tb.Crossovers)
+	// hf and s hold 298.15 K ± 100 K (thermo.DefaultSpan): no crossover is
+	// reported outside that, and the row at 1110 K is marked extrapolated.
+	if len(tb.Crossovers) != 0 || tb.Tmin != thermo.ConstTmin || tb.Tmax != thermo.ConstTmax {
+		t.Fatalf("crossovers %+v over %g–%g K, want none inside the default span", tb.Crossovers, tb.Tmin, tb.Tmax)
 	}
-	if d := 1171 - tb.Crossovers[0].T; d < 40 || d > 80 {
-		t.Errorf("constant-ΔH°/ΔS° estimate %.1f K is %.0f K below the measured 1171 K; expected about 60 K", tb.Crossovers[0].T, d)
+	far := tableOf(t, calcite, "calcine", 1110)
+	if r := far.Rows[0]; !r.Valid || !r.Extrapolated || math.Abs(r.Log10K) > 0.01 {
+		t.Errorf("at 1110 K: %+v, want log10 K ≈ 0, extrapolated", r)
+	}
+	if d := 1171 - 1110.0; d < 40 || d > 80 {
+		t.Errorf("constant-ΔH°/ΔS° estimate is %.0f K below the measured 1171 K; expected about 60 K", d)
 	}
 	back := tableOf(t, calcite, "carbonate", 298.15)
 	if back.Quotient != "1 / p(CO2)" || back.DeltaGasMoles != -1 {
@@ -266,14 +272,17 @@ reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
 	dh := (-393.522 + 0) - (-110.527 - 241.826)     // kJ/mol
 	ds := (213.795 + 130.680) - (197.653 + 188.834) // J/mol/K
 	want := 1000 * dh / ds
-	if len(tb.Crossovers) != 1 {
-		t.Fatalf("crossovers %+v, want one", tb.Crossovers)
+	// The zero lies beyond the data's default span (298.15 K ± 100 K): it is
+	// no crossover of the table, but the extrapolated row there has K = 1.
+	if len(tb.Crossovers) != 0 {
+		t.Fatalf("crossovers %+v, want none inside 198.15–398.15 K", tb.Crossovers)
 	}
-	if got := tb.Crossovers[0].T; math.Abs(got-want) > 0.01 {
-		t.Errorf("crossover %.4f K, ΔrH°/ΔrS° = %.4f K", got, want)
+	r := tableOf(t, src, "shift", want).Rows[0]
+	if !r.Valid || !r.Extrapolated || math.Abs(r.DG) > 1e-6 {
+		t.Errorf("at ΔrH°/ΔrS° = %.4f K: %+v, want ΔrG° = 0, extrapolated", want, r)
 	}
-	if tb.Crossovers[0].FavoredAbove {
-		t.Error("shift is exothermic: it should be favoured below its crossover")
+	if r.Basis != network.BasisSpecies {
+		t.Errorf("source %v, want species", r.Basis)
 	}
 }
 
@@ -478,11 +487,15 @@ reaction ac: A(aq) <-> C(aq)
 // path (which would be exponential).
 func TestDeepCombinations(t *testing.T) {
 	var b strings.Builder
-	b.WriteString("species H2(g), O2(g)\n")
-	b.WriteString("reaction r0: H2(g) <-> H2(g) { dg 1 kJ/mol }\n")
-	b.WriteString("reaction r1: H2(g) <-> H2(g) { dg 2 kJ/mol }\n")
+	// Two isomers, so that no equation cancels; r_i converts c_i moles,
+	// c_i = c_(i-1) + c_(i-2), so that each combination is exact.
+	b.WriteString("species ortho(g) { formula H2 }\nspecies para(g) { formula H2 }\n")
+	b.WriteString("reaction r0: ortho(g) <-> para(g) { dg 1 kJ/mol }\n")
+	b.WriteString("reaction r1: ortho(g) <-> para(g) { dg 2 kJ/mol }\n")
+	c0, c1 := int64(1), int64(1)
 	for i := 2; i < 60; i++ {
-		fmt.Fprintf(&b, "reaction r%d: H2(g) <-> H2(g) = r%d + r%d\n", i, i-1, i-2)
+		c0, c1 = c1, c0+c1
+		fmt.Fprintf(&b, "reaction r%d: %d ortho(g) <-> %d para(g) = r%d + r%d\n", i, c1, c1, i-1, i-2)
 	}
 	n := loadText(t, b.String())
 	tb := ReactionTable(n, n.LookupReaction("r40"), []float64{298.15})

@@ -91,10 +91,13 @@ type Settings struct {
 // Setting is one key of a settings block.
 type Setting struct {
 	Node
-	Pressure     *Quantity  `parser:"  'pressure' @@"`
-	Temperatures []*TempSet `parser:"| 'temperatures' @@ ( ',' @@ )*"`
-	Tolerance    *Quantity  `parser:"| 'tolerance' @@"`
-	Lint         *Lint      `parser:"| 'lint' @@"`
+	Pressure *Quantity `parser:"  'pressure' @@"`
+	// StandardPressure is the standard pressure the file's own data refer
+	// to; unlike the other keys it may stand in an included file.
+	StandardPressure *Quantity  `parser:"| 'standard-pressure' @@"`
+	Temperatures     []*TempSet `parser:"| 'temperatures' @@ ( ',' @@ )*"`
+	Tolerance        *Quantity  `parser:"| 'tolerance' @@"`
+	Lint             *Lint      `parser:"| 'lint' @@"`
 }
 
 // TempSet is one item of a temperature list: a single temperature, or a

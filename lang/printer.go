@@ -395,6 +395,8 @@ func settingText(s *Setting) string {
 	switch {
 	case s.Pressure != nil:
 		return "pressure " + quantityText(s.Pressure)
+	case s.StandardPressure != nil:
+		return "standard-pressure " + quantityText(s.StandardPressure)
 	case s.Temperatures != nil:
 		parts := make([]string, len(s.Temperatures))
 		for i, t := range s.Temperatures {

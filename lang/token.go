@@ -50,7 +50,7 @@ var keywords = map[string]bool{
 	"species": true, "reaction": true, "mixture": true,
 	// settings
 	"pressure": true, "temperatures": true, "tolerance": true, "lint": true,
-	"to": true, "by": true,
+	"standard-pressure": true, "to": true, "by": true,
 	// element and phase
 	"mass": true, "convention": true,
 	// species

@@ -23,7 +23,7 @@ species CO(g) "carbon monoxide" {
 }
 species H2O(g) "steam" {
   hf -241.826 kJ/mol
-  s 188.834 J/mol/K
+  s 188.834 J/mol/K  cp 33.590 J/mol/K
 }
 species CO2(g) "carbon dioxide" {
   hf -393.522 kJ/mol
@@ -33,7 +33,7 @@ species CO2(g) "carbon dioxide" {
 }
 species H2(g) "hydrogen" {
   hf 0 kJ/mol
-  s 130.680 J/mol/K
+  s 130.680 J/mol/K  cp 28.836 J/mol/K
 }
 species CH4(g) "methane" {
   hf -74.873 kJ/mol
@@ -48,7 +48,7 @@ species CH4(g) "methane" {
 const plantBroken = `# Shift converter of a small hydrogen plant (demo scenario)
 include "gases.hess"
 
-species O2(g) "oxygen, 𝑂₂ for the burner" { hf 0 s 205.152 J/mol/K }
+species O2(g) "oxygen, 𝑂₂ for the burner" { hf 0 s 205.152 J/mol/K cp 29.376 J/mol/K }
 
 reaction shift: CO(g) + H2O(g) ⇌ CO2(g) + H2(g)
 reaction burn: 2 H2(g) + O2(g) ⇌ H2O(g)

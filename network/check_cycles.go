@@ -19,8 +19,10 @@ such as reform + shift - overall. Around every cycle ΔrG° must sum to zero
 at each temperature (the requested ones and those of every logk), and
 ΔrH° must sum to zero where every reaction of the cycle carries dh
 (Hess's law). ΔrG° comes from a logk at that temperature, from two of dh,
-ds and dg taken as constant ΔrH° and ΔrS°, from dg alone at 298.15 K, or
-from kf/kr where the species have no data; a cycle made only of rate pairs
+ds and dg (or dh with one logk) taken as constant ΔrH° and ΔrS°, from dg
+alone at 298.15 K, from the van 't Hoff fit of several logk between their
+temperatures, or from kf/kr where the species have no data, all converted
+to the network's standard pressure; a cycle made only of rate pairs
 is the Wegscheider condition, that the product of kf/kr around it is 1.
 Cycles are an exact basis with the smallest integer weights. A cycle is
 reported when its sum exceeds both the tolerance setting and twice its

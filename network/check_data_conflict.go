@@ -38,7 +38,11 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 			temps = append(temps, lk.T)
 		}
 	}
-	rows := n.reactionRows(rx, temps)
+	k := n.ReactionK(rx)
+	rows := make([]TableRow, 0, len(temps))
+	for _, T := range temps {
+		rows = append(rows, k.SpeciesRow(T))
+	}
 	fromSpecies := func(row TableRow) bool {
 		return row.Valid && (row.Basis == BasisSpecies || row.Basis == BasisFormation)
 	}
@@ -51,6 +55,12 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 		sS += nu * nu * sg.S * sg.S
 	}
 	sH, sS = math.Sqrt(sH), math.Sqrt(sS)
+	// Own data converted to the network's standard pressure
+	// (Network.ownDataShift): ΔrG° by Δn·R·T·ln r, ΔrS° by −Δn·R·ln r.
+	shift := n.ownDataShift(rx)
+	dgOwn := func(v float64) float64 { return v + thermo.R*thermo.T298*shift }
+	dsOwn := func(v float64) float64 { return v - thermo.R*shift }
+	logkOwn := func(v float64) float64 { return v - shift/math.Ln10 }
 	report := func(v *Value, diff, sigma float64, msg string) {
 		if math.IsNaN(diff) || math.Abs(diff) <= tol || math.Abs(diff) <= 2*sigma {
 			return
@@ -65,16 +75,16 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 			sG = row298.SigmaLog10K * thermo.R * T * math.Ln10
 		}
 		if rx.Dg != nil {
-			report(rx.Dg, rx.Dg.V-row298.DG, math.Hypot(rx.Dg.Sigma, sG),
-				fmt.Sprintf("dg of %s is %s kJ/mol, but its species give ΔrG° = %s kJ/mol at 298.15 K", rx.Name, kjText(rx.Dg.V), kjText(row298.DG)))
+			report(rx.Dg, dgOwn(rx.Dg.V)-row298.DG, math.Hypot(rx.Dg.Sigma, sG),
+				fmt.Sprintf("dg of %s is %s kJ/mol, but its species give ΔrG° = %s kJ/mol at 298.15 K", rx.Name, kjText(dgOwn(rx.Dg.V)), kjText(row298.DG)))
 		}
 		if rx.Dh != nil && !math.IsNaN(row298.DH) {
 			report(rx.Dh, rx.Dh.V-row298.DH, math.Hypot(rx.Dh.Sigma, sH),
 				fmt.Sprintf("dh of %s is %s kJ/mol, but its species give ΔrH° = %s kJ/mol at 298.15 K", rx.Name, kjText(rx.Dh.V), kjText(row298.DH)))
 		}
 		if rx.Ds != nil && !math.IsNaN(row298.DS) {
-			report(rx.Ds, T*(rx.Ds.V-row298.DS), T*math.Hypot(rx.Ds.Sigma, sS),
-				fmt.Sprintf("ds of %s is %.2f J/mol/K, but its species give ΔrS° = %.2f J/mol/K at 298.15 K (compared as T·ΔrS°)", rx.Name, rx.Ds.V, row298.DS))
+			report(rx.Ds, T*(dsOwn(rx.Ds.V)-row298.DS), T*math.Hypot(rx.Ds.Sigma, sS),
+				fmt.Sprintf("ds of %s is %.2f J/mol/K, but its species give ΔrS° = %.2f J/mol/K at 298.15 K (compared as T·ΔrS°)", rx.Name, dsOwn(rx.Ds.V), row298.DS))
 		}
 	}
 	for _, lk := range rx.LogK {
@@ -94,8 +104,8 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 		if !math.IsNaN(row.SigmaLog10K) {
 			sK = row.SigmaLog10K
 		}
-		report(&lk.Value, f*(row.Log10K-lk.Value.V), f*math.Hypot(lk.Value.Sigma, sK),
+		report(&lk.Value, f*(row.Log10K-logkOwn(lk.Value.V)), f*math.Hypot(lk.Value.Sigma, sK),
 			fmt.Sprintf("logk of %s is %s at %s, but its species give log10 K = %s (compared as R·T·ln 10 times the difference)",
-				rx.Name, short(lk.Value.V), kelvin(lk.T), fmt.Sprintf("%.3f", row.Log10K)))
+				rx.Name, short(logkOwn(lk.Value.V)), kelvin(lk.T), fmt.Sprintf("%.3f", row.Log10K)))
 	}
 }

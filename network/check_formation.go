@@ -34,7 +34,7 @@ and by more than twice their combined uncertainty.`,
 			if !ok {
 				continue
 			}
-			off, so, known := formationEntropyOffset(sp)
+			off, so, known := formationEntropyOffsetAt(sp, sp.p0)
 			if !known {
 				continue
 			}

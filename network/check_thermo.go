@@ -5,6 +5,7 @@ import (
 	"math"
 	"strings"
 
+	"hess/chem"
 	"hess/lang"
 	"hess/thermo"
 )
@@ -13,8 +14,14 @@ var extrapolationCheck = &Check{
 	Name:     "extrapolation",
 	Severity: lang.Warning,
 	Doc: `a requested temperature lies outside a species' data range
-Each shomate or nasa7 range holds between its two bounds; hf/s data are
-taken to hold from 10 K to 10 000 K. A requested temperature (settings
+Each shomate or nasa7 range holds between its two bounds, and a reaction's
+own data between theirs (a fit of several logk from the lowest to the
+highest logk temperature, two of dh, ds and dg or dh with one logk within
+100 K of the temperature they refer to); hf and s (with
+or without a constant cp), which state no range, are taken to hold within
+100 K of 298.15 K, where leaving out how Cp° varies costs about the default
+tolerance (ΔrCp° of 35 J/mol/K gives 0.5 to 0.7 kJ/mol in ΔrG° at the
+edges). A requested temperature (settings
 temperatures, or hess table --temperatures) outside every range of a
 species used in a reaction is computed by extending the nearest range,
 and such values can be far off, above all for Cp°. The message names the
@@ -45,10 +52,49 @@ values as extrapolated.`,
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
 		}
+		for _, rx := range p.Net.Reactions {
+			extrapolatedOwnData(p, rx, temps)
+		}
 		for _, mx := range p.Net.Mixtures {
 			extrapolatedInMixture(p, mx)
 		}
 	},
+}
+
+// extrapolatedOwnData reports the requested temperatures at which a
+// reaction's rows come from its own data beyond their range (a fit beyond
+// its logk temperatures, a constant ΔrH° and ΔrS° more than
+// thermo.DefaultSpan from the temperature its data refer to).
+func extrapolatedOwnData(p *Pass, rx *Reaction, temps []float64) {
+	if !rx.Resolved {
+		return
+	}
+	o := newOwnK(rx, 0)
+	lo, hi := o.span()
+	if !(lo < hi) {
+		return
+	}
+	var out []float64
+	for _, T := range temps {
+		if T > 0 && (T < lo-thermo.T298Tolerance || T > hi+thermo.T298Tolerance) {
+			if pt := p.Net.ReactionK(rx).at(T); pt.ok() && pt.extrapolated && (pt.basis == BasisReactionData || pt.basis == BasisFit) {
+				out = append(out, T)
+			}
+		}
+	}
+	if len(out) == 0 {
+		return
+	}
+	what := "its dh, ds, dg or logk hold"
+	if o.fit != nil {
+		what = "the fit of its logk holds"
+	}
+	verb := "is"
+	if len(out) > 1 {
+		verb = "are"
+	}
+	p.Reportf(rx.NameSpan, "%s %s outside the own data of %s (%s from %s to %s); values there are extrapolated",
+		kelvinList(out), verb, rx.Name, what, kelvin(lo), kelvin(hi))
 }
 
 // extrapolatedInMixture reports the members of a mixture whose data do not
@@ -209,6 +255,8 @@ func thermoIntentWithin(rx *Reaction, seen map[*Reaction]bool) bool {
 func lackReason(sp *Species) string {
 	m := sp.Model()
 	switch {
+	case m != nil && isGibbsOnly(m) && sp.Hf != nil && sp.S == nil:
+		return "has hf and gf but no s, and S° cannot be worked out from them: " + noEntropyReason(sp)
 	case m != nil && isGibbsOnly(m):
 		return "has only gf, which holds at 298.15 K alone"
 	case m != nil:
@@ -303,4 +351,18 @@ func (n *Network) TemperatureDiagnostics(temps []float64) lang.Diagnostics {
 // the network's own findings of that code.
 func IsTemperatureCode(code string) bool {
 	return code == extrapolationCheck.Name || code == missingThermoCheck.Name
+}
+
+// noEntropyReason says why the elements' entropies cannot give a species'
+// S° from its hf and gf.
+func noEntropyReason(sp *Species) string {
+	if sp.Charge != 0 && (sp.Phase == nil || sp.Phase.Convention != Solute) {
+		return "a charged species outside an aqueous phase has no formation reaction from the elements"
+	}
+	for _, ec := range sp.Formula.Elements {
+		if _, ok := chem.LookupReferenceState(ec.Symbol); !ok {
+			return "element " + ec.Symbol + " has no tabulated reference entropy (add s)"
+		}
+	}
+	return "its formula gives no formation reaction"
 }

@@ -69,6 +69,11 @@ var checks = []*Check{
 	mixtureIncompleteCheck,
 	mixtureFractionsCheck,
 	notInMixtureCheck,
+	emptyReactionCheck,
+	partialCpCheck,
+	untaggedSpeciesCheck,
+	mixtureRescaledCheck,
+	unstatedPressureCheck,
 }
 
 var checkByName = func() map[string]*Check {

@@ -77,6 +77,10 @@ func compile(n *Network) {
 		case st.Settings != nil:
 			s := st.Settings
 			switch {
+			case s.Pos.Filename != n.Root && onlyDataPressure(s):
+				if !st.Broken {
+					c.libraryDataPressure(s)
+				}
 			case s.Pos.Filename != n.Root:
 				c.report("misplaced-settings", keywordSpan(&s.Node), "settings belong in the root file %s, not in an included file", n.Root)
 			case settingsSeen != nil:

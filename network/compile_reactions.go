@@ -233,7 +233,7 @@ func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
 		if !ok {
 			return
 		}
-		lk.Value.Sigma = s
+		lk.Value.Sigma, lk.Value.Stated = s, true
 	}
 	if l.At != nil {
 		t, ok := c.quantity(l.At, temperatureKind, "logk temperature", false)

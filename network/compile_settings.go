@@ -148,7 +148,10 @@ func (c *compiler) settings(s *lang.Settings) {
 					continue
 				}
 				set.Pressure = v.V
+				set.PressureSet = true
 			}
+		case it.StandardPressure != nil:
+			c.dataPressure(it, key)
 		case it.Temperatures != nil:
 			if !once("temperatures", key) {
 				continue
@@ -260,4 +263,47 @@ func (c *compiler) lint(l *lang.Lint) {
 		c.net.Settings.Lint = map[string]lang.Severity{}
 	}
 	c.net.Settings.Lint[l.Check.Name] = sev
+}
+
+// dataPressure records the standard pressure a file states for its own
+// data (standard-pressure), once per file.
+func (c *compiler) dataPressure(it *lang.Setting, key lang.Span) {
+	set := &c.net.Settings
+	file := key.File
+	if old, dup := set.DataPressures[file]; dup {
+		d := c.report("syntax", key, "standard-pressure is set twice in %s", file)
+		d.Related = []lang.Related{{Span: old.Span, Message: "first set here"}}
+		return
+	}
+	v, ok := c.quantity(it.StandardPressure, pressureKind, "standard-pressure", false)
+	if !ok {
+		return
+	}
+	if v.V <= 0 {
+		c.report("implausible-value", it.StandardPressure.Span(), "standard pressure must be positive, found %s", quantityText(it.StandardPressure))
+		return
+	}
+	if set.DataPressures == nil {
+		set.DataPressures = map[string]DataPressure{}
+	}
+	set.DataPressures[file] = DataPressure{P: v.V, Span: it.StandardPressure.Span()}
+}
+
+// onlyDataPressure reports whether a settings block holds nothing but
+// standard-pressure, which an included file may state.
+func onlyDataPressure(s *lang.Settings) bool {
+	for _, it := range s.Items {
+		if it.StandardPressure == nil {
+			return false
+		}
+	}
+	return len(s.Items) > 0
+}
+
+// libraryDataPressure reads an included file's settings block that states
+// only its standard-pressure.
+func (c *compiler) libraryDataPressure(s *lang.Settings) {
+	for _, it := range s.Items {
+		c.dataPressure(it, keywordSpan(&it.Node))
+	}
 }

@@ -321,3 +321,28 @@ func TestCycleBasisStaysLocal(t *testing.T) {
 		t.Errorf("cycles of up to %d reactions, %d in all; want at most 16 and 500", longest, total)
 	}
 }
+
+// TestCycleWithVantHoffData: dh with one logk, and a fit of several logk,
+// give ΔrG° at other temperatures, so a cycle through them is checked
+// there. r1's ΔrG°(350 K) = ΔrH° − T·(ΔrH° − ΔrG°(298.15 K))/298.15 K.
+func TestCycleWithVantHoffData(t *testing.T) {
+	g0 := -8.31446261815324 * 298.15 * math.Ln10 * 1.0
+	g1 := -10000 - 350*(-10000-g0)/298.15
+	closing := -(g1 + 5000) / (8.31446261815324 * 350 * math.Ln10)
+	src := func(logk3 float64) string {
+		return fmt.Sprintf(`species xa(g) { formula C4H10 }
+species xb(g) { formula C4H10 }
+species xc(g) { formula C4H10 }
+reaction r1: xa(g) <-> xb(g) { dh -10 kJ/mol logk 1.0 }
+reaction r2: xb(g) <-> xc(g) { dh 5 kJ/mol ds 0 J/mol/K }
+reaction r3: xa(g) <-> xc(g) { logk %.6f at 350 K logk %.6f at 360 K }
+`, logk3, logk3)
+	}
+	if got := diagnosticsOf(loadText(t, src(closing)), "cycle-inconsistent"); len(got) != 0 {
+		t.Errorf("a closing cycle reported: %q", got)
+	}
+	got := diagnosticsOf(loadText(t, src(closing-1)), "cycle-inconsistent")
+	if len(got) != 1 || !strings.Contains(got[0], "cycle r1 + r2 - r3 does not close") {
+		t.Errorf("a cycle off by log10 K = 1 at 350 K: %q", got)
+	}
+}

@@ -36,6 +36,13 @@ func isReferenceElement(sp *Species) bool {
 // charged species outside a solute phase, and a species with an element of
 // no tabulated reference entropy.
 func formationEntropyOffset(sp *Species) (offset, sigma float64, ok bool) {
+	return formationEntropyOffsetAt(sp, thermo.Bar)
+}
+
+// formationEntropyOffsetAt is formationEntropyOffset with the elements'
+// entropies at the standard pressure p0 (Pa): the tabulated values refer to
+// 1 bar, and a gaseous element's S° moves by −R·ln(p0/1 bar).
+func formationEntropyOffsetAt(sp *Species, p0 float64) (offset, sigma float64, ok bool) {
 	if !sp.HasFormula || sp.Parts.Electron {
 		return 0, 0, false
 	}
@@ -47,7 +54,7 @@ func formationEntropyOffset(sp *Species) (offset, sigma float64, ok bool) {
 		}
 		n, _ := ec.Count.Float64()
 		f := n / float64(rs.Atoms)
-		offset += f * rs.S
+		offset += f * referenceEntropyAt(rs, p0)
 		variance += f * f * rs.SigmaS * rs.SigmaS
 	}
 	if sp.Charge != 0 {
@@ -56,7 +63,7 @@ func formationEntropyOffset(sp *Species) (offset, sigma float64, ok bool) {
 		}
 		h, _ := chem.LookupReferenceState("H")
 		f := -float64(sp.Charge) / 2
-		offset += f * h.S
+		offset += f * referenceEntropyAt(h, p0)
 		variance += f * f * h.SigmaS * h.SigmaS
 	}
 	return offset, math.Sqrt(variance), true
@@ -115,4 +122,14 @@ func formationGibbs(sp *Species) (g, sigma float64, ok, opaque bool) {
 	g = h - T*(s-off)
 	sigma = math.Sqrt(sh*sh + T*T*(ss*ss+so*so))
 	return g, sigma, true, false
+}
+
+// referenceEntropyAt is an element's reference-state entropy at the
+// standard pressure p0 (Pa): the tabulated value (at 1 bar) for a condensed
+// reference state, shifted by R·ln(1 bar/p0) for a gas.
+func referenceEntropyAt(rs chem.ReferenceState, p0 float64) float64 {
+	if rs.Phase != "g" || !(p0 > 0) {
+		return rs.S
+	}
+	return rs.S + thermo.StandardPressureEntropyShift(thermo.Bar, p0)
 }

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"hess/chem"
 )
 
 // Published ΔfH°, ΔfG° (kJ/mol) and S° (J/mol/K) at 298.15 K that agree
@@ -28,6 +30,47 @@ var formationTriples = []struct {
 	{"Cl-(aq)", -167.159, -131.228, 56.5, "NBS 1982", 0.0396},
 	{"OH-(aq)", -229.994, -157.244, -10.75, "NBS 1982", -0.0004},
 	{"NH3(aq)", -80.29, -26.50, 111.3, "NBS 1982", -0.0334},
+	// One triple for each further element of chem's reference states, so
+	// that every reference entropy meets a published ΔfG° (values recalled,
+	// not read from a copy of the tables, are marked).
+	{"NaCl(s)", -411.120, -384.024, 72.115, "NIST-JANAF 1998 (from memory)", 0.0462},
+	{"KCl(s)", -436.684, -408.768, 82.554, "NIST-JANAF 1998 (from memory)", -0.0107},
+	{"MgO(s)", -601.241, -568.945, 26.924, "NIST-JANAF 1998 (from memory)", -0.0002},
+	{"Al2O3(s)", -1675.692, -1582.275, 50.950, "NIST-JANAF 1998 (corundum; from memory)", -0.0168},
+	{"SiO2(s)", -910.94, -856.64, 41.84, "NBS 1982 (quartz; from memory)", 0.0003},
+	{"ZnO(s)", -348.28, -318.30, 43.64, "NBS 1982 (from memory)", -0.0038},
+	{"CuO(s)", -156.063, -128.292, 42.593, "NIST-JANAF 1998 (from memory)", 0.0034},
+	{"HgO(s)", -90.83, -58.539, 70.29, "NBS 1982 (red; from memory)", 0.0353},
+	{"PbO(s)", -217.32, -187.89, 68.70, "NBS 1982 (yellow; from memory)", 0.0098},
+	{"HF(g)", -271.1, -273.2, 173.779, "NBS 1982 (from memory)", 0.0000},
+	{"HBr(g)", -36.40, -53.45, 198.695, "NBS 1982 (from memory)", 0.0191},
+	{"HI(g)", 26.48, 1.70, 206.594, "NBS 1982 (from memory)", 0.0213},
+	{"SO2(g)", -296.842, -300.125, 248.223, "NIST-JANAF 1998 (from memory)", 0.0017},
+	// The noble gases are their own reference states: ΔfH° = ΔfG° = 0, and
+	// the published S° must be the reference entropy.
+	{"He(g)", 0, 0, 126.150, "NBS 1982 (from memory)", -0.0009},
+	{"Ne(g)", 0, 0, 146.328, "NBS 1982 (from memory)", 0.0000},
+	{"Ar(g)", 0, 0, 154.843, "NBS 1982 (from memory)", -0.0009},
+	{"Kr(g)", 0, 0, 164.082, "NBS 1982 (from memory)", -0.0009},
+	{"Xe(g)", 0, 0, 169.683, "NBS 1982 (from memory)", -0.0006},
+}
+
+// TestEveryReferenceEntropyChecked: each element with a reference entropy
+// occurs in some published triple above, so that a wrong entropy shows as a
+// formation-inconsistent triple.
+func TestEveryReferenceEntropyChecked(t *testing.T) {
+	n := loadText(t, formationNetwork(""))
+	seen := map[string]bool{}
+	for _, f := range formationTriples {
+		for _, ec := range n.LookupSpecies(f.species).Formula.Elements {
+			seen[ec.Symbol] = true
+		}
+	}
+	for _, sym := range strings.Fields(chem.ReferenceElements()) {
+		if !seen[sym] {
+			t.Errorf("no published triple exercises the reference entropy of %s", sym)
+		}
+	}
 }
 
 func formationNetwork(moved string) string {

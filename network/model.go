@@ -67,11 +67,15 @@ func (n *Network) StandardPressure() float64 {
 
 // Settings are the network's settings in SI units, defaults filled in.
 type Settings struct {
-	Pressure     float64   // standard-state pressure p°, Pa
-	Temperatures []float64 // requested temperatures, K
-	Tolerance    float64   // J/mol
-	Lint         map[string]lang.Severity
-	Span         lang.Span // the settings block, if any
+	Pressure    float64 // standard-state pressure p°, Pa
+	PressureSet bool    // the root's settings give pressure
+	// DataPressures are the standard pressures files state for their own
+	// data (standard-pressure), by file path.
+	DataPressures map[string]DataPressure
+	Temperatures  []float64 // requested temperatures, K
+	Tolerance     float64   // J/mol
+	Lint          map[string]lang.Severity
+	Span          lang.Span // the settings block, if any
 }
 
 // Convention is how a phase's species enter an equilibrium expression.
@@ -114,6 +118,9 @@ type Phase struct {
 type Value struct {
 	V, Sigma float64
 	Span     lang.Span
+	// Stated reports that the uncertainty was written (± or +-), so that a
+	// σ of zero is a statement and not the absence of one.
+	Stated bool
 }
 
 // PolyRange is one Shomate or NASA 7-term range of a species.
@@ -146,6 +153,10 @@ type Species struct {
 	ints  speciesInts  // the formula in small integers
 	model thermo.Model // built once the species is compiled; see Model
 	built bool
+	// derivedS is S° worked out from hf and gf (see DerivedS); p0 the
+	// network's standard pressure, which that derivation uses.
+	derivedS *Value
+	p0       float64
 }
 
 // Term is one species with its exact coefficient on one side of a reaction.

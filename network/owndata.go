@@ -36,7 +36,7 @@ func (q quantity) String() string {
 // standard uncertainty and the data it comes from.
 type datum struct {
 	v, sigma float64
-	from     string // "dh", "dg", "logk", "dh and ds", "dh and dg", "dg and ds" or "rates"
+	from     string // "dh", "dg", "logk", "dh and ds", "dh and dg", "dg and ds", "dh and logk", "logk fit" or "rates"
 	rates    bool   // from the forward and reverse rates
 }
 
@@ -48,12 +48,25 @@ func hasOwnData(rx *Reaction) bool {
 
 func hasRatePair(rx *Reaction) bool { return rx.TwoWay && rx.Rate != nil && rx.Reverse != nil }
 
-// ownDatum returns the reaction's own value of q, if its data give one.
-// ΔrH° comes from dh. ΔrG°(T) comes from, in this order: a logk given at T;
-// two of dh, ds and dg, taken as a constant ΔrH° and ΔrS°; dg alone at
-// 298.15 K; the forward and reverse rates, where the species' data do not
-// give ΔrG° at T (otherwise detailed-balance compares the rates with K).
+// ownDatum returns the reaction's own value of q, if its data give one,
+// at the network's standard pressure. ΔrH° comes from dh. ΔrG°(T) comes
+// from, in this order: a logk given at T; two of dh, ds and dg, or dh with
+// its one logk, taken as a constant ΔrH° and ΔrS°; dg alone at 298.15 K;
+// the van 't Hoff fit of several logk between their temperatures; the
+// forward and reverse rates, where the species' data do not give ΔrG° at T
+// (otherwise detailed-balance compares the rates with K).
 func ownDatum(n *Network, rx *Reaction, q quantity) (datum, bool) {
+	d, ok := ownDatumAtDataPressure(n, rx, q)
+	if ok && !q.enthalpy && !d.rates {
+		// ΔrG° at the network's standard pressure (Network.ownDataShift).
+		d.v += thermo.R * q.T * n.ownDataShift(rx)
+	}
+	return d, ok
+}
+
+// ownDatumAtDataPressure is ownDatum at the standard pressure the
+// reaction's data refer to.
+func ownDatumAtDataPressure(n *Network, rx *Reaction, q quantity) (datum, bool) {
 	if q.enthalpy {
 		if rx.Dh == nil {
 			return datum{}, false
@@ -76,8 +89,21 @@ func ownDatum(n *Network, rx *Reaction, q quantity) (datum, bool) {
 		return datum{v: a*rx.Dg.V + (1-a)*rx.Dh.V, sigma: math.Hypot(a*rx.Dg.Sigma, (1-a)*rx.Dh.Sigma), from: "dh and dg"}, true
 	case rx.Dg != nil && rx.Ds != nil:
 		return datum{v: rx.Dg.V - (T-thermo.T298)*rx.Ds.V, sigma: math.Hypot(rx.Dg.Sigma, (T-thermo.T298)*rx.Ds.Sigma), from: "dg and ds"}, true
+	case rx.Dh != nil && len(rx.LogK) == 1:
+		// dh with one logk: van 't Hoff with a constant ΔrH° (linearData).
+		lin, _ := linearData(rx)
+		return datum{v: lin.dh - T*lin.ds, sigma: math.Sqrt(lin.variance(T)), from: "dh and logk"}, true
 	case rx.Dg != nil && thermo.AtT298(T):
 		return datum{v: rx.Dg.V, sigma: rx.Dg.Sigma, from: "dg"}, true
+	}
+	if f := FitLogK(rx.LogK); f != nil && T >= f.Tmin && T <= f.Tmax {
+		// Between the temperatures of several logk: their van 't Hoff fit.
+		rtl := thermo.R * T * math.Ln10
+		sigma := 0.0
+		if s := f.Sigma(T); !math.IsNaN(s) {
+			sigma = rtl * s
+		}
+		return datum{v: -rtl * f.Log10K(T), sigma: sigma, from: "logk fit"}, true
 	}
 	if hasRatePair(rx) && !speciesGiveG(rx, T) {
 		lnK, sigmaLnK, ok := rateLnK(n, rx, T)

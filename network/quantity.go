@@ -139,7 +139,7 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 		c.report("unit-mismatch", q.Unit.Span(), "%s", msg)
 		return nil, false
 	}
-	out := &Value{Sigma: sigma * u.Scale, Span: q.Span()}
+	out := &Value{Sigma: sigma * u.Scale, Span: q.Span(), Stated: q.Sigma != nil}
 	if difference {
 		out.V = v * u.Scale
 	} else {

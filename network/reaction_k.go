@@ -10,37 +10,46 @@ import (
 // constants at one temperature.
 type TableRow struct {
 	T, DH, DS, DG, K, Log10K, Kc float64    // SI: J/mol, J/mol/K; NaN where unknown
-	SigmaLog10K                  float64    // first-order standard uncertainty of log10 K; 0 when no input carries one
+	SigmaLog10K                  float64    // first-order standard uncertainty of log10 K; NaN when no input states one
 	Valid                        bool       // false when a species lacks data at T (missing-thermo)
 	Extrapolated                 bool       // some data are used outside their temperature range
 	Basis                        Basis      // where the numbers come from
 	Missing                      []*Species // when not Valid: the species whose data do not reach T
+	// SpeciesLog10K is log10 K from the species' data where the row comes
+	// from another source (the reaction's own data, their fit, or a
+	// combination) and the species' data also give it at T; NaN otherwise.
+	// The row's Log10K minus it is the difference a table reports.
+	SpeciesLog10K float64
 }
 
 // Basis says which data a table row is computed from.
 type Basis int
 
-// Sources of a table row, in the order they are tried.
+// Sources of a table row. String gives the name the tables print in their
+// source column.
 const (
 	BasisNone         Basis = iota // no data give the row
 	BasisSpecies                   // the species' models: ΔrG° = Σ ν (H° − T S°)
-	BasisFormation                 // the species' gf at 298.15 K: ΔrG° = Σ ν ΔfG°
+	BasisFormation                 // the species' gf at 298.15 K: ΔrG° = Σ ν ΔfG° (species data too)
 	BasisCombination               // the weighted sum of a coupled reaction's parts
 	BasisReactionData              // the reaction's own dg, dh, ds or logk
+	BasisFit                       // a van 't Hoff fit of the reaction's logk at several temperatures
 )
 
+// String is the source's name in tables: "species", "reaction",
+// "combination", "fit", or "" for none.
 func (b Basis) String() string {
 	switch b {
-	case BasisSpecies:
+	case BasisSpecies, BasisFormation:
 		return "species"
-	case BasisFormation:
-		return "formation"
 	case BasisCombination:
 		return "combination"
 	case BasisReactionData:
-		return "reaction data"
+		return "reaction"
+	case BasisFit:
+		return "fit"
 	}
-	return "none"
+	return ""
 }
 
 // A ReactionK evaluates one reaction's standard reaction properties and
@@ -61,6 +70,9 @@ type ReactionK struct {
 	form         thermo.Reaction // species gf at 298.15 K
 	formOK       bool            // every species has gf
 	anyGibbsOnly bool
+	sigmaStated  bool // some species datum states an uncertainty
+
+	own ownK // the reaction's own data
 
 	// parts are the calculations of a coupled reaction's parts, in the
 	// order of its combination; partsOK is false when a part is undefined
@@ -75,6 +87,7 @@ type ReactionK struct {
 	hasLast bool
 
 	spanLo, spanHi float64
+	spanSrc        Basis
 	spanDone       bool
 }
 
@@ -90,7 +103,7 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 	if c, ok := memo[rx]; ok {
 		return c
 	}
-	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure()}
+	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure(), own: newOwnK(rx, n.ownDataShift(rx))}
 	if len(rx.Combo) > 0 {
 		path[rx] = true
 		c.partsOK = true
@@ -117,12 +130,13 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		if m != nil && isGibbsOnly(m) {
 			c.anyGibbsOnly = true
 		}
+		c.sigmaStated = c.sigmaStated || sp.sigmaStated()
 		c.coverage = append(c.coverage, coverage(m))
 		c.abs.Terms = append(c.abs.Terms, thermo.Term{Nu: nu, Model: m, IsGas: a == thermo.ActivityGas, Activity: a, Sigma: sp.Sigma()})
 		var g thermo.Model
 		if sp.Gf != nil {
 			if gm, err := thermo.NewGibbsOnly(sp.Gf.V); err == nil {
-				g = gm
+				g = n.pressureShiftedModel(sp, gm)
 			}
 		}
 		if g == nil {
@@ -155,14 +169,14 @@ var noPoint = point{dh: math.NaN(), ds: math.NaN(), dg: math.NaN(), sigma: math.
 func (c *ReactionK) Row(T float64) TableRow {
 	p := c.at(T)
 	r := TableRow{T: T, DH: p.dh, DS: p.ds, DG: p.dg, K: math.NaN(), Log10K: math.NaN(), Kc: math.NaN(),
-		SigmaLog10K: math.NaN(), Extrapolated: p.extrapolated, Basis: p.basis}
+		SigmaLog10K: math.NaN(), Extrapolated: p.extrapolated, Basis: p.basis, SpeciesLog10K: math.NaN()}
 	if !p.ok() || !(T > 0) {
 		r.DG, r.Basis, r.Extrapolated = math.NaN(), BasisNone, false
 		r.Missing = c.lacking(T)
 		return r
 	}
 	r.Valid = true
-	lnK := -p.dg / (thermo.R * T)
+	lnK := -p.dg/(thermo.R*T) + 0 // + 0: no −0 where ΔrG° = 0
 	r.K = math.Exp(lnK)
 	r.Log10K = lnK / math.Ln10
 	r.Kc = r.K
@@ -170,6 +184,28 @@ func (c *ReactionK) Row(T float64) TableRow {
 		r.Kc = math.Exp(lnK + c.dn*math.Log(c.p0/(thermo.R*T*thermo.CStd)))
 	}
 	r.SigmaLog10K = p.sigma
+	if p.basis != BasisSpecies && p.basis != BasisFormation {
+		if sp := c.fromSpeciesData(T); sp.ok() {
+			r.SpeciesLog10K = -sp.dg / (thermo.R * T * math.Ln10)
+		}
+	}
+	return r
+}
+
+// SpeciesRow is the reaction at T from its species' data alone (their
+// models, or their gf at 298.15 K), whatever the reaction's own data say:
+// what the data-conflict check compares own data with.
+func (c *ReactionK) SpeciesRow(T float64) TableRow {
+	p := c.fromSpeciesData(T)
+	r := TableRow{T: T, DH: p.dh, DS: p.ds, DG: p.dg, K: math.NaN(), Log10K: math.NaN(), Kc: math.NaN(),
+		SigmaLog10K: p.sigma, Extrapolated: p.extrapolated, Basis: p.basis, SpeciesLog10K: math.NaN()}
+	if !p.ok() || !(T > 0) {
+		r.Basis, r.Extrapolated = BasisNone, false
+		return r
+	}
+	r.Valid = true
+	r.Log10K = -p.dg / (thermo.R * T * math.Ln10)
+	r.K = math.Pow(10, r.Log10K)
 	return r
 }
 
@@ -183,10 +219,41 @@ func (c *ReactionK) at(T float64) point {
 	return p
 }
 
+// eval applies the provenance rule: a reaction's own data are the measured
+// values for that reaction, so the sources are tried in the order own data
+// (a logk at T, a fit of several logk, a constant ΔrH° and ΔrS°, dg at
+// 298.15 K), a coupled reaction's parts, the species' data. The first
+// source that holds at T within its range answers; where every source that
+// gives a value must extrapolate, the first of them answers, marked
+// extrapolated.
 func (c *ReactionK) eval(T float64) point {
 	if !(T > 0) {
 		return noPoint
 	}
+	if len(c.terms) == 0 && c.rx.Resolved && len(c.rx.Left)+len(c.rx.Right) > 0 {
+		// The sides cancel: nothing happens, ΔrG° = 0 and K = 1 at any T
+		// (reported as empty-reaction).
+		return point{basis: BasisSpecies, sigma: math.NaN()}
+	}
+	first := noPoint
+	for _, src := range [...]func(float64) point{c.own.at, c.fromCombination, c.fromSpeciesData} {
+		p := src(T)
+		if !p.ok() {
+			continue
+		}
+		if !p.extrapolated {
+			return p
+		}
+		if !first.ok() {
+			first = p
+		}
+	}
+	return first
+}
+
+// fromSpeciesData is the reaction from its species' models, or at 298.15 K
+// from their gf where some species is known by gf alone.
+func (c *ReactionK) fromSpeciesData(T float64) point {
 	if c.absOK {
 		if p := c.fromSpecies(T); p.ok() {
 			return p
@@ -197,17 +264,11 @@ func (c *ReactionK) eval(T float64) point {
 			return p
 		}
 	}
-	if p := c.fromCombination(T); p.ok() {
-		return p
-	}
-	if p := ownData(c.rx, T); p.ok() {
-		return p
-	}
 	return noPoint
 }
 
 func (c *ReactionK) fromSpecies(T float64) point {
-	p := point{dh: c.abs.DeltaH(T), ds: c.abs.DeltaS(T), dg: c.abs.DeltaG(T), sigma: c.abs.SigmaLog10K(T), basis: BasisSpecies}
+	p := point{dh: c.abs.DeltaH(T), ds: c.abs.DeltaS(T), dg: c.abs.DeltaG(T), sigma: stated(c.abs.SigmaLog10K(T), c.sigmaStated), basis: BasisSpecies}
 	for _, cov := range c.coverage {
 		if !coveredBy(cov, T) {
 			p.extrapolated = true
@@ -219,7 +280,7 @@ func (c *ReactionK) fromSpecies(T float64) point {
 // fromFormation sums gf at 298.15 K. ΔrH° is Σ ν hf when every species has
 // hf, and ΔrS° follows from ΔrH° and ΔrG°.
 func (c *ReactionK) fromFormation(T float64) point {
-	p := point{dh: 0, ds: math.NaN(), dg: c.form.DeltaG(T), sigma: c.form.SigmaLog10K(T), basis: BasisFormation}
+	p := point{dh: 0, ds: math.NaN(), dg: c.form.DeltaG(T), sigma: stated(c.form.SigmaLog10K(T), c.sigmaStated), basis: BasisFormation}
 	for _, t := range c.terms {
 		if t.Species.Hf == nil {
 			p.dh = math.NaN()
@@ -241,7 +302,7 @@ func (c *ReactionK) fromCombination(T float64) point {
 		return noPoint
 	}
 	sum := point{basis: BasisCombination}
-	variance := 0.0
+	variance, anyStated := 0.0, false
 	for i, ct := range c.rx.Combo {
 		w, _ := ct.Weight.Float64()
 		p := c.parts[i].at(T)
@@ -251,79 +312,38 @@ func (c *ReactionK) fromCombination(T float64) point {
 		sum.dh += w * p.dh
 		sum.ds += w * p.ds
 		sum.dg += w * p.dg
-		variance += w * w * p.sigma * p.sigma
+		if !math.IsNaN(p.sigma) {
+			variance += w * w * p.sigma * p.sigma
+			anyStated = true
+		}
 		sum.extrapolated = sum.extrapolated || p.extrapolated
 	}
-	sum.sigma = math.Sqrt(variance)
+	sum.sigma = stated(math.Sqrt(variance), anyStated)
 	return sum
-}
-
-// ownData evaluates a reaction's own data at T: a logk given at T; else a
-// linear ΔrG°(T) = ΔrH° − T·ΔrS° from two of dh, ds and dg (dg taken at
-// 298.15 K), valid like hf/s data from thermo.ConstTmin to thermo.ConstTmax;
-// else dg alone at 298.15 K.
-func ownData(rx *Reaction, T float64) point {
-	for _, lk := range rx.LogK {
-		if math.Abs(lk.T-T) <= thermo.T298Tolerance {
-			return point{dh: math.NaN(), ds: math.NaN(), dg: -thermo.R * T * math.Ln10 * lk.Value.V,
-				sigma: lk.Value.Sigma, basis: BasisReactionData}
-		}
-	}
-	if lin, ok := linearData(rx); ok {
-		p := point{dh: lin.dh, ds: lin.ds, dg: lin.dh - T*lin.ds, basis: BasisReactionData}
-		// ΔrG°(T) = wh·dh + wg·dg + ws·ds in terms of the inputs given.
-		var v float64
-		switch {
-		case rx.Dh != nil && rx.Ds != nil:
-			v = sq(rx.Dh.Sigma) + sq(T*rx.Ds.Sigma)
-		case rx.Dh != nil: // with dg
-			v = sq((1-T/thermo.T298)*rx.Dh.Sigma) + sq(T/thermo.T298*rx.Dg.Sigma)
-		default: // dg with ds
-			v = sq(rx.Dg.Sigma) + sq((thermo.T298-T)*rx.Ds.Sigma)
-		}
-		p.sigma = thermo.SigmaLog10K(T, math.Sqrt(v))
-		p.extrapolated = T < thermo.ConstTmin || T > thermo.ConstTmax
-		return p
-	}
-	if rx.Dg != nil && thermo.AtT298(T) {
-		return point{dh: math.NaN(), ds: math.NaN(), dg: rx.Dg.V, sigma: thermo.SigmaLog10K(T, rx.Dg.Sigma), basis: BasisReactionData}
-	}
-	return noPoint
-}
-
-type linear struct{ dh, ds float64 }
-
-// linearData returns the reaction's constant ΔrH° and ΔrS° from two of its
-// dh, ds and dg.
-func linearData(rx *Reaction) (linear, bool) {
-	switch {
-	case rx.Dh != nil && rx.Ds != nil:
-		return linear{rx.Dh.V, rx.Ds.V}, true
-	case rx.Dh != nil && rx.Dg != nil:
-		return linear{rx.Dh.V, (rx.Dh.V - rx.Dg.V) / thermo.T298}, true
-	case rx.Dg != nil && rx.Ds != nil:
-		return linear{rx.Dg.V + thermo.T298*rx.Ds.V, rx.Ds.V}, true
-	}
-	return linear{}, false
 }
 
 func sq(x float64) float64 { return x * x }
 
 // Span is the span of temperatures over which the reaction's ΔrG° is a
-// continuous function of the data: the overlap of its species' ranges, of
-// its parts' spans for a coupled reaction, or hf/s-like limits for its own
-// dh/ds data. lo > hi means no span.
+// continuous function of the data of its first source (see eval): the range
+// of its own data (the logk temperatures of a fit, the anchor ±
+// thermo.DefaultSpan of a constant ΔrH° and ΔrS°), the overlap of its
+// parts' spans for a coupled reaction, or the overlap of its species'
+// ranges. lo > hi means no span.
 func (c *ReactionK) Span() (lo, hi float64) {
 	if !c.spanDone {
-		c.spanLo, c.spanHi = c.findSpan()
+		c.spanLo, c.spanHi, c.spanSrc = c.findSpan()
 		c.spanDone = true
 	}
 	return c.spanLo, c.spanHi
 }
 
-func (c *ReactionK) findSpan() (lo, hi float64) {
-	if c.absOK {
-		return c.abs.Range()
+func (c *ReactionK) findSpan() (lo, hi float64, src Basis) {
+	if lo, hi := c.own.span(); lo < hi {
+		if c.own.fit != nil {
+			return lo, hi, BasisFit
+		}
+		return lo, hi, BasisReactionData
 	}
 	if c.partsOK {
 		lo, hi = 0, math.Inf(1)
@@ -332,14 +352,26 @@ func (c *ReactionK) findSpan() (lo, hi float64) {
 			lo, hi = math.Max(lo, l), math.Min(hi, h)
 		}
 		if lo < hi {
-			return lo, hi
+			return lo, hi, BasisCombination
 		}
 	}
-	if _, ok := linearData(c.rx); ok {
-		return thermo.ConstTmin, thermo.ConstTmax
+	if c.absOK {
+		lo, hi = c.abs.Range()
+		return lo, hi, BasisSpecies
 	}
-	return math.Inf(1), math.Inf(-1)
+	return math.Inf(1), math.Inf(-1), BasisNone
 }
+
+// SpanSource is the source whose data make the Span: BasisReactionData or
+// BasisFit for own data, BasisCombination, BasisSpecies, or BasisNone.
+func (c *ReactionK) SpanSource() Basis {
+	c.Span()
+	return c.spanSrc
+}
+
+// Fit is the van 't Hoff fit of the reaction's logk values, nil unless it
+// has logk at two or more temperatures.
+func (c *ReactionK) Fit() *LogKFit { return c.own.fit }
 
 // DeltaG is ΔrG° at T in J/mol, as Row gives it; NaN where no data give it.
 func (c *ReactionK) DeltaG(T float64) float64 {
@@ -351,8 +383,8 @@ func (c *ReactionK) DeltaG(T float64) float64 {
 }
 
 // Species returns the reaction as the sum of its species' models, and false
-// unless every species has a model with H° and S°. Where it is true, Row
-// takes ΔrG° from it wherever it is finite.
+// unless every species has a model with H° and S°. Row takes ΔrG° from it
+// where neither the reaction's own data nor its parts answer.
 func (c *ReactionK) Species() (thermo.Reaction, bool) { return c.abs, c.absOK }
 
 // Terms are the reaction's net terms (Reaction.NetTerms), shared: the

@@ -91,7 +91,20 @@ func TestMissingRoot(t *testing.T) {
 	if len(n.Files) != 0 || len(n.Diagnostics) != 1 || n.Diagnostics[0].Code != "include-missing" {
 		t.Fatalf("got %d files, diagnostics %v", len(n.Files), n.Diagnostics)
 	}
-	if !errors.Is(fs.ErrNotExist, fs.ErrNotExist) || !strings.Contains(n.Diagnostics[0].Message, "no such file") {
-		t.Errorf("message %q", n.Diagnostics[0].Message)
+	// The message names the file and the reason the source gave
+	// (fs.ErrNotExist, "file does not exist", said as "no such file").
+	if got := n.Diagnostics[0].Message; got != "cannot read absent.hess: no such file" {
+		t.Errorf("message %q, want %q", got, "cannot read absent.hess: no such file")
+	}
+	// A source that fails another way says so instead.
+	other := Load("locked.hess", failingSource{errors.New("permission denied")})
+	if len(other.Diagnostics) != 1 || !strings.Contains(other.Diagnostics[0].Message, "permission denied") ||
+		strings.Contains(other.Diagnostics[0].Message, "no such file") {
+		t.Errorf("unreadable root: %v", other.Diagnostics)
 	}
 }
+
+// failingSource fails every read with its error.
+type failingSource struct{ err error }
+
+func (f failingSource) ReadFile(string) ([]byte, error) { return nil, f.err }

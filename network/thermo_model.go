@@ -25,12 +25,14 @@ func (s *Species) Model() thermo.Model {
 // that Model is a plain read afterwards (safe for concurrent readers).
 func buildModels(n *Network) {
 	for _, sp := range n.Species {
-		sp.model = sp.buildModel()
+		sp.p0, _ = n.DataPressure(sp.Span.File)
+		sp.model = n.pressureShiftedModel(sp, sp.buildModel())
 		sp.built = true
 	}
 }
 
 func (s *Species) buildModel() thermo.Model {
+	s.derivedS = nil
 	if len(s.Ranges) > 0 {
 		pieces := make([]thermo.Model, 0, len(s.Ranges))
 		for _, r := range sortedRanges(s.Ranges) {
@@ -53,6 +55,22 @@ func (s *Species) buildModel() thermo.Model {
 			cp = s.Cp.V
 		}
 		m, err := thermo.NewConstantCp(s.Hf.V, s.S.V, cp)
+		if err != nil {
+			return nil
+		}
+		return m
+	case s.Hf != nil && s.Gf != nil && s.S == nil:
+		if d := s.deriveS(); d != nil {
+			cp := 0.0
+			if s.Cp != nil {
+				cp = s.Cp.V
+			}
+			if m, err := thermo.NewConstantCp(s.Hf.V, d.V, cp); err == nil {
+				s.derivedS = d
+				return m
+			}
+		}
+		m, err := thermo.NewGibbsOnly(s.Gf.V)
 		if err != nil {
 			return nil
 		}
@@ -107,19 +125,44 @@ func (r *PolyRange) model() thermo.Model {
 }
 
 // Sigma returns the standard uncertainties written with the species' hf, s
-// and gf (zero where none was given).
+// and gf (zero where none was given); an S° derived from hf and gf carries
+// theirs.
 func (s *Species) Sigma() thermo.SpeciesSigma {
 	var sg thermo.SpeciesSigma
 	if s.Hf != nil {
 		sg.H = s.Hf.Sigma
 	}
-	if s.S != nil {
+	switch {
+	case s.S != nil:
 		sg.S = s.S.Sigma
+	case s.derivedS != nil:
+		sg.S = s.derivedS.Sigma
 	}
 	if s.Gf != nil {
 		sg.G = s.Gf.Sigma
 	}
 	return sg
+}
+
+// sigmaStated reports whether any of the species' hf, s, gf states an
+// uncertainty.
+func (s *Species) sigmaStated() bool {
+	for _, v := range []*Value{s.Hf, s.S, s.Gf, s.Cp} {
+		if v != nil && v.Stated {
+			return true
+		}
+	}
+	return false
+}
+
+// DerivedS is S° at 298.15 K worked out from hf and gf for a species that
+// gives both but no s: S° = (ΔfH° − ΔfG°)/T + Σ S° of its elements in their
+// reference states at the standard pressure its data refer to. Nil where the
+// species gives s, lacks hf or gf, or has an element of no tabulated
+// reference entropy.
+func (s *Species) DerivedS() *Value {
+	s.Model()
+	return s.derivedS
 }
 
 // Activity returns how the species enters an equilibrium expression, from
@@ -190,4 +233,22 @@ func coveredBy(spans [][2]float64, T float64) bool {
 		}
 	}
 	return false
+}
+
+// deriveS works out S° at 298.15 K from hf and gf: ΔfS° = (ΔfH° − ΔfG°)/T
+// at T = 298.15 K, plus the elements' reference entropies at the standard
+// pressure the species' data refer to. Nil when an element has no
+// tabulated entropy.
+func (s *Species) deriveS() *Value {
+	p0 := s.p0
+	if !(p0 > 0) {
+		p0 = thermo.Bar
+	}
+	off, sigmaOff, ok := formationEntropyOffsetAt(s, p0)
+	if !ok {
+		return nil
+	}
+	v := (s.Hf.V-s.Gf.V)/thermo.T298 + off
+	sigma := math.Hypot(math.Hypot(s.Hf.Sigma, s.Gf.Sigma)/thermo.T298, sigmaOff)
+	return &Value{V: v, Sigma: sigma, Span: s.Gf.Span, Stated: s.Hf.Stated || s.Gf.Stated}
 }

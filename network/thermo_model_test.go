@@ -161,8 +161,8 @@ species G(g) {
 		gibbs   bool
 		lackMsg string
 	}{
-		{"A(g)", false, 10, 10000, 0, -10000, false, ""},
-		{"B(g)", false, 10, 10000, 30, -10000 + 30*(400-298.15), false, ""},
+		{"A(g)", false, thermo.ConstTmin, thermo.ConstTmax, 0, -10000, false, ""},
+		{"B(g)", false, thermo.ConstTmin, thermo.ConstTmax, 30, -10000 + 30*(400-298.15), false, ""},
 		{"C(aq)", false, 298.15, 298.15, math.NaN(), math.NaN(), true, "has only gf"},
 		{"D(g)", true, 0, 0, 0, 0, false, "has hf but no s"},
 		{"E(g)", true, 0, 0, 0, 0, false, "has s but no hf"},
@@ -222,5 +222,25 @@ species A(g), B(l), C(s), D(cr), E(aq), F(melt), G(calcite), H(vapour), I(brine)
 		if got := sp.Activity(); got != a {
 			t.Errorf("%s: activity %v, want %v", name, got, a)
 		}
+	}
+}
+
+// TestHfGfWithoutS: hf and gf without s give S° by arithmetic; where an
+// element has no reference entropy, missing-thermo says so rather than
+// blaming gf.
+func TestHfGfWithoutS(t *testing.T) {
+	n := loadText(t, `settings { temperatures 350 K }
+element D { mass 2.0141 g/mol }
+species D2(g) { hf 0 kJ/mol s 144.96 J/mol/K }
+species O2(g) { hf 0 kJ/mol s 205.152 J/mol/K }
+species D2O(g) { hf -249.2 kJ/mol gf -234.5 kJ/mol }
+reaction heavy: D2(g) + 1/2 O2(g) <-> D2O(g)
+`)
+	got := diagnosticsOf(n, "missing-thermo")
+	if len(got) != 1 || !strings.Contains(got[0], "D2O(g) has hf and gf but no s, and S° cannot be worked out from them: element D has no tabulated reference entropy (add s)") {
+		t.Errorf("missing-thermo %q", got)
+	}
+	if n.LookupSpecies("D2O(g)").DerivedS() != nil {
+		t.Error("a derived S° without D's reference entropy")
 	}
 }

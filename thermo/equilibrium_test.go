@@ -27,9 +27,10 @@ func ammonia(t testing.TB, scale float64) Reaction {
 }
 
 // log10 K check values, REFERENCE-DATA §3: Σν·log10 Kf from NIST-JANAF 1998
-// (derived, p° = 1 bar, ±0.002 from the tables' rounding). The Shomate fits add
-// their own error, so the tolerance is 0.01.
-const log10KTol = 0.01
+// (derived, p° = 1 bar, ±0.002 from the tables' rounding: each log Kf is
+// printed to three decimals). The WebBook Shomate fits reproduce JANAF within
+// that at every temperature checked, so the tolerance is the rounding alone.
+const log10KTol = 0.002
 
 func TestLog10KFromShomate(t *testing.T) {
 	tests := []struct {
@@ -62,7 +63,9 @@ func TestLog10KFromShomate(t *testing.T) {
 
 func TestAmmoniaSynthesisK(t *testing.T) {
 	// N2 + 3 H2 ⇌ 2 NH3, K in bar⁻², REFERENCE-DATA §3 (derived from JANAF log Kf,
-	// three significant figures). Tolerance: twice the log10 K tolerance.
+	// three significant figures). Tolerance: the JANAF rounding of log10 K
+	// (twice ½N2 + 3/2H2's 0.002, since K here is for 2 NH3) plus the
+	// rounding of K to three figures, at most log10(1.005/1.00) = 0.0022.
 	want := map[float64]float64{
 		298.15: 5.42e5, 500: 0.0995, 600: 1.72e-3, 700: 8.75e-5, 800: 8.95e-6,
 		900: 1.47e-6, 1000: 3.40e-7, 1100: 1.02e-7, 1200: 3.70e-8, 1500: 3.93e-9,
@@ -72,7 +75,7 @@ func TestAmmoniaSynthesisK(t *testing.T) {
 		t.Fatalf("Δn = %g, want -2", dn)
 	}
 	for T, k := range want {
-		if got := r.K(T); math.Abs(math.Log10(got/k)) > 2*log10KTol {
+		if got := r.K(T); math.Abs(math.Log10(got/k)) > 2*log10KTol+0.0022 {
 			t.Errorf("K(%g K) = %.3g bar⁻², want %.3g (REFERENCE-DATA §3, derived)", T, got, k)
 		}
 	}
@@ -170,8 +173,9 @@ func TestConstantCrossover(t *testing.T) {
 	if math.Abs(dh-178321) > 0.5 || math.Abs(ds-160.59) > 0.005 {
 		t.Errorf("ΔrH° = %.1f J/mol, ΔrS° = %.3f J/(mol·K); want 178321, 160.59", dh, ds)
 	}
-	lo, hi := r.Range()
-	cs := Crossovers(r.DeltaG, lo, hi)
+	// The root search itself, over a span wide enough to hold the root (the
+	// constant data's own range, 298.15 K ± DefaultSpan, does not).
+	cs := Crossovers(r.DeltaG, 10, 10000)
 	if len(cs) != 1 {
 		t.Fatalf("crossovers %+v, want one", cs)
 	}

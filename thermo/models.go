@@ -17,10 +17,22 @@ type Model interface {
 	Range() (Tmin, Tmax float64)
 }
 
-// Temperature range of the range-less models (hf/s and hf/s/cp), in K.
+// DefaultSpan is how far from 298.15 K, in K, data that state no range of
+// their own are taken to hold: a species' hf and s (with or without a
+// constant cp) and a reaction's dh, ds, dg or single logk. Such data leave
+// out how Cp° varies, and the neglected term in ΔrG°(T) is
+// ΔrCp·[(T − T0) − T·ln(T/T0)] ≈ −ΔrCp·(T − T0)²/(2·T0). At 100 K from
+// 298.15 K and |ΔrCp| = 35 J/(mol·K), a common size for a reaction that
+// changes its moles of gas, that is 0.53 kJ/mol above and 0.67 kJ/mol below,
+// about the default tolerance of 0.5 kJ/mol; beyond this span values are
+// still computed but marked extrapolated.
+const DefaultSpan = 100.0
+
+// Temperature range of the range-less models (hf/s and hf/s/cp), in K:
+// 298.15 K ± DefaultSpan.
 const (
-	ConstTmin = 10.0
-	ConstTmax = 10000.0
+	ConstTmin = T298 - DefaultSpan
+	ConstTmax = T298 + DefaultSpan
 )
 
 // T298Tolerance is how close, in K, a temperature must be to 298.15 K to count as

@@ -149,8 +149,9 @@ func TestConstantModels(t *testing.T) {
 	if m.H(T298) != -100e3 || m.S(T298) != 50 || m.Cp(700) != 40 {
 		t.Errorf("at 298.15 K: H %g S %g; Cp %g", m.H(T298), m.S(T298), m.Cp(700))
 	}
-	if lo, hi := m.Range(); lo != 10 || hi != 10000 {
-		t.Errorf("range %g–%g, want 10–10000 K", lo, hi)
+	// Data without a stated range hold 298.15 K ± 100 K (DefaultSpan).
+	if lo, hi := m.Range(); math.Abs(lo-198.15) > 1e-9 || math.Abs(hi-398.15) > 1e-9 {
+		t.Errorf("range %g–%g, want 198.15–398.15 K", lo, hi)
 	}
 	c, _ := NewConstant(-100e3, 50)
 	if c.H(2000) != -100e3 || c.S(2000) != 50 || c.G(2000) != -100e3-2000*50 {

@@ -11,7 +11,7 @@ type janafRow struct {
 	species     string
 	T           float64
 	cp, s, dh   float64
-	cpTol       float64 // absolute Cp tolerance when the fit misses 0.1 %
+	cpTol       float64 // absolute Cp tolerance where the fit itself misses JANAF by more than 0.02
 	source, why string
 }
 
@@ -22,12 +22,14 @@ var janafRows = []janafRow{
 	{species: "CO2", T: 298.15, cp: 37.129, s: 213.795, dh: 0, source: "JANAF 1998 C-095"},
 	{species: "CO2", T: 500, cp: 44.627, s: 234.901, dh: 8.305, source: "JANAF 1998 C-095"},
 	{species: "CO2", T: 1000, cp: 54.308, s: 269.299, dh: 33.397, source: "JANAF 1998 C-095"},
-	{species: "CO2", T: 1500, cp: 58.379, s: 292.199, dh: 61.705, source: "JANAF 1998 C-095"},
+	{species: "CO2", T: 1500, cp: 58.379, s: 292.199, dh: 61.705, source: "JANAF 1998 C-095",
+		cpTol: 0.03, why: "the WebBook fit gives 58.404 here, 0.025 above JANAF (REFERENCE-DATA §1 test vectors, derived)"},
 	{species: "H2O", T: 500, cp: 35.226, s: 206.534, dh: 6.925, source: "JANAF 1998 H-064"},
 	{species: "H2O", T: 1000, cp: 41.268, s: 232.738, dh: 26.000, source: "JANAF 1998 H-064"},
 	{species: "H2O", T: 1500, cp: 47.090, s: 250.620, dh: 48.151, source: "JANAF 1998 H-064"},
 	{species: "CO", T: 298.15, cp: 29.142, s: 197.653, dh: 0, source: "JANAF 1998 C-093"},
-	{species: "CO", T: 500, cp: 29.794, s: 212.831, dh: 5.931, source: "JANAF 1998 C-093"},
+	{species: "CO", T: 500, cp: 29.794, s: 212.831, dh: 5.931, source: "JANAF 1998 C-093",
+		cpTol: 0.03, why: "the WebBook fit gives 29.8195 here, 0.026 above JANAF (the fit's miss, REFERENCE-DATA §1 verification: ≤ 0.05)"},
 	{species: "CO", T: 1000, cp: 33.183, s: 234.538, dh: 21.690, source: "JANAF 1998 C-093"},
 	{species: "CO", T: 1500, cp: 35.217, s: 248.426, dh: 38.850, source: "JANAF 1998 C-093"},
 	{species: "H2", T: 298.15, cp: 28.836, s: 130.680, dh: 0, source: "JANAF 1998 H-050"},
@@ -51,22 +53,27 @@ func within(got, want, rel, abs float64) bool {
 }
 
 func TestShomateAgainstJANAF(t *testing.T) {
-	const rel = 0.001 // 0.1 %
+	// Cp° and S° to 0.02 J/(mol·K): JANAF prints three decimals, and the
+	// WebBook fits reproduce its S° within 0.02 everywhere (REFERENCE-DATA
+	// §1 verification, derived); the rows whose Cp° the fit itself misses by
+	// more carry their own tolerance and the reason.
+	const absTol = 0.02
+	const rel = 0.001 // 0.1 %, for H°
 	// H°−H°298 is 0 at 298.15 K, where a relative tolerance means nothing: JANAF
 	// prints 0.001 kJ/mol and the fit adds a few thousandths (REFERENCE-DATA §1
 	// test vectors, derived), so allow 0.01 kJ/mol on top of the 0.1 %.
 	const dhAbs = 0.01
 	for _, r := range janafRows {
 		m := shomateModel(t, r.species)
-		cpTol := rel * r.cp
+		cpTol := absTol
 		if r.cpTol > 0 {
 			cpTol = r.cpTol
 		}
 		if got := m.Cp(r.T); math.Abs(got-r.cp) > cpTol {
 			t.Errorf("%s %g K: Cp = %.3f, want %.3f ± %.3f (%s) %s", r.species, r.T, got, r.cp, cpTol, r.source, r.why)
 		}
-		if got := m.S(r.T); !within(got, r.s, rel, 0) {
-			t.Errorf("%s %g K: S = %.3f, want %.3f (%s)", r.species, r.T, got, r.s, r.source)
+		if got := m.S(r.T); math.Abs(got-r.s) > absTol {
+			t.Errorf("%s %g K: S = %.3f, want %.3f ± %.2f (%s)", r.species, r.T, got, r.s, absTol, r.source)
 		}
 		// The model's H is formation-referenced: JANAF ΔfH°298 plus H°−H°298.
 		want := 1000 * (janafHf298[r.species] + r.dh)

@@ -48,7 +48,8 @@ func TestApproachJSONFields(t *testing.T) {
 	if m.Name != "reformer-outlet" || m.T != 1123.15 || m.PressureBar != 25 {
 		t.Errorf("mixture %s at %g K, %g bar; want reformer-outlet at 1123.15 K (850 degC), 25 bar", m.Name, m.T, m.PressureBar)
 	}
-	fields := []string{"name", "Q", "K", "log10QoverK", "dG_kJ_mol", "direction", "equilibriumT_K", "approach_K"}
+	fields := []string{"name", "Q", "K", "log10QoverK", "dG_kJ_mol", "direction", "equilibriumT_K", "approach_K",
+		"equilibriumTs_K", "extrapolated", "reason"}
 	for _, r := range m.Reactions {
 		if len(r) != len(fields) {
 			t.Errorf("reaction has fields %v, want exactly %v", r, fields)
@@ -193,8 +194,13 @@ mixture warm { temperature 333.15 K AgCl(s) Ag+(aq) 1e-5 mol/kg Cl-(aq) 0.1 mol/
 	if err := json.Unmarshal(stdout.Bytes(), &doc); err != nil {
 		t.Fatal(err)
 	}
-	if len(doc.Mixtures) != 1 || len(doc.Mixtures[0].Reactions) != 1 {
+	// Every reaction is listed: the one without a quotient with its reason.
+	if len(doc.Mixtures) != 1 || len(doc.Mixtures[0].Reactions) != 2 {
 		t.Fatalf("%s", stdout.String())
+	}
+	absent := doc.Mixtures[0].Reactions[1]
+	if absent["name"] != "bromide" || absent["Q"] != nil || absent["reason"] != "no quotient: the mixture lacks AgBr(s), Br-(aq)" {
+		t.Errorf("reaction without a quotient: %v", absent)
 	}
 	if doc.Mixtures[0].PressureBar != nil {
 		t.Errorf("a brine with no pressure: pressure_bar %v, want null", *doc.Mixtures[0].PressureBar)
@@ -207,5 +213,15 @@ mixture warm { temperature 333.15 K AgCl(s) Ag+(aq) 1e-5 mol/kg Cl-(aq) 0.1 mol/
 	}
 	if r["Q"] != 1e-6 {
 		t.Errorf("Q = %v, want 1e-06", r["Q"])
+	}
+	if r["reason"] != "K cannot be computed at 333.15 K (no data for AgCl(s), Ag+(aq), Cl-(aq))" || r["extrapolated"] != false {
+		t.Errorf("reason %v, extrapolated %v", r["reason"], r["extrapolated"])
+	}
+	stdout.Reset()
+	if code := run([]string{"approach", "--format", "csv", path}, &stdout, &stderr); code != exitOK {
+		t.Fatalf("exit %d", code)
+	}
+	if !strings.Contains(stdout.String(), `warm,333.15,,bromide,,,,,,,,,"no quotient: the mixture lacks AgBr(s), Br-(aq)"`) {
+		t.Errorf("CSV lacks the reaction without a quotient:\n%s", stdout.String())
 	}
 }

@@ -6,13 +6,12 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 	"time"
 	"unicode/utf16"
-
-	"hess/network"
 )
 
 // nvimScript attaches `hess lsp` to a buffer in Neovim 0.7 (which has
@@ -155,17 +154,19 @@ func brokenReformer(t *testing.T, dir string) (file, bad string, line int) {
 	return file, reformBad, strings.Count(broken[:strings.Index(broken, reformBad)], "\n")
 }
 
-// coHoverWants is what a hover on CO(g) in the example must show: the
-// label, formula, molar mass, enthalpy and source, taken from the compiler
-// so that revised example data do not break the editor tests.
+// coHoverWants is what a hover on CO(g) in the example must show, from
+// outside the compiler: the label and source as the example file writes
+// them, ΔfH°(CO, g) = −110.527 kJ/mol (NIST-JANAF 1998, which the example
+// quotes), and M(CO) = 28.010 g/mol (CIAAW 2021 conventional weights,
+// REFERENCE-DATA §4).
 func coHoverWants(t *testing.T, file string) []string {
 	t.Helper()
-	co := network.Load(file, network.Disk{}).LookupSpecies("CO(g)")
-	if co == nil || co.Hf == nil {
-		t.Fatalf("the example has no CO(g) with hf")
+	gases, err := os.ReadFile(filepath.Join(filepath.Dir(file), "gases.hess"))
+	if err != nil {
+		t.Fatal(err)
 	}
-	return []string{co.Label, "formula CO", "molar mass 28.01 g/mol",
-		"hf " + strconv.FormatFloat(co.Hf.V/1000, 'g', 7, 64) + " kJ/mol", "source: " + co.Source}
+	label, source := exampleCO(t, string(gases))
+	return []string{label, "formula CO", "molar mass 28.01 g/mol", "hf -110.527 kJ/mol", "source: " + source}
 }
 
 // requireTool finds an outside program for an editor test: the test skips
@@ -180,6 +181,21 @@ func requireTool(t *testing.T, name, install string) string {
 		t.Skipf("%s is not installed (%s): skipping the editor test", name, install)
 	}
 	return path
+}
+
+// exampleCO reads CO(g)'s label and source string from the example
+// library's text, without the compiler.
+func exampleCO(t *testing.T, text string) (label, source string) {
+	t.Helper()
+	m := regexp.MustCompile(`(?s)species CO\(g\) "([^"]*)" \{(.*?)\n\}`).FindStringSubmatch(text)
+	if m == nil {
+		t.Fatalf("the example has no labelled CO(g)")
+	}
+	src := regexp.MustCompile(`source "([^"]*)"`).FindStringSubmatch(m[2])
+	if src == nil || !strings.Contains(m[2], "hf -110.527 kJ/mol") {
+		t.Fatalf("the example's CO(g) has no source or not JANAF's hf:\n%s", m[2])
+	}
+	return m[1], src[1]
 }
 
 func readJSON(t *testing.T, path string, v any, nvimOutput []byte) {

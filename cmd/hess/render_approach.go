@@ -75,12 +75,20 @@ func approachSummary(a *equilibrium.MixtureApproach) string {
 func approachNotes(a *equilibrium.MixtureApproach) []string {
 	var notes []string
 	for _, ab := range a.Absent {
-		notes = append(notes, fmt.Sprintf("%s: no quotient here (the mixture lacks %s)", ab.Reaction.Name, speciesNames(ab.Lacking)))
+		notes = append(notes, fmt.Sprintf("%s: no quotient here (%s)", ab.Reaction.Name, ab.Reason()))
 	}
 	var extrapolated []string
 	for _, r := range a.Reactions {
-		if r.Direction == equilibrium.DirectionUnknown {
-			notes = append(notes, fmt.Sprintf("%s: K cannot be computed at %s (no data for %s)", r.Reaction.Name, kelvinText(a.T), speciesNames(r.Missing)))
+		if reason := r.Reason(a.T); reason != "" {
+			notes = append(notes, fmt.Sprintf("%s: %s", r.Reaction.Name, reason))
+		}
+		if len(r.EquilibriumTs) > 1 {
+			ts := make([]string, len(r.EquilibriumTs))
+			for i, t := range r.EquilibriumTs {
+				ts[i] = kelvinText(t)
+			}
+			notes = append(notes, fmt.Sprintf("%s: K = Q at %s inside %s to %s (T_eq is the nearest)", r.Reaction.Name,
+				strings.Join(ts, ", "), kelvinText(r.Tmin), kelvinText(r.Tmax)))
 		}
 		if r.Extrapolated {
 			extrapolated = append(extrapolated, r.Reaction.Name)

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strconv"
 )
 
 // renderApproachCSV writes every mixture's reactions as one CSV table: the
@@ -13,7 +14,7 @@ import (
 func renderApproachCSV(w io.Writer, doc *approachDoc) error {
 	cw := csv.NewWriter(w)
 	header := []string{"mixture", "T [K]", "P [bar]", "reaction", "Q", "K", "log10(Q/K)", "dG [kJ/mol]",
-		"direction", "T_eq [K]", "approach [K]"}
+		"direction", "T_eq [K]", "approach [K]", "extrapolated", "reason"}
 	if err := cw.Write(header); err != nil {
 		return fmt.Errorf("writing CSV: %w", err)
 	}
@@ -21,7 +22,15 @@ func renderApproachCSV(w io.Writer, doc *approachDoc) error {
 		for _, r := range a.Reactions {
 			rec := []string{a.Mixture.Name, csvNumber(a.T), csvNumber(a.P / 1e5), r.Reaction.Name,
 				csvNumber(math.Exp(r.LnQ)), csvNumber(math.Exp(r.LnK)), csvNumber(r.Log10QOverK()), csvNumber(r.DG / 1000),
-				r.Direction.String(), kelvinOrEmpty(r.EquilibriumT), kelvinOrEmpty(r.ApproachK(a.T))}
+				r.Direction.String(), kelvinOrEmpty(r.EquilibriumT), kelvinOrEmpty(r.ApproachK(a.T)),
+				strconv.FormatBool(r.Extrapolated), r.Reason(a.T)}
+			if err := cw.Write(rec); err != nil {
+				return fmt.Errorf("writing CSV: %w", err)
+			}
+		}
+		for _, ab := range a.Absent {
+			rec := []string{a.Mixture.Name, csvNumber(a.T), csvNumber(a.P / 1e5), ab.Reaction.Name,
+				"", "", "", "", "", "", "", "", "no quotient: " + ab.Reason()}
 			if err := cw.Write(rec); err != nil {
 				return fmt.Errorf("writing CSV: %w", err)
 			}

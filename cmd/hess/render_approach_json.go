@@ -35,6 +35,12 @@ type jsonReactionApproach struct {
 	Direction    *string    `json:"direction"`
 	EquilibriumT jsonNumber `json:"equilibriumT_K"`
 	Approach     jsonNumber `json:"approach_K"`
+	// EquilibriumTs are all temperatures inside the data's range where
+	// K = Q; Extrapolated that K uses data outside their range; Reason why
+	// a reaction has no quotient or no K (null otherwise).
+	EquilibriumTs []jsonNumber `json:"equilibriumTs_K"`
+	Extrapolated  bool         `json:"extrapolated"`
+	Reason        *string      `json:"reason"`
 }
 
 // renderApproachJSON writes the mixtures as one indented JSON document.
@@ -58,17 +64,30 @@ func renderApproachJSON(w io.Writer, doc *approachDoc) error {
 
 func jsonMixture(a *equilibrium.MixtureApproach) jsonMixtureResult {
 	jm := jsonMixtureResult{Name: a.Mixture.Name, T: jsonNumber(a.T), PressureBar: jsonNumber(a.P / thermo.Bar),
-		Reactions: make([]jsonReactionApproach, 0, len(a.Reactions))}
+		Reactions: make([]jsonReactionApproach, 0, len(a.Reactions)+len(a.Absent))}
 	for _, r := range a.Reactions {
 		jr := jsonReactionApproach{
 			Name: r.Reaction.Name, Q: jsonNumber(math.Exp(r.LnQ)), K: jsonNumber(math.Exp(r.LnK)),
 			Log10QOverK: jsonNumber(r.Log10QOverK()), DG: jsonNumber(r.DG / 1000),
 			EquilibriumT: jsonNumber(r.EquilibriumT), Approach: jsonNumber(r.ApproachK(a.T)),
+			EquilibriumTs: make([]jsonNumber, 0, len(r.EquilibriumTs)), Extrapolated: r.Extrapolated,
+		}
+		for _, t := range r.EquilibriumTs {
+			jr.EquilibriumTs = append(jr.EquilibriumTs, jsonNumber(t))
 		}
 		if s := r.Direction.String(); s != "" {
 			jr.Direction = &s
 		}
+		if s := r.Reason(a.T); s != "" {
+			jr.Reason = &s
+		}
 		jm.Reactions = append(jm.Reactions, jr)
+	}
+	for _, ab := range a.Absent {
+		reason := "no quotient: " + ab.Reason()
+		nan := jsonNumber(math.NaN())
+		jm.Reactions = append(jm.Reactions, jsonReactionApproach{Name: ab.Reaction.Name, Q: nan, K: nan, Log10QOverK: nan, DG: nan,
+			EquilibriumT: nan, Approach: nan, EquilibriumTs: []jsonNumber{}, Reason: &reason})
 	}
 	return jm
 }

@@ -20,10 +20,12 @@ type tableColumn struct {
 	cell   func(r network.TableRow) string
 }
 
-// tableColumns are the columns every table format carries (CLI.md), with
-// the unit of Kc for a reaction with Δn moles of gas.
-func tableColumns(kcHeader string) []tableColumn {
-	return []tableColumn{
+// tableColumns are the columns the text and Markdown tables carry, with
+// the unit of Kc for a reaction with Δn moles of gas; withSpecies adds
+// log10 K from the species' data and the row's difference from it, for a
+// reaction whose rows come from elsewhere while its species give K too.
+func tableColumns(kcHeader string, withSpecies bool) []tableColumn {
+	cols := []tableColumn{
 		{"T [K]", func(r network.TableRow) string { return shortNumber(r.T) }},
 		{"dH [kJ/mol]", func(r network.TableRow) string { return fixed(r.DH/1000, 3) }},
 		{"dS [J/mol/K]", func(r network.TableRow) string { return fixed(r.DS, 3) }},
@@ -31,7 +33,7 @@ func tableColumns(kcHeader string) []tableColumn {
 		{"K", func(r network.TableRow) string { return sci(r.K) }},
 		{"log10 K", func(r network.TableRow) string { return fixed(r.Log10K, 4) }},
 		{kcHeader, func(r network.TableRow) string { return sci(r.Kc) }},
-		{"σ(log10 K)", func(r network.TableRow) string { return fixed(r.SigmaLog10K, 4) }},
+		{"σ(log10 K)", sigmaCell},
 		{"extrapolated", func(r network.TableRow) string {
 			if !r.Valid {
 				return "n/a"
@@ -41,7 +43,60 @@ func tableColumns(kcHeader string) []tableColumn {
 			}
 			return "no"
 		}},
+		{"source", sourceCell},
 	}
+	if withSpecies {
+		cols = append(cols,
+			tableColumn{"log10 K (species)", func(r network.TableRow) string { return fixedOrBlank(r.SpeciesLog10K, 4) }},
+			tableColumn{"difference", func(r network.TableRow) string { return fixedOrBlank(speciesDifference(r), 4) }})
+	}
+	return cols
+}
+
+// sigmaCell is σ(log10 K): n/a where the row has no value, blank where no
+// input stated an uncertainty.
+func sigmaCell(r network.TableRow) string {
+	if !r.Valid {
+		return missingCell
+	}
+	return fixedOrBlank(r.SigmaLog10K, 4)
+}
+
+// sourceCell names where a row's numbers come from: species, reaction,
+// combination or fit (n/a where no data give it).
+func sourceCell(r network.TableRow) string {
+	if !r.Valid {
+		return missingCell
+	}
+	return r.Basis.String()
+}
+
+// fixedOrBlank is fixed, or blank for an unknown value.
+func fixedOrBlank(v float64, decimals int) string {
+	if !finite(v) {
+		return ""
+	}
+	return fixed(v, decimals)
+}
+
+// speciesDifference is the row's log10 K less that of the species' data
+// (NaN where the row comes from the species or they give none).
+func speciesDifference(r network.TableRow) float64 {
+	if !r.Valid {
+		return math.NaN()
+	}
+	return r.Log10K - r.SpeciesLog10K
+}
+
+// hasSpeciesAlternative reports whether some row of the table comes from
+// another source while the species' data also give its log10 K.
+func hasSpeciesAlternative(t *equilibrium.Table) bool {
+	for _, r := range t.Rows {
+		if r.Valid && finite(r.SpeciesLog10K) {
+			return true
+		}
+	}
+	return false
 }
 
 // kcHeader is the Kc column's header with its unit, (mol/L)^Δn.
@@ -123,9 +178,20 @@ func summaryLines(t *equilibrium.Table) []string {
 	if len(t.Rows) > 0 && !valid {
 		lines = append(lines, "ΔrG° cannot be computed at these temperatures from the data given")
 	}
+	if len(t.Untagged) > 0 {
+		names := make([]string, len(t.Untagged))
+		for i, sp := range t.Untagged {
+			names[i] = sp.Key
+		}
+		lines = append(lines, fmt.Sprintf("no state tag on %s: activity taken as a mole fraction (solution convention)", strings.Join(names, ", ")))
+	}
+	if f := t.Fit; f != nil {
+		lines = append(lines, fitLine(f))
+	}
 	if len(t.Crossovers) == 0 {
 		if t.Tmin < t.Tmax {
-			lines = append(lines, fmt.Sprintf("ΔrG° keeps its sign from %s to %s", kelvinText(t.Tmin), kelvinText(t.Tmax)))
+			lines = append(lines, fmt.Sprintf("ΔrG° keeps its sign from %s to %s (the range of the %s data)",
+				kelvinText(t.Tmin), kelvinText(t.Tmax), t.RangeSource))
 		}
 		return lines
 	}
@@ -137,6 +203,27 @@ func summaryLines(t *equilibrium.Table) []string {
 		lines = append(lines, fmt.Sprintf("ΔrG° = 0 at %s (K = 1; favoured %s)", kelvinText(c.T), side))
 	}
 	return lines
+}
+
+// fitLine describes a van 't Hoff fit of logk values: its form,
+// coefficients, points, range and residual.
+func fitLine(f *network.LogKFit) string {
+	form := fmt.Sprintf("log10 K = %s %s %s/T", strconv.FormatFloat(f.A, 'g', 6, 64), signText(f.B), strconv.FormatFloat(math.Abs(f.B), 'g', 6, 64))
+	if f.Terms == 3 {
+		form += fmt.Sprintf(" %s %s·log10 T", signText(f.C), strconv.FormatFloat(math.Abs(f.C), 'g', 6, 64))
+	}
+	res := "exact (no degree of freedom left)"
+	if finite(f.RMS) {
+		res = fmt.Sprintf("residual standard error %s, largest residual %s", strconv.FormatFloat(f.RMS, 'f', 4, 64), strconv.FormatFloat(f.MaxAbs, 'f', 4, 64))
+	}
+	return fmt.Sprintf("fit of %d logk values from %s to %s: %s; %s", f.Points, kelvinText(f.Tmin), kelvinText(f.Tmax), form, res)
+}
+
+func signText(v float64) string {
+	if v < 0 {
+		return "-"
+	}
+	return "+"
 }
 
 func kelvinText(T float64) string {

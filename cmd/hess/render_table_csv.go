@@ -15,7 +15,7 @@ import (
 func renderTableCSV(w io.Writer, doc *tableDoc) error {
 	cw := csv.NewWriter(w)
 	header := []string{"reaction", "T [K]", "dH [kJ/mol]", "dS [J/mol/K]", "dG [kJ/mol]", "K", "log10 K",
-		"Kc [(mol/L)^dn]", "dn", "sigma(log10 K)", "extrapolated"}
+		"Kc [(mol/L)^dn]", "dn", "sigma(log10 K)", "extrapolated", "source", "species log10 K", "difference"}
 	if err := cw.Write(header); err != nil {
 		return fmt.Errorf("writing CSV: %w", err)
 	}
@@ -23,7 +23,7 @@ func renderTableCSV(w io.Writer, doc *tableDoc) error {
 		for _, r := range t.Rows {
 			rec := []string{t.Reaction.Name, csvNumber(r.T), csvNumber(r.DH / 1000), csvNumber(r.DS), csvNumber(r.DG / 1000),
 				csvNumber(r.K), csvNumber(r.Log10K), csvNumber(r.Kc), rational(t.DeltaGasMoles), csvNumber(r.SigmaLog10K),
-				csvBool(r)}
+				csvBool(r), csvSource(r), csvNumber(r.SpeciesLog10K), csvNumber(speciesDifference(r))}
 			if err := cw.Write(rec); err != nil {
 				return fmt.Errorf("writing CSV: %w", err)
 			}
@@ -43,6 +43,13 @@ func csvNumber(v float64) string {
 		return ""
 	}
 	return strconv.FormatFloat(round10(v), 'g', -1, 64)
+}
+
+func csvSource(r network.TableRow) string {
+	if !r.Valid {
+		return ""
+	}
+	return r.Basis.String()
 }
 
 func csvBool(r network.TableRow) string {

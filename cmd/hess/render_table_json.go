@@ -9,6 +9,7 @@ import (
 	"strconv"
 
 	"hess/equilibrium"
+	"hess/network"
 	"hess/thermo"
 )
 
@@ -26,6 +27,9 @@ type jsonReactionTable struct {
 	Quotient      string           `json:"quotient"`
 	DeltaGasMoles jsonNumber       `json:"deltaGasMoles"`
 	Crossovers    []jsonCrossover  `json:"crossovers"`
+	Range         jsonRange        `json:"range"`
+	Fit           *jsonFit         `json:"fit,omitempty"`
+	Untagged      []string         `json:"untagged,omitempty"`
 	Rows          []jsonTableRow   `json:"rows"`
 	ReverseRate   *jsonReverseRate `json:"reverseRate,omitempty"`
 }
@@ -35,8 +39,32 @@ type jsonCrossover struct {
 	FavoredAbove bool       `json:"favoredAbove"`
 }
 
+// jsonRange is the span of temperatures the data of the reaction's first
+// source cover (null bounds where they cover none) and that source.
+type jsonRange struct {
+	Tmin   jsonNumber `json:"Tmin_K"`
+	Tmax   jsonNumber `json:"Tmax_K"`
+	Source string     `json:"source"`
+}
+
+// jsonFit is a van 't Hoff fit of logk values: log10 K = A + B/T (+ C·log10 T).
+type jsonFit struct {
+	A           jsonNumber `json:"A"`
+	B           jsonNumber `json:"B_K"`
+	C           jsonNumber `json:"C"`
+	Terms       int        `json:"terms"`
+	Points      int        `json:"points"`
+	RMSResidual jsonNumber `json:"rmsResidual"`
+	MaxResidual jsonNumber `json:"maxResidual"`
+	Tmin        jsonNumber `json:"Tmin_K"`
+	Tmax        jsonNumber `json:"Tmax_K"`
+}
+
 // jsonTableRow is one row; unknown values are null. sigmaLog10K is the
-// first-order standard uncertainty of log10K (0 when no input carries one).
+// first-order standard uncertainty of log10K (null when no input states
+// one); source is species, reaction, combination or fit (null without a
+// value); speciesLog10K and differenceLog10K compare a row from another
+// source with the species' data.
 type jsonTableRow struct {
 	T            jsonNumber `json:"T_K"`
 	DH           jsonNumber `json:"dH_kJ_mol"`
@@ -47,6 +75,9 @@ type jsonTableRow struct {
 	Kc           jsonNumber `json:"Kc"`
 	SigmaLog10K  jsonNumber `json:"sigmaLog10K"`
 	Extrapolated bool       `json:"extrapolated"`
+	Source       *string    `json:"source"`
+	SpeciesLog10 jsonNumber `json:"speciesLog10K"`
+	Difference   jsonNumber `json:"differenceLog10K"`
 }
 
 // jsonNumber is a number written with ten significant digits, or null when
@@ -96,6 +127,17 @@ func jsonTable(t *equilibrium.Table) jsonReactionTable {
 		DeltaGasMoles: jsonNumber(t.DeltaGasMoles),
 		Crossovers:    make([]jsonCrossover, 0, len(t.Crossovers)),
 		Rows:          make([]jsonTableRow, 0, len(t.Rows)),
+		Range:         jsonRange{Tmin: jsonNumber(math.NaN()), Tmax: jsonNumber(math.NaN())},
+	}
+	if t.Tmin <= t.Tmax {
+		jt.Range = jsonRange{Tmin: jsonNumber(t.Tmin), Tmax: jsonNumber(t.Tmax), Source: t.RangeSource.String()}
+	}
+	if f := t.Fit; f != nil {
+		jt.Fit = &jsonFit{A: jsonNumber(f.A), B: jsonNumber(f.B), C: jsonNumber(f.C), Terms: f.Terms, Points: f.Points,
+			RMSResidual: jsonNumber(f.RMS), MaxResidual: jsonNumber(f.MaxAbs), Tmin: jsonNumber(f.Tmin), Tmax: jsonNumber(f.Tmax)}
+	}
+	for _, sp := range t.Untagged {
+		jt.Untagged = append(jt.Untagged, sp.Key)
 	}
 	for _, c := range t.Crossovers {
 		jt.Crossovers = append(jt.Crossovers, jsonCrossover{T: jsonNumber(math.Round(c.T*1000) / 1000), FavoredAbove: c.FavoredAbove})
@@ -104,8 +146,17 @@ func jsonTable(t *equilibrium.Table) jsonReactionTable {
 		jt.Rows = append(jt.Rows, jsonTableRow{
 			T: jsonNumber(r.T), DH: jsonNumber(r.DH / 1000), DS: jsonNumber(r.DS), DG: jsonNumber(r.DG / 1000),
 			K: jsonNumber(r.K), Log10K: jsonNumber(r.Log10K), Kc: jsonNumber(r.Kc), SigmaLog10K: jsonNumber(r.SigmaLog10K),
-			Extrapolated: r.Valid && r.Extrapolated,
+			Extrapolated: r.Valid && r.Extrapolated, Source: jsonSource(r),
+			SpeciesLog10: jsonNumber(r.SpeciesLog10K), Difference: jsonNumber(speciesDifference(r)),
 		})
 	}
 	return jt
+}
+
+func jsonSource(r network.TableRow) *string {
+	if !r.Valid {
+		return nil
+	}
+	s := r.Basis.String()
+	return &s
 }

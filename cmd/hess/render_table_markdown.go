@@ -21,7 +21,7 @@ func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 		if rr := doc.Reverse[t.Reaction]; rr != nil {
 			fmt.Fprintf(&b, "- %s\n", mdEscape(reverseRateLine(rr)))
 		}
-		cols := tableColumns(kcHeader(t.DeltaGasMoles))
+		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t))
 		b.WriteString("\n|")
 		for _, c := range cols {
 			fmt.Fprintf(&b, " %s |", mdEscape(c.header))

@@ -24,7 +24,7 @@ func renderTableText(w io.Writer, doc *tableDoc) error {
 		if rr := doc.Reverse[t.Reaction]; rr != nil {
 			fmt.Fprintf(&b, "  %s\n", reverseRateLine(rr))
 		}
-		cols := tableColumns(kcHeader(t.DeltaGasMoles))
+		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t))
 		cells := make([][]string, 0, len(t.Rows)+1)
 		head := make([]string, len(cols))
 		for i, c := range cols {

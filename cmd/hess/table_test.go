@@ -96,7 +96,8 @@ func TestTableJSONFields(t *testing.T) {
 	if reform.DeltaGasMoles != 2 || len(reform.Crossovers) != 1 || reform.Crossovers[0].FavoredAbove == nil || !*reform.Crossovers[0].FavoredAbove {
 		t.Errorf("reform: %+v", reform)
 	}
-	keys := []string{"T_K", "dH_kJ_mol", "dS_J_molK", "dG_kJ_mol", "K", "log10K", "Kc", "sigmaLog10K", "extrapolated"}
+	keys := []string{"T_K", "dH_kJ_mol", "dS_J_molK", "dG_kJ_mol", "K", "log10K", "Kc", "sigmaLog10K", "extrapolated",
+		"source", "speciesLog10K", "differenceLog10K"}
 	for _, row := range shift.Rows {
 		for _, k := range keys {
 			if _, ok := row[k]; !ok {
@@ -174,7 +175,7 @@ func TestTableHelpAndUsage(t *testing.T) {
 func TestTableTemperaturesFlag(t *testing.T) {
 	inRoot(t)
 	var stdout, stderr bytes.Buffer
-	code := run([]string{"table", "--format", "csv", "--temperatures", "1000 K to 1600 K by 300 K", "testdata/check/extrapolation.hess"}, &stdout, &stderr)
+	code := run([]string{"table", "--format", "csv", "--temperatures", "1000 K to 1600 K by 300 K", "--reaction", "shift", "testdata/check/extrapolation.hess"}, &stdout, &stderr)
 	if code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr.String())
 	}
@@ -184,8 +185,10 @@ func TestTableTemperaturesFlag(t *testing.T) {
 	if strings.Contains(stderr.String(), "298.15 K is outside") {
 		t.Errorf("stderr still reports the settings' temperatures:\n%s", stderr.String())
 	}
+	// Every row is extrapolated: H2(g) has hf and s alone, which hold
+	// 298.15 K ± 100 K.
 	lines := strings.Split(strings.TrimSpace(stdout.String()), "\n")
-	if len(lines) != 4 || !strings.HasPrefix(lines[1], "shift,1000,") || !strings.HasSuffix(lines[3], ",true") || !strings.HasSuffix(lines[1], ",false") {
+	if len(lines) != 4 || !strings.HasPrefix(lines[1], "shift,1000,") || !strings.HasSuffix(lines[3], ",true,species,,") || !strings.HasSuffix(lines[1], ",true,species,,") {
 		t.Errorf("CSV rows:\n%s", stdout.String())
 	}
 }
@@ -283,5 +286,60 @@ func TestJSONNumber(t *testing.T) {
 		if err != nil || string(b) != tc.want {
 			t.Errorf("jsonNumber(%v) = %s, %v; want %s", tc.v, b, err, tc.want)
 		}
+	}
+}
+
+// TestTableSourceEveryFormat: every table format names each row's source
+// and, where the row comes from the reaction's own data, the species'
+// log10 K beside it with the difference; a species without a state tag has
+// its convention named.
+func TestTableSourceEveryFormat(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "calcite.hess")
+	src := `species CaCO3(cr) { hf -1207.6 kJ/mol s 91.7 J/mol/K }
+species Ca++(aq) { hf -543.0 kJ/mol s -56.2 J/mol/K }
+species CO3--(aq) { hf -675.23 kJ/mol s -50.0 J/mol/K }
+species loose { formula CaCO3 hf -1207.6 kJ/mol s 91.7 J/mol/K }
+reaction calcite: CaCO3(cr) <-> Ca++(aq) + CO3--(aq) { logk -8.48 }
+reaction lump: loose <-> Ca++(aq) + CO3--(aq)
+`
+	if err := os.WriteFile(path, []byte(src), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out := func(format string) string {
+		var stdout, stderr bytes.Buffer
+		if code := run([]string{"table", "--format", format, path}, &stdout, &stderr); code != exitOK {
+			t.Fatalf("%s: exit %d: %s", format, code, stderr.String())
+		}
+		return stdout.String()
+	}
+	text := strings.Join(strings.Fields(out("text")), " ")
+	for _, want := range []string{"source log10 K (species) difference", "no reaction -8.4747 -0.0053",
+		"no state tag on loose: activity taken as a mole fraction (solution convention)", "no species"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("text lacks %q:\n%s", want, out("text"))
+		}
+	}
+	if md := out("markdown"); !strings.Contains(md, "| source | log10 K (species) | difference |") || !strings.Contains(md, "| reaction | -8.4747 | -0.0053 |") {
+		t.Errorf("markdown:\n%s", md)
+	}
+	if csv := out("csv"); !strings.Contains(csv, ",false,reaction,-8.474737994,-0.005262006219") || !strings.Contains(csv, ",false,species,,") {
+		t.Errorf("csv:\n%s", csv)
+	}
+	var doc struct {
+		Reactions []struct {
+			Untagged []string         `json:"untagged"`
+			Rows     []map[string]any `json:"rows"`
+		} `json:"reactions"`
+	}
+	if err := json.Unmarshal([]byte(out("json")), &doc); err != nil {
+		t.Fatal(err)
+	}
+	row := doc.Reactions[0].Rows[0]
+	if row["source"] != "reaction" || row["sigmaLog10K"] != nil || math.Abs(row["differenceLog10K"].(float64)+0.005262006) > 1e-6 {
+		t.Errorf("JSON row %v", row)
+	}
+	if got := doc.Reactions[1].Untagged; len(got) != 1 || got[0] != "loose" {
+		t.Errorf("untagged %v", got)
 	}
 }
