@@ -69,6 +69,10 @@ var checks = []*Check{
 	mixtureIncompleteCheck,
 	mixtureFractionsCheck,
 	notInMixtureCheck,
+	unknownActivityModelCheck,
+	activityRangeCheck,
+	missingSolventCheck,
+	fixedNotGasCheck,
 }
 
 var checkByName = func() map[string]*Check {
