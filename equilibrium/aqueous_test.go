@@ -280,3 +280,64 @@ func calciteByBisection() (pH, ca float64) {
 	}
 	return pH, ca
 }
+
+// TestAqueousRange: from 1e-14 to 5 mol/kg of HCl, under every model, the
+// solver converges, chloride's molality is what was fed per kilogram of
+// the water at equilibrium (the balance exact to 1e-12 relative), the
+// solution is neutral (to the rounding of the balances, 1e-14 mol/kg, a
+// few parts in 1e16 of the 55.5 mol fed), and pH falls as the acid rises.
+// At 1e-14 mol/kg the water's own ions set the pH (7.00 within 0.001, the
+// acid adding 1e-7 of the H+); beyond each model's range the result says
+// so.
+func TestAqueousRange(t *testing.T) {
+	for _, model := range []string{"ideal", "davies", "debye-huckel", "b-dot"} {
+		n := loadAqueous(t, "water.hess", model)
+		h, cl, oh := species(t, n, "H+(aq)"), species(t, n, "Cl-(aq)"), species(t, n, "OH-(aq)")
+		last := math.Inf(1)
+		for e := -14.0; e <= math.Log10(5)+1e-9; e += 0.5 {
+			m := math.Pow(10, e)
+			if e > math.Log10(5) {
+				m = 5
+			}
+			r := solve(t, n, AqueousSystem{T: 298.15, WaterKg: 1, Feed: map[*network.Species]float64{h: m, cl: m}})
+			c, _ := r.Solute(cl)
+			if math.Abs(c.Molality*r.WaterKg/m-1) > 1e-12 {
+				t.Errorf("%s, %g mol/kg: chloride %g mol in %g kg", model, m, c.Molality*r.WaterKg, r.WaterKg)
+			}
+			hh, _ := r.Solute(h)
+			o, _ := r.Solute(oh)
+			if q := hh.Molality - o.Molality - c.Molality; math.Abs(q) > 1e-14+1e-12*hh.Molality {
+				t.Errorf("%s, %g mol/kg: net charge %g mol/kg", model, m, q)
+			}
+			if !(r.PH < last) {
+				t.Errorf("%s, %g mol/kg: pH %.4f does not fall (before %.4f)", model, m, r.PH, last)
+			}
+			last = r.PH
+			if e == -14 && math.Abs(r.PH-6.998) > 0.001 {
+				t.Errorf("%s, 1e-14 mol/kg: pH %.4f, want pure water's 6.998 (pKw 13.995)", model, r.PH)
+			}
+			if want := r.I > aqueousValid(model); r.Beyond != want {
+				t.Errorf("%s, I %g: Beyond %v", model, r.I, r.Beyond)
+			}
+		}
+	}
+}
+
+func aqueousValid(model string) float64 {
+	m, _ := aqueousModel(model)
+	return m
+}
+
+func aqueousModel(name string) (float64, bool) {
+	switch name {
+	case "ideal":
+		return 1e-3, true
+	case "davies":
+		return 0.5, true
+	case "debye-huckel":
+		return 0.1, true
+	case "b-dot":
+		return 1, true
+	}
+	return 0, false
+}
