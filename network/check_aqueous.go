@@ -102,3 +102,31 @@ func (m *Mixture) hasFixed() bool {
 	}
 	return false
 }
+
+var missingIonSizeCheck = &Check{
+	Name:     "missing-ion-size",
+	Severity: lang.Warning,
+	Doc: `an ion in a solution has no size parameter under a model that reads one
+The debye-huckel and b-dot activity models read each ion's size parameter å
+(size 4.5 Å in its species block; Kielland's 1937 table is the usual
+source). An ion that a mixture lists without one falls back to the
+Debye–Hückel limiting law, which underestimates γ beyond about 0.005 mol/kg.
+Reported once per ion, at its declaration.`,
+	Run: func(p *Pass) {
+		if !aqueous.UsesIonSize(p.Net.ActivityModel()) {
+			return
+		}
+		seen := map[*Species]bool{}
+		for _, m := range p.Net.Mixtures {
+			for _, mm := range m.Members {
+				sp := mm.Species
+				if mm.Kind != AmountMolality || sp.Charge == 0 || sp.Size != nil || seen[sp] {
+					continue
+				}
+				seen[sp] = true
+				p.Reportf(sp.Span, "%s has no size parameter for the %s activity model (mixture %s lists it): give one, such as size 4.5 Å; without it the limiting law applies",
+					sp.Key, p.Net.ActivityModel().Name(), m.Name)
+			}
+		}
+	},
+}

@@ -73,6 +73,7 @@ var checks = []*Check{
 	activityRangeCheck,
 	missingSolventCheck,
 	fixedNotGasCheck,
+	missingIonSizeCheck,
 }
 
 var checkByName = func() map[string]*Check {
