@@ -341,3 +341,35 @@ func aqueousModel(name string) (float64, bool) {
 	}
 	return 0, false
 }
+
+// TestFormationScale: species known only by ΔfG° whose elements have no
+// tabulated reference entropy (iron) cannot be put on the H° − T·S° scale;
+// at 298.15 K the solver takes every species on the ΔfG° scale instead.
+// Iron(II) hydroxide in water: its solubility product from the same ΔfG°
+// (NBS 1982, from memory: Fe(OH)2(s) −486.5, Fe²⁺(aq) −78.90, OH⁻(aq)
+// −157.244 kJ/mol) must hold at the solution, a(Fe²⁺)·a(OH⁻)² = Ksp
+// within 1e-8 in log10, with the solid present.
+func TestFormationScale(t *testing.T) {
+	n := loadText(t, `settings { activity davies lint unused-species off }
+species H2O(l) { gf -237.129 kJ/mol }
+species H+(aq) { gf 0 kJ/mol }
+species OH-(aq) { gf -157.244 kJ/mol }
+species Fe^2+(aq) { gf -78.90 kJ/mol }
+species Fe(OH)2(s) { gf -486.5 kJ/mol }
+reaction water: H2O(l) <-> H+(aq) + OH-(aq)
+reaction dissolve: Fe(OH)2(s) <-> Fe^2+(aq) + 2 OH-(aq)
+`)
+	fe, oh, solid := species(t, n, "Fe^2+(aq)"), species(t, n, "OH-(aq)"), species(t, n, "Fe(OH)2(s)")
+	if _, ok := solid.StandardGibbs(298.15); ok {
+		t.Fatal("Fe(OH)2(s) placed on the H° − T·S° scale: iron has no reference entropy here, so the test tests nothing")
+	}
+	r := solve(t, n, AqueousSystem{T: 298.15, WaterKg: 1, Feed: map[*network.Species]float64{solid: 0.01}})
+	dg := (-78.90 + 2*-157.244 - -486.5) * 1000
+	logKsp := -dg / (8.31446261815324 * 298.15 * math.Ln10)
+	a, _ := r.Solute(fe)
+	b, _ := r.Solute(oh)
+	m, _ := r.Mineral(solid)
+	if !m.Present || math.Abs(a.LogActivity+2*b.LogActivity-logKsp) > 1e-8 || math.Abs(m.SI) > 1e-8 || len(r.Skipped) > 0 {
+		t.Errorf("Fe(OH)2 %+v, log10 IAP %.10f, log10 Ksp %.10f, skipped %v", m, a.LogActivity+2*b.LogActivity, logKsp, r.Skipped)
+	}
+}

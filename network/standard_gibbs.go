@@ -36,3 +36,14 @@ func (sp *Species) StandardGibbs(T float64) (g float64, ok bool) {
 	}
 	return gf - T*off, true
 }
+
+// FormationGibbs returns the species' ΔfG° at 298.15 K in J/mol: 0 for an
+// element in its reference state, gf where given, else from hf and S° with
+// the elements' reference entropies. It is the other scale on which Σ ν of
+// a balanced reaction is ΔrG° (at 298.15 K only), and serves species of
+// elements whose reference entropy is not tabulated, which StandardGibbs
+// cannot place from gf.
+func (sp *Species) FormationGibbs() (float64, bool) {
+	g, _, ok, _ := formationGibbs(sp)
+	return g, ok
+}
