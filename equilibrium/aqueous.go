@@ -194,9 +194,10 @@ func SolveAqueous(n *network.Network, sys AqueousSystem) (*AqueousResult, error)
 			kept[i].mu0 += math.Log(sys.Fixed[kept[i].sp] / p0)
 		}
 	}
-	for sp, amt := range sys.Feed {
-		if amt > 0 && sp != water && indexOf(kept, sp) < 0 {
-			return nil, fmt.Errorf("%w: %s is fed but has no data at %s", ErrAqueous, sp.Key, kelvinString(sys.T))
+	for _, sp := range skipped {
+		if _, fixed := sys.Fixed[sp]; fixed || sys.Feed[sp] > 0 {
+			return nil, fmt.Errorf("%w: %s is fed or held fixed but has no data at %s (neither its own nor through a reaction)",
+				ErrAqueous, sp.Key, kelvinString(sys.T))
 		}
 	}
 	prob, err := buildProblem(kept, sys, P/p0)
@@ -254,15 +255,6 @@ func findWater(n *network.Network) *network.Species {
 		}
 	}
 	return nil
-}
-
-func indexOf(set []aqSpecies, sp *network.Species) int {
-	for i, s := range set {
-		if s.sp == sp {
-			return i
-		}
-	}
-	return -1
 }
 
 // aqueousSpecies lists the problem's species, water first: the fed and

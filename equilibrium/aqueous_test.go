@@ -373,3 +373,29 @@ reaction dissolve: Fe(OH)2(s) <-> Fe^2+(aq) + 2 OH-(aq)
 		t.Errorf("Fe(OH)2 %+v, log10 IAP %.10f, log10 Ksp %.10f, skipped %v", m, a.LogActivity+2*b.LogActivity, logKsp, r.Skipped)
 	}
 }
+
+// TestSolveAqueousRefuses: what cannot be an aqueous equilibrium is an
+// error, never a number: no water, a feed with net charge, a fed species
+// without data, a model outside its temperature range, a solid held fixed.
+func TestSolveAqueousRefuses(t *testing.T) {
+	n := loadAqueous(t, "water.hess", "davies")
+	h, cl := species(t, n, "H+(aq)"), species(t, n, "Cl-(aq)")
+	ghost := loadText(t, "species H2O(l) { gf -237.129 kJ/mol }\nspecies NH3(aq)\n")
+	for _, c := range []struct {
+		name string
+		net  *network.Network
+		sys  AqueousSystem
+		want string
+	}{
+		{"no water", n, AqueousSystem{T: 298.15}, "no water"},
+		{"charged feed", n, AqueousSystem{T: 298.15, WaterKg: 1, Feed: map[*network.Species]float64{h: 0.01}}, "net charge"},
+		{"hot", n, AqueousSystem{T: 400, WaterKg: 1, Feed: map[*network.Species]float64{h: 0.01, cl: 0.01}}, "davies activity model"},
+		{"no data", ghost, AqueousSystem{T: 298.15, WaterKg: 1, Feed: map[*network.Species]float64{species(t, ghost, "NH3(aq)"): 1}}, "NH3(aq) is fed or held fixed but has no data"},
+		{"fixed solid", n, AqueousSystem{T: 298.15, WaterKg: 1, Fixed: map[*network.Species]float64{species(t, n, "H2O(l)"): 1e5}}, "not a gas"},
+	} {
+		_, err := SolveAqueous(c.net, c.sys)
+		if err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%s: error %v, want one saying %q", c.name, err, c.want)
+		}
+	}
+}
