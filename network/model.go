@@ -86,7 +86,7 @@ const (
 	ConventionUnknown Convention = iota
 	IdealGas                     // activity p/p°
 	Pure                         // activity 1
-	Solute                       // activity m/(1 mol/kg)
+	Solute                       // activity γ·m/(1 mol/kg)
 	SolutionMember               // activity = mole fraction
 )
 
