@@ -45,6 +45,9 @@ type MixtureApproach struct {
 	// Absent are the reactions with no quotient in the mixture, each with
 	// the species the mixture lacks.
 	Absent []AbsentReaction
+	// Solution is the mixture's aqueous part under the network's activity
+	// model (nil when it lists no solute).
+	Solution *SolutionActivities
 }
 
 // ReactionApproach is one reaction's quotient, constant and driving force
@@ -140,7 +143,7 @@ func Approach(n *network.Network, m *network.Mixture) *MixtureApproach {
 	if !m.Usable() {
 		return nil
 	}
-	out := &MixtureApproach{Mixture: m, T: m.Temperature.V, P: m.TotalPressure()}
+	out := &MixtureApproach{Mixture: m, T: m.Temperature.V, P: m.TotalPressure(), Solution: solutionActivities(n, m)}
 	for _, rx := range n.Reactions {
 		lnQ, lacking := m.LnQuotient(rx, n.StandardPressure())
 		if len(lacking) > 0 || !rx.Resolved {

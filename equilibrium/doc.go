@@ -4,7 +4,11 @@
 // cover and the temperatures where ΔrG° changes sign (table.go,
 // quotient.go); and a mixture's approach to equilibrium, reaction by
 // reaction: Q, K, ΔrG, the direction it would run and the temperature at
-// which K would equal Q (approach.go).
+// which K would equal Q, with the solution's ionic strength and activity
+// coefficients (approach.go, solution.go); and the equilibrium of an
+// aqueous system, solved by package gibbs with the network's activity
+// model: speciation, pH, ionic strength, γ, minerals' saturation indices
+// and what fixed gases exchange (aqueous.go).
 //
 // It builds on network's evaluation of one reaction (network.ReactionK) and
 // a mixture's activities (network.Mixture), which the checks share. It

@@ -98,6 +98,7 @@ type Setting struct {
 	Temperatures     []*TempSet `parser:"| 'temperatures' @@ ( ',' @@ )*"`
 	Tolerance        *Quantity  `parser:"| 'tolerance' @@"`
 	Lint             *Lint      `parser:"| 'lint' @@"`
+	Activity         *Ident     `parser:"| 'activity' @@"`
 }
 
 // TempSet is one item of a temperature list: a single temperature, or a
@@ -161,7 +162,8 @@ type FormulaProp struct {
 	Formula *SpeciesRef
 }
 
-// SpeciesValue is one of hf, gf, s, cp with its quantity.
+// SpeciesValue is one of hf, gf, s, cp, size (an ion-size parameter) and
+// setschenow (a neutral solute's salting coefficient) with its quantity.
 type SpeciesValue struct {
 	Node
 	Key   string
@@ -282,4 +284,7 @@ type MixMember struct {
 	Node
 	Species *SpeciesRef `parser:"@@"`
 	Amount  *Quantity   `parser:"@@?"`
+	// Fixed holds a gas at its partial pressure: the mixture is open to a
+	// reservoir of it.
+	Fixed bool `parser:"@'fixed'?"`
 }

@@ -357,7 +357,7 @@ func TestSyntaxErrors(t *testing.T) {
 		{"missing reaction name", "reaction : A -> B", `expected a name, found ":"`, 1, 10},
 		{"combination without sign", "reaction r: A -> B = a b", `expected end of statement, found "b"`, 1, 24},
 		{"combination trailing sign", "reaction r: A -> B = a +", `expected a name, found end of statement`, 1, 25},
-		{"unknown species property", "species X(g) {\n  bogus 3\n}", `expected a species property (formula, hf, gf, s, cp, shomate, nasa7, source, note) or "}", found "bogus"`, 2, 3},
+		{"unknown species property", "species X(g) {\n  bogus 3\n}", `expected a species property (formula, hf, gf, s, cp, size, setschenow, shomate, nasa7, source, note) or "}", found "bogus"`, 2, 3},
 		{"unknown reaction property", "reaction r: A -> B {\n  k 3\n}", `expected a reaction property (dg, dh, ds, logk, rate, reverse, source) or "}", found "k"`, 2, 3},
 		{"unknown setting", "settings { temperature 3 K }", `expected a setting (pressure, temperatures, tolerance, lint) or "}", found keyword "temperature"`, 1, 12},
 		{"bad mixture item", "mixture m { 0.3 }", `expected a mixture item (temperature, pressure, or a species) or "}", found number 0.3`, 1, 13},
@@ -467,7 +467,7 @@ func TestMissingBraceStopsAtNextLine(t *testing.T) {
 	if len(diags) != 2 {
 		t.Fatalf("got %d diagnostics, want 2:\n%s", len(diags), diagList(diags))
 	}
-	want := `expected a species property (formula, hf, gf, s, cp, shomate, nasa7, source, note) or "}", found end of statement`
+	want := `expected a species property (formula, hf, gf, s, cp, size, setschenow, shomate, nasa7, source, note) or "}", found end of statement`
 	if diags[0].Message != want || diags[0].Subject.Start != (Pos{2, 14, 28}) {
 		t.Errorf("first diagnostic %q at %+v", diags[0].Message, diags[0].Subject.Start)
 	}

@@ -410,6 +410,8 @@ func settingText(s *Setting) string {
 		return "tolerance " + quantityText(s.Tolerance)
 	case s.Lint != nil:
 		return "lint " + s.Lint.Check.Name + " " + s.Lint.Level.Name
+	case s.Activity != nil:
+		return "activity " + s.Activity.Name
 	}
 	return ""
 }
@@ -450,6 +452,9 @@ func mixItemText(it *MixItem) string {
 		s := RefText(it.Member.Species.Text)
 		if it.Member.Amount != nil {
 			s += " " + quantityText(it.Member.Amount)
+		}
+		if it.Member.Fixed {
+			s += " fixed"
 		}
 		return s
 	}

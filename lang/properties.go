@@ -9,10 +9,10 @@ import (
 // leaves are (leaves.go), each by its production below.
 
 var (
-	speciesPropertyRule = rule("SpeciesProperty", "a species property (formula, hf, gf, s, cp, shomate, nasa7, source, note)",
+	speciesPropertyRule = rule("SpeciesProperty", "a species property (formula, hf, gf, s, cp, size, setschenow, shomate, nasa7, source, note)",
 		alt{ref("FormulaProp"), ref("SpeciesValue"), ref("Polynomial"), ref("TextProp")})
 	formulaRule      = rule("FormulaProp", "a formula", seq{lit("formula"), ref("SpeciesRef")})
-	speciesValueRule = rule("SpeciesValue", "", seq{oneOf("hf", "gf", "s", "cp"), ref("Quantity")})
+	speciesValueRule = rule("SpeciesValue", "", seq{oneOf("hf", "gf", "s", "cp", "size", "setschenow"), ref("Quantity")})
 	polynomialRule   = rule("Polynomial", "",
 		seq{oneOf("shomate", "nasa7"), ref("Quantity"), lit("to"), ref("Quantity"), openBrace, many{ref("Num")}, closeBrace})
 	textRule = rule("TextProp", "", seq{oneOf("source", "note"), ref("Str")})

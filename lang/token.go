@@ -50,17 +50,17 @@ var keywords = map[string]bool{
 	"species": true, "reaction": true, "mixture": true,
 	// settings
 	"pressure": true, "temperatures": true, "tolerance": true, "lint": true,
-	"standard-pressure": true, "to": true, "by": true,
+	"standard-pressure": true, "activity": true, "to": true, "by": true,
 	// element and phase
 	"mass": true, "convention": true,
 	// species
 	"formula": true, "hf": true, "gf": true, "s": true, "cp": true,
-	"shomate": true, "nasa7": true, "source": true, "note": true,
+	"size": true, "setschenow": true, "shomate": true, "nasa7": true, "source": true, "note": true,
 	// reaction
 	"dg": true, "dh": true, "ds": true, "logk": true, "at": true,
 	"rate": true, "reverse": true, "A": true, "n": true, "Ea": true,
 	// mixture
-	"temperature": true,
+	"temperature": true, "fixed": true,
 }
 
 // IsKeyword reports whether w is a reserved word of the language.

@@ -151,6 +151,13 @@ func speciesHover(w *hoverText, net *network.Network, sym network.Symbol) {
 		w.text("at 298.15 K: %s", strings.Join(data, ", "))
 		w.line()
 	}
+	data = data[:0]
+	add("size", sp.Size, network.Angstrom, "Å")
+	add("setschenow", sp.Setschenow, 1, "kg/mol")
+	if len(data) > 0 {
+		w.text("activity model parameters: %s", strings.Join(data, ", "))
+		w.line()
+	}
 	if len(sp.Ranges) > 0 {
 		var rs []string
 		for _, r := range sp.Ranges {

@@ -3,6 +3,7 @@ package lsp
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"hess/equilibrium"
 	"hess/network"
@@ -32,6 +33,20 @@ func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
 		w.text(", %s bar", number(a.P/1e5, 6))
 	}
 	w.line()
+	if sol := a.Solution; sol != nil {
+		w.text("%s activity model, I = %s mol/kg", sol.Model, number(sol.I, 4))
+		if sol.Beyond {
+			w.text(" (beyond the model's range)")
+		}
+		var gs []string
+		for _, so := range sol.Solutes {
+			gs = append(gs, fmt.Sprintf("γ(%s) = %s", so.Species.Key, number(so.Gamma, 4)))
+		}
+		if len(gs) > 0 {
+			w.text(": %s", strings.Join(gs, ", "))
+		}
+		w.line()
+	}
 	fwd, rev, eq, unknown := a.Counts()
 	for _, r := range a.Reactions {
 		w.name(r.Reaction.Name)

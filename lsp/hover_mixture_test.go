@@ -20,6 +20,9 @@ species H2(g) { hf 0 kJ/mol s 130.680 J/mol/K }
 reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
 mixture unit { temperature 298.15 K CO(g) 1 bar H2O(g) 1 bar CO2(g) 1 bar H2(g) 1 bar }
 mixture bad { temperature 298.15 K CO(g) -1 bar H2O(g) 1 bar CO2(g) 1 bar H2(g) 1 bar }
+species Na+(aq) { gf -261.905 kJ/mol }
+species Cl-(aq) { gf -131.228 kJ/mol }
+mixture brine { temperature 298.15 K Na+(aq) 0.1 mol/kg Cl-(aq) 0.1 mol/kg }
 `
 	c := startServer(t, Options{})
 	var res InitializeResult
@@ -43,5 +46,10 @@ mixture bad { temperature 298.15 K CO(g) -1 bar H2O(g) 1 bar CO2(g) 1 bar H2(g) 
 	}
 	if got := hover(6, 10); !strings.Contains(got, "has errors, so it gives no numbers") {
 		t.Errorf("hover over a bad mixture:\n%s", got)
+	}
+	// A solution shows its ionic strength (½ Σ m z² = 0.1 mol/kg) and γ;
+	// the network chooses no model, so γ = 1.
+	if got := hover(9, 10); !strings.Contains(got, "ideal activity model, I = 0.1 mol/kg") || !strings.Contains(got, "γ(Na+(aq)) = 1") {
+		t.Errorf("hover over a solution:\n%s", got)
 	}
 }

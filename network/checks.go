@@ -74,6 +74,11 @@ var checks = []*Check{
 	untaggedSpeciesCheck,
 	mixtureRescaledCheck,
 	unstatedPressureCheck,
+	unknownActivityModelCheck,
+	activityRangeCheck,
+	missingSolventCheck,
+	fixedNotGasCheck,
+	missingIonSizeCheck,
 }
 
 var checkByName = func() map[string]*Check {

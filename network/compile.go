@@ -117,6 +117,7 @@ func compile(n *Network) {
 		}
 	})
 	buildModels(n)
+	buildSolutions(n)
 }
 
 // each calls fn for every statement of every file, in load order.

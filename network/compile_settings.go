@@ -172,6 +172,11 @@ func (c *compiler) settings(s *lang.Settings) {
 			}
 		case it.Lint != nil:
 			c.lint(it.Lint)
+		case it.Activity != nil:
+			if !once("activity", key) {
+				continue
+			}
+			c.activityModel(it.Activity)
 		}
 	}
 }

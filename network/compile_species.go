@@ -138,8 +138,13 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 			formula, formulaSpan = pr.Formula.Formula.Text, pr.Formula.Formula.Span()
 		case pr.Value != nil:
 			kind := energyKind
-			if pr.Value.Key == "s" || pr.Value.Key == "cp" {
+			switch pr.Value.Key {
+			case "s", "cp":
 				kind = entropyKind
+			case "size":
+				kind = lengthKind
+			case "setschenow":
+				kind = setschenowKind
 			}
 			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
 			if !ok {
@@ -154,6 +159,14 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 				sp.S = v
 			case "cp":
 				sp.Cp = v
+			case "size":
+				if !(v.V > 0) {
+					c.report("implausible-value", pr.Value.Value.Span(), "ion-size parameter of %s must be above 0, found %s", sp.Key, quantityText(pr.Value.Value))
+					continue
+				}
+				sp.Size = v
+			case "setschenow":
+				sp.Setschenow = v
 			}
 		case pr.Poly != nil:
 			c.polynomial(sp, pr.Poly)

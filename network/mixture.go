@@ -124,6 +124,7 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 			unit = u
 		}
 	}
+	mm.Fixed = m.Fixed
 	return mm, c.memberKind(&mm, m, unit)
 }
 

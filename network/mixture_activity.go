@@ -51,7 +51,10 @@ func (m *Mixture) TotalPressure() float64 {
 // Activity returns a member's activity in the mixture on the network's
 // conventions: p_i/p° for a gas (p_i = y_i·P for a mole fraction, the
 // fractions normalised over the mixture's gases), m/(1 mol/kg) for a
-// solute, the mole fraction for a solution member and 1 for a pure phase.
+// solute times its activity coefficient under the network's activity model
+// (Gamma), the mole fraction for a solution member, 1 for a pure phase, and
+// for the water of an aqueous solution its activity from the model (1 under
+// the ideal model).
 // It is NaN when the member's amount is unusable.
 func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
 	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) {
@@ -68,10 +71,13 @@ func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
 	case AmountPartialPressure:
 		return mm.Amount.V / p0
 	case AmountMolality:
-		return mm.Amount.V / thermo.MStd
+		return m.Gamma(mm) * mm.Amount.V / thermo.MStd
 	case AmountSolution:
 		return mm.Amount.V
 	case AmountPresent:
+		if s := m.solution; s != nil && s.Water == mm.Species {
+			return s.WaterActivity
+		}
 		return 1
 	}
 	return math.NaN()

@@ -75,7 +75,11 @@ type Settings struct {
 	Temperatures  []float64 // requested temperatures, K
 	Tolerance     float64   // J/mol
 	Lint          map[string]lang.Severity
-	Span          lang.Span // the settings block, if any
+	// Activity is the activity model of aqueous solutes by name ("ideal",
+	// "davies", "debye-huckel", "b-dot"); "" is ideal, the default.
+	Activity     string
+	ActivitySpan lang.Span // the activity setting, if written
+	Span         lang.Span // the settings block, if any
 }
 
 // Convention is how a phase's species enter an equilibrium expression.
@@ -86,7 +90,7 @@ const (
 	ConventionUnknown Convention = iota
 	IdealGas                     // activity p/p°
 	Pure                         // activity 1
-	Solute                       // activity m/(1 mol/kg)
+	Solute                       // activity γ·m/(1 mol/kg)
 	SolutionMember               // activity = mole fraction
 )
 
@@ -144,8 +148,11 @@ type Species struct {
 	Phase      *Phase // nil when untagged or the tag is unknown
 
 	Hf, Gf, S, Cp *Value
-	Ranges        []*PolyRange
-	Source, Note  string
+	// Size is the ion-size parameter å in m (SI); Setschenow a neutral
+	// solute's salting coefficient k_s (log10 form) in kg/mol.
+	Size, Setschenow *Value
+	Ranges           []*PolyRange
+	Source, Note     string
 
 	Used bool // appears in some reaction
 
@@ -223,7 +230,8 @@ type Mixture struct {
 	// Valid is false when some item of the mixture could not be read.
 	Valid bool
 
-	wroteT, wroteP bool // a temperature or pressure item was written
+	wroteT, wroteP bool      // a temperature or pressure item was written
+	solution       *Solution // the aqueous part, built once compiled
 }
 
 // MixMember is one species of a mixture with its amount: a mole fraction,
@@ -233,5 +241,8 @@ type MixMember struct {
 	Amount  *Value // nil for a pure phase marked present
 	Unit    string // as written
 	Kind    AmountKind
-	Span    lang.Span
+	// Fixed holds a gas at its partial pressure: the mixture is open to a
+	// reservoir of it (an equilibrium keeps its activity).
+	Fixed bool
+	Span  lang.Span
 }

@@ -27,6 +27,8 @@ var (
 	temperatureKind = quantityKind{"temperature", thermo.DimTemperature, "K"}
 	pressureKind    = quantityKind{"pressure", thermo.DimPressure, "bar"}
 	molarMassKind   = quantityKind{"molar mass", thermo.DimMolarMass, "g/mol"}
+	lengthKind      = quantityKind{"length", thermo.DimLength, "Å"}
+	setschenowKind  = quantityKind{"kg/mol (a reciprocal molality)", thermo.DimMolarMass, "kg/mol"}
 )
 
 // minNormal is the smallest normal float64: smaller numbers lose precision

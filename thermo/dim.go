@@ -29,6 +29,7 @@ var (
 	DimMolality      = Dim{-1, 0, 0, 1, 0} // mol/kg
 	DimConcentration = Dim{0, -3, 0, 1, 0} // mol/m³
 	DimTime          = Dim{0, 0, 1, 0, 0}
+	DimLength        = Dim{0, 1, 0, 0, 0}
 )
 
 // RatePrefactorDim is the dimension of an Arrhenius prefactor for a step of the given
@@ -89,6 +90,7 @@ var dimNames = map[Dim]string{
 	DimMolality:         "molality",
 	DimConcentration:    "concentration",
 	DimTime:             "time",
+	DimLength:           "length",
 	RatePrefactorDim(0): "zero-order rate prefactor",
 	RatePrefactorDim(1): "first-order rate prefactor",
 	RatePrefactorDim(2): "second-order rate prefactor",

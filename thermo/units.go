@@ -44,26 +44,31 @@ var (
 )
 
 var unitSymbols = map[string]unitSymbol{
-	"J":    {dimJoule, 1, 0},
-	"kJ":   {dimJoule, 1e3, 0},
-	"cal":  {dimJoule, CalTh, 0},
-	"kcal": {dimJoule, 1e3 * CalTh, 0},
-	"mol":  {dimAmount, 1, 0},
-	"K":    {DimTemperature, 1, 0},
-	"degC": {DimTemperature, 1, ZeroCelsius},
-	"°C":   {DimTemperature, 1, ZeroCelsius},
-	"Pa":   {DimPressure, 1, 0},
-	"kPa":  {DimPressure, 1e3, 0},
-	"MPa":  {DimPressure, 1e6, 0},
-	"bar":  {DimPressure, Bar, 0},
-	"atm":  {DimPressure, Atm, 0},
-	"Torr": {DimPressure, Torr, 0},
-	"g":    {dimMass, 1e-3, 0},
-	"kg":   {dimMass, 1, 0},
-	"s":    {DimTime, 1, 0},
-	"cm":   {dimLength, 1e-2, 0},
-	"m":    {dimLength, 1, 0},
-	"L":    {dimVolume, 1e-3, 0},
+	"J":        {dimJoule, 1, 0},
+	"kJ":       {dimJoule, 1e3, 0},
+	"cal":      {dimJoule, CalTh, 0},
+	"kcal":     {dimJoule, 1e3 * CalTh, 0},
+	"mol":      {dimAmount, 1, 0},
+	"K":        {DimTemperature, 1, 0},
+	"degC":     {DimTemperature, 1, ZeroCelsius},
+	"°C":       {DimTemperature, 1, ZeroCelsius},
+	"Pa":       {DimPressure, 1, 0},
+	"kPa":      {DimPressure, 1e3, 0},
+	"MPa":      {DimPressure, 1e6, 0},
+	"bar":      {DimPressure, Bar, 0},
+	"atm":      {DimPressure, Atm, 0},
+	"Torr":     {DimPressure, Torr, 0},
+	"g":        {dimMass, 1e-3, 0},
+	"kg":       {dimMass, 1, 0},
+	"s":        {DimTime, 1, 0},
+	"cm":       {dimLength, 1e-2, 0},
+	"m":        {dimLength, 1, 0},
+	"nm":       {dimLength, 1e-9, 0},
+	"pm":       {dimLength, 1e-12, 0},
+	"Å":        {dimLength, 1e-10, 0}, // U+00C5
+	"\u212b":   {dimLength, 1e-10, 0}, // the angstrom sign, U+212B
+	"angstrom": {dimLength, 1e-10, 0},
+	"L":        {dimVolume, 1e-3, 0},
 }
 
 // Limits that keep every parse bounded.
@@ -362,7 +367,7 @@ func (p *unitParser) digits(super bool) (int, error) {
 func isDigit(r rune) bool { return r >= '0' && r <= '9' }
 
 func isSymbolRune(r rune) bool {
-	return (r >= 'a' && r <= 'z') || (r >= 'A' && r <= 'Z') || r == '°'
+	return (r >= 'a' && r <= 'z') || (r >= 'A' && r <= 'Z') || r == '°' || r == 'Å' || r == '\u212b'
 }
 
 func superDigit(r rune) int {

@@ -14,12 +14,14 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 	fs := newFlags("approach", "approach [--mixture NAME] [--format text|csv|json|markdown] FILE",
 		"For each mixture of the network (or the one named) and each reaction whose\n"+
 			"species it lists: the reaction quotient Q on the network's activity\n"+
-			"conventions (gas p/p°, solute m/(1 mol/kg), solution mole fraction, pure\n"+
-			"phase 1), K at the mixture's temperature, ΔrG = ΔrG° + RT ln Q, which way\n"+
-			"the reaction would run (equilibrium when |ΔrG| is within the settings'\n"+
-			"tolerance), and the approach to equilibrium: the temperature at which K\n"+
-			"would equal Q, and the mixture's temperature minus it. Diagnostics go to\n"+
-			"stderr; a network with errors gives no numbers (exit status 1).\n\n"+
+			"conventions (gas p/p°, solute γ·m/(1 mol/kg) with γ from the network's\n"+
+			"activity model, solution mole fraction, pure phase 1), K at the mixture's\n"+
+			"temperature, ΔrG = ΔrG° + RT ln Q, which way the reaction would run\n"+
+			"(equilibrium when |ΔrG| is within the settings' tolerance), and the\n"+
+			"approach to equilibrium: the temperature at which K would equal Q, and\n"+
+			"the mixture's temperature minus it. A mixture with solutes also shows\n"+
+			"its ionic strength, each solute's γ and water's activity. Diagnostics go\n"+
+			"to stderr; a network with errors gives no numbers (exit status 1).\n\n"+
 			cautionText, stderr)
 	format := &choice{value: "text", allowed: []string{"text", "csv", "json", "markdown"}}
 	fs.Var(format, "format", "output format: text, csv, json or markdown")

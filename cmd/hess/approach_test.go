@@ -225,3 +225,60 @@ mixture warm { temperature 333.15 K AgCl(s) Ag+(aq) 1e-5 mol/kg Cl-(aq) 0.1 mol/
 		t.Errorf("CSV lacks the reaction without a quotient:\n%s", stdout.String())
 	}
 }
+
+// TestApproachSolutionJSON: the scrubber's sump lists its solutes under the
+// Davies model; the JSON gives the ionic strength, I = ½ Σ m z² over the
+// listed molalities, and each solute's γ, and the quotients use γ·m.
+func TestApproachSolutionJSON(t *testing.T) {
+	inRoot(t)
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"approach", "--format", "json", "--mixture", "sump", "examples/flue-gas-scrubber.hess"}, &stdout, &stderr); code != exitOK {
+		t.Fatalf("exit %d: %s", code, stderr.String())
+	}
+	var doc struct {
+		Mixtures []struct {
+			Reactions []map[string]any `json:"reactions"`
+			Solution  struct {
+				Model   string  `json:"activityModel"`
+				I       float64 `json:"ionicStrength_mol_kg"`
+				Water   string  `json:"water"`
+				Aw      float64 `json:"waterActivity"`
+				Solutes []struct {
+					Species  string  `json:"species"`
+					Molality float64 `json:"molality"`
+					Gamma    float64 `json:"activityCoefficient"`
+				} `json:"solutes"`
+			} `json:"solution"`
+		} `json:"mixtures"`
+	}
+	if err := json.Unmarshal(stdout.Bytes(), &doc); err != nil {
+		t.Fatal(err)
+	}
+	s := doc.Mixtures[0].Solution
+	charge := map[string]float64{"SO2(aq)": 0, "CO2(aq)": 0, "H+(aq)": 1, "OH-(aq)": -1, "HSO3-(aq)": -1,
+		"SO3^2-(aq)": -2, "HCO3-(aq)": -1, "Ca^2+(aq)": 2}
+	I := 0.0
+	a := map[string]float64{}
+	for _, so := range s.Solutes {
+		z, ok := charge[so.Species]
+		if !ok {
+			t.Fatalf("unexpected solute %s", so.Species)
+		}
+		I += so.Molality * z * z / 2
+		a[so.Species] = so.Gamma * so.Molality
+		if z != 0 && !(so.Gamma < 1) {
+			t.Errorf("%s: γ = %g, want below 1 for an ion", so.Species, so.Gamma)
+		}
+	}
+	if s.Model != "davies" || math.Abs(s.I-I) > 1e-12 || len(s.Solutes) != 8 || s.Water != "H2O(l)" || !(s.Aw < 1) {
+		t.Fatalf("solution %+v; want davies, I = %g", s, I)
+	}
+	for _, r := range doc.Mixtures[0].Reactions {
+		if r["name"] == "co2-acid" {
+			want := a["HCO3-(aq)"] * a["H+(aq)"] / (a["CO2(aq)"] * s.Aw)
+			if q := r["Q"].(float64); math.Abs(q/want-1) > 1e-8 {
+				t.Errorf("co2-acid Q = %g, want γ·m product %g", q, want)
+			}
+		}
+	}
+}

@@ -122,6 +122,9 @@ func renderApproachText(w io.Writer, doc *approachDoc) error {
 	cols := approachColumns()
 	for _, a := range doc.Approaches {
 		fmt.Fprintf(&b, "\n%s\n", mixtureHeading(a))
+		if a.Solution != nil {
+			writeSolutionText(&b, a.Solution)
+		}
 		cells := [][]string{make([]string, len(cols))}
 		for i, c := range cols {
 			cells[0][i] = c.header

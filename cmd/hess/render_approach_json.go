@@ -22,6 +22,26 @@ type jsonMixtureResult struct {
 	T           jsonNumber             `json:"T_K"`
 	PressureBar jsonNumber             `json:"pressure_bar"`
 	Reactions   []jsonReactionApproach `json:"reactions"`
+	// Solution is the aqueous part (absent when the mixture lists no solute).
+	Solution *jsonSolution `json:"solution,omitempty"`
+}
+
+// jsonSolution is a mixture's solutes under the network's activity model.
+type jsonSolution struct {
+	ActivityModel string       `json:"activityModel"`
+	IonicStrength jsonNumber   `json:"ionicStrength_mol_kg"`
+	Beyond        bool         `json:"beyondModelRange"`
+	Water         *string      `json:"water"`
+	WaterActivity jsonNumber   `json:"waterActivity"`
+	Solutes       []jsonSolute `json:"solutes"`
+	Note          *string      `json:"note,omitempty"`
+}
+
+type jsonSolute struct {
+	Species             string     `json:"species"`
+	Molality            jsonNumber `json:"molality"`
+	ActivityCoefficient jsonNumber `json:"activityCoefficient"`
+	Activity            jsonNumber `json:"activity"`
 }
 
 // jsonReactionApproach is one reaction in a mixture; unknown values and an
@@ -88,6 +108,24 @@ func jsonMixture(a *equilibrium.MixtureApproach) jsonMixtureResult {
 		nan := jsonNumber(math.NaN())
 		jm.Reactions = append(jm.Reactions, jsonReactionApproach{Name: ab.Reaction.Name, Q: nan, K: nan, Log10QOverK: nan, DG: nan,
 			EquilibriumT: nan, Approach: nan, EquilibriumTs: []jsonNumber{}, Reason: &reason})
+	}
+	if s := a.Solution; s != nil {
+		js := &jsonSolution{ActivityModel: s.Model, IonicStrength: jsonNumber(s.I), Beyond: s.Beyond,
+			WaterActivity: jsonNumber(s.WaterActivity), Solutes: make([]jsonSolute, 0, len(s.Solutes))}
+		if s.Water != nil {
+			js.Water = &s.Water.Key
+		} else {
+			js.WaterActivity = jsonNumber(math.NaN())
+		}
+		if s.Err != nil {
+			note := s.Err.Error() + ": activity coefficients taken as 1"
+			js.Note = &note
+		}
+		for _, a := range s.Solutes {
+			js.Solutes = append(js.Solutes, jsonSolute{Species: a.Species.Key, Molality: jsonNumber(a.Molality),
+				ActivityCoefficient: jsonNumber(a.Gamma), Activity: jsonNumber(a.Activity)})
+		}
+		jm.Solution = js
 	}
 	return jm
 }

@@ -15,6 +15,9 @@ func renderApproachMarkdown(w io.Writer, doc *approachDoc) error {
 	cols := approachColumns()
 	for _, a := range doc.Approaches {
 		fmt.Fprintf(&b, "\n## %s\n\n", mdEscape(mixtureHeading(a)))
+		if a.Solution != nil {
+			writeSolutionMarkdown(&b, a.Solution)
+		}
 		if len(a.Reactions) > 0 {
 			b.WriteString("|")
 			for _, c := range cols {
