@@ -61,10 +61,13 @@ type Location struct {
 
 // InitializeParams is what the client says about itself in initialize.
 type InitializeParams struct {
-	ProcessID    *int               `json:"processId"`
-	RootURI      *string            `json:"rootUri"`
-	ClientInfo   *ClientInfo        `json:"clientInfo,omitempty"`
-	Capabilities ClientCapabilities `json:"capabilities"`
+	ProcessID *int    `json:"processId"`
+	RootURI   *string `json:"rootUri"`
+	// WorkspaceFolders are the folders open in the editor; includes may
+	// read from them (as from the root document's own folder tree).
+	WorkspaceFolders []WorkspaceFolder  `json:"workspaceFolders,omitempty"`
+	ClientInfo       *ClientInfo        `json:"clientInfo,omitempty"`
+	Capabilities     ClientCapabilities `json:"capabilities"`
 }
 
 // ClientInfo names the client.
@@ -264,4 +267,10 @@ type DocumentFormattingParams struct {
 type TextEdit struct {
 	Range   Range  `json:"range"`
 	NewText string `json:"newText"`
+}
+
+// WorkspaceFolder is one folder open in the editor.
+type WorkspaceFolder struct {
+	URI  string `json:"uri"`
+	Name string `json:"name"`
 }

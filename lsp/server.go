@@ -35,6 +35,10 @@ type Options struct {
 	// Files reads the files of a network that are not open in the editor;
 	// nil reads the disk.
 	Files network.Source
+	// IncludePaths are folders includes may read from besides the root
+	// document's folder tree and the workspace folders (hess lsp
+	// --include-path).
+	IncludePaths []string
 }
 
 // lifecycle is where the server is between initialize and exit.
@@ -53,12 +57,15 @@ type server struct {
 	docs   *store
 	worker *worker
 
-	mu     sync.Mutex
-	state  lifecycle
-	enc    encoding
-	mdOK   bool // the client renders markdown in hovers
-	status int  // exit status, once exit has arrived
-	exited bool
+	mu    sync.Mutex
+	state lifecycle
+	enc   encoding
+	mdOK  bool // the client renders markdown in hovers
+	// folders are the workspace folders the client named at initialize
+	// (its root URI when it named none).
+	folders []string
+	status  int // exit status, once exit has arrived
+	exited  bool
 
 	exitOnce sync.Once
 	exitCh   chan struct{} // closed when exit arrives
@@ -288,6 +295,7 @@ func (s *server) initialize(ctx context.Context, req *jsonrpc2.Request) (any, er
 			}
 		}
 	}
+	s.folders = workspaceFolders(p, s.log)
 	s.state = running
 	return InitializeResult{
 		Capabilities: ServerCapabilities{
@@ -331,4 +339,35 @@ func (s *server) encoding() encoding {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	return s.enc
+}
+
+// workspaceFolders are the paths of the client's workspace folders, or of
+// its root URI when it names none. URIs that are not file: URIs are logged
+// and skipped.
+func workspaceFolders(p InitializeParams, log *log.Logger) []string {
+	uris := make([]string, 0, len(p.WorkspaceFolders))
+	for _, f := range p.WorkspaceFolders {
+		uris = append(uris, f.URI)
+	}
+	if len(uris) == 0 && p.RootURI != nil && *p.RootURI != "" {
+		uris = append(uris, *p.RootURI)
+	}
+	var out []string
+	for _, u := range uris {
+		path, err := uriToPath(u)
+		if err != nil {
+			log.Printf("workspace folder %q skipped: %v", u, err)
+			continue
+		}
+		out = append(out, path)
+	}
+	return out
+}
+
+// includePaths are the folders, besides a root document's own folder
+// tree, that its includes may read from.
+func (s *server) includePaths() []string {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	return append(append([]string(nil), s.opts.IncludePaths...), s.folders...)
 }

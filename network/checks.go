@@ -35,6 +35,7 @@ func (p *Pass) Reportf(span lang.Span, format string, args ...any) {
 var checks = []*Check{
 	syntaxCheck,
 	includeMissingCheck,
+	includeRefusedCheck,
 	includeCycleCheck,
 	misplacedSettingsCheck,
 	unknownElementCheck,

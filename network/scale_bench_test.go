@@ -35,7 +35,7 @@ func BenchmarkLoadSynthetic(b *testing.B) {
 			b.SetBytes(int64(bytes))
 			b.ReportAllocs()
 			for b.Loop() {
-				n := Load(root, src)
+				n := Load(root, src, Options{})
 				if len(n.Reactions) != size.reactions {
 					b.Fatalf("%d reactions", len(n.Reactions))
 				}
@@ -50,7 +50,7 @@ func BenchmarkLoadSynthetic(b *testing.B) {
 // compile can be read check by check.
 func BenchmarkChecksSynthetic(b *testing.B) {
 	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
+	n := Load(root, src, Options{})
 	base := n.Diagnostics
 	for _, c := range checks {
 		if c.Run == nil {
@@ -71,7 +71,7 @@ func BenchmarkChecksSynthetic(b *testing.B) {
 // themselves.
 func BenchmarkCycleCheckSynthetic(b *testing.B) {
 	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
+	n := Load(root, src, Options{})
 	base := n.Diagnostics
 	b.ReportAllocs()
 	for b.Loop() {

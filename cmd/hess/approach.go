@@ -23,6 +23,7 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 	format := &choice{value: "text", allowed: []string{"text", "csv", "json", "markdown"}}
 	fs.Var(format, "format", "output format: text, csv, json or markdown")
 	mixture := fs.String("mixture", "", "evaluate only the mixture of this `NAME`")
+	includes := includePathFlag(fs)
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -32,7 +33,7 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	doc, status := approachDocument(files[0], *mixture, stderr)
+	doc, status := approachDocument(files[0], *mixture, network.Options{IncludePaths: *includes}, stderr)
 	if doc == nil {
 		return status
 	}
@@ -59,8 +60,8 @@ type approachDoc struct {
 // approachDocument compiles root, reports its diagnostics on stderr and
 // evaluates the named mixture (every mixture when name is empty). It
 // returns nil and the exit status when there is nothing to print.
-func approachDocument(root, name string, stderr io.Writer) (*approachDoc, int) {
-	net, status := compileRoot("approach", root, stderr)
+func approachDocument(root, name string, opts network.Options, stderr io.Writer) (*approachDoc, int) {
+	net, status := compileRoot("approach", root, opts, stderr)
 	if net == nil {
 		return nil, status
 	}

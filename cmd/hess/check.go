@@ -21,6 +21,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	fs.Var(format, "format", "report format: text, json or sarif")
 	fs.Var(color, "color", "colour text output: auto, always or never")
 	strict := fs.Bool("strict", false, "treat warnings as errors for the exit status")
+	includes := includePathFlag(fs)
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -30,7 +31,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	rep, trouble := compileAll(files, stderr)
+	rep, trouble := compileAll(files, network.Options{IncludePaths: *includes}, stderr)
 	if trouble {
 		return exitTrouble
 	}
@@ -61,7 +62,7 @@ func findingsStatus(ds lang.Diagnostics, strict bool) int {
 // compileAll loads each root file and merges the results into one report
 // with display file names. It reports trouble (and says why on stderr) when
 // a root file cannot be read.
-func compileAll(roots []string, stderr io.Writer) (*report, bool) {
+func compileAll(roots []string, opts network.Options, stderr io.Writer) (*report, bool) {
 	rep := &report{}
 	sources := map[string][]byte{}
 	seenFile := map[string]bool{}
@@ -71,7 +72,7 @@ func compileAll(roots []string, stderr io.Writer) (*report, bool) {
 			fmt.Fprintf(stderr, "hess: cannot read %s: %v\n", root, unwrapPathError(err))
 			return nil, true
 		}
-		net := network.Load(root, network.Disk{})
+		net := network.Load(root, network.Disk{}, opts)
 		if len(net.Files) == 0 {
 			fmt.Fprintf(stderr, "hess: %s\n", unreadableRoot(root, net))
 			return nil, true
@@ -100,10 +101,11 @@ func compileAll(roots []string, stderr io.Writer) (*report, bool) {
 }
 
 // unreadableRoot says why a root file gave no network: the loader's
-// message (it is a folder, permission denied, …) when it has one.
+// message (it is a folder, a named pipe, permission denied, …) when it has
+// one.
 func unreadableRoot(root string, net *network.Network) string {
 	for _, d := range net.Diagnostics {
-		if strings.HasPrefix(d.Message, "cannot read ") {
+		if !d.Subject.IsValid() && (strings.HasPrefix(d.Message, "cannot read ") || strings.HasPrefix(d.Message, "refusing ")) {
 			return d.Message
 		}
 	}

@@ -143,7 +143,7 @@ func TestNeovimClient(t *testing.T) {
 	readJSON(t, filepath.Join(dir, "hover.json"), &hover, out)
 	// The example's data may be revised: take the expected label, enthalpy
 	// and source from the compiler.
-	co := network.Load(file, network.Disk{}).LookupSpecies("CO(g)")
+	co := network.Load(file, network.Disk{}, network.Options{}).LookupSpecies("CO(g)")
 	if co == nil || co.Hf == nil {
 		t.Fatalf("the example has no CO(g) with hf")
 	}

@@ -41,6 +41,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 	temps := fs.String("temperatures", "", "span of temperatures to draw, e.g. \"600 K to 1200 K by 100 K\"")
 	var names nameList
 	fs.Var(&names, "reaction", "draw this reaction (repeatable; default: every reaction)")
+	includes := includePathFlag(fs)
 	out := fs.String("o", "", "write the plot to `FILE` (.svg or .png)")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
@@ -57,7 +58,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	doc, status := tabulate("plot", files[0], *temps, names, stderr)
+	doc, status := tabulate("plot", files[0], *temps, names, *includes, stderr)
 	if doc == nil {
 		return status
 	}
