@@ -1,0 +1,107 @@
+//go:build linux
+
+package main
+
+import (
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"syscall"
+	"testing"
+)
+
+// Includes that would block, read without end, leave the project or print
+// what is not a network: each is refused with a diagnostic, quickly.
+func TestHostileIncludes(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	const tail = "\nspecies H2(g)\n"
+	for _, tc := range []struct {
+		name, src string
+		args      []string // before the file
+		want      []string
+	}{
+		{"device /dev/zero", `include "/dev/zero"`, []string{"--include-path", "/"},
+			[]string{"refusing /dev/zero: it is a character device", "[include-refused]"}},
+		{"device /dev/urandom", `include "/dev/urandom"`, []string{"--include-path", "/"},
+			[]string{"refusing /dev/urandom: it is a character device"}},
+		{"standard input, a pipe", `include "/dev/stdin"`, []string{"--include-path", "/"},
+			[]string{"refusing /dev/stdin: it is a named pipe"}},
+		{"absolute path outside the folder", `include "/etc/hostname"`, nil,
+			[]string{"/etc/hostname lies outside the folders includes may come from (.)", "--include-path"}},
+		{"relative path outside the folder", `include "../outside.hess"`, nil,
+			[]string{"../outside.hess lies outside the folders includes may come from (.)"}},
+		{"the environment", `include "/proc/self/environ"`, nil,
+			[]string{"/proc/self/environ resolves to /proc/", "outside the folders includes may come from"}},
+		{"empty path", `include ""`, nil, []string{"1:1: error: an include must name a file; this one is empty [include-refused]"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			dir := t.TempDir()
+			writeFile(t, filepath.Join(dir, "net.hess"), tc.src+tail, 0o644)
+			r := runBounded(t, dir, "", "", append(append([]string{"check"}, tc.args...), "net.hess")...)
+			expectRun(t, r, exitFindings, tc.want...)
+		})
+	}
+
+	t.Run("named pipe in the folder", func(t *testing.T) {
+		dir := t.TempDir()
+		if err := syscall.Mkfifo(filepath.Join(dir, "lib.hess"), 0o644); err != nil {
+			t.Skipf("mkfifo: %v", err)
+		}
+		writeFile(t, filepath.Join(dir, "net.hess"), `include "lib.hess"`+tail, 0o644)
+		expectRun(t, runBounded(t, dir, "", "", "check", "net.hess"), exitFindings, "refusing lib.hess: it is a named pipe")
+		expectRun(t, runBounded(t, dir, "", "", "check", "lib.hess"), exitTrouble, "refusing lib.hess: it is a named pipe")
+	})
+
+	t.Run("link out of the folder", func(t *testing.T) {
+		dir := t.TempDir()
+		outside := t.TempDir()
+		writeFile(t, filepath.Join(outside, "lib.hess"), "species O2(g)\n", 0o644)
+		if err := os.Symlink(filepath.Join(outside, "lib.hess"), filepath.Join(dir, "lib.hess")); err != nil {
+			t.Fatal(err)
+		}
+		writeFile(t, filepath.Join(dir, "net.hess"), `include "lib.hess"`+tail, 0o644)
+		expectRun(t, runBounded(t, dir, "", "", "check", "net.hess"), exitFindings, "lib.hess resolves to "+filepath.Join(outside, "lib.hess")+", outside")
+		// Named with --include-path, the library's folder is allowed.
+		expectRun(t, runBounded(t, dir, "", "", "check", "--include-path", outside, "net.hess"), exitOK)
+	})
+
+	t.Run("the environment, allowed, is not quoted", func(t *testing.T) {
+		dir := t.TempDir()
+		writeFile(t, filepath.Join(dir, "net.hess"), `include "/proc/self/environ"`+tail, 0o644)
+		t.Setenv("HESS_HOSTILE_SECRET", "do-not-print-this-value")
+		r := runBounded(t, dir, "", "", "check", "--include-path", "/proc", "net.hess")
+		expectRun(t, r, exitFindings, "/proc/self/environ does not read as a network file: it holds NUL bytes; only its first line is shown")
+		if strings.Contains(r.stdout+r.stderr, "do-not-print-this-value") {
+			t.Errorf("the environment was printed:\n%s", r.stdout)
+		}
+	})
+
+	t.Run("2 000-file include chain", func(t *testing.T) {
+		dir := t.TempDir()
+		const n = 2000
+		for i := range n {
+			src := fmt.Sprintf("species C%dH4(g)\n", i+1)
+			if i+1 < n {
+				src = fmt.Sprintf("include \"f%d.hess\"\n", i+1) + src
+			}
+			writeFile(t, filepath.Join(dir, fmt.Sprintf("f%d.hess", i)), src, 0o644)
+		}
+		expectRun(t, runBounded(t, dir, "", "", "check", "f0.hess"), exitOK)
+	})
+
+	t.Run("include depth past the limit", func(t *testing.T) {
+		dir := t.TempDir()
+		const n = 4200
+		for i := range n {
+			writeFile(t, filepath.Join(dir, fmt.Sprintf("f%d.hess", i)), fmt.Sprintf("include \"f%d.hess\"\n", i+1), 0o644)
+		}
+		r := runBounded(t, dir, "", "", "check", "f0.hess")
+		expectRun(t, r, exitFindings, "includes nest deeper than 4096 files, the limit on include depth", "… 4088 more …")
+		if len(r.stdout) > 4096 {
+			t.Errorf("report of %d bytes for one refusal", len(r.stdout))
+		}
+	})
+}
