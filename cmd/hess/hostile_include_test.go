@@ -3,8 +3,13 @@
 package main
 
 import (
+	"bufio"
+	"context"
+	"encoding/json"
 	"fmt"
+	"io"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"strings"
 	"syscall"
@@ -104,4 +109,115 @@ func TestHostileIncludes(t *testing.T) {
 			t.Errorf("report of %d bytes for one refusal", len(r.stdout))
 		}
 	})
+}
+
+// The language server, as built, over its own standard input and output:
+// a document including /dev/stdin must not read the protocol pipe, and no
+// hostile document stops it serving a normal one.
+func TestHostileLanguageServer(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	dir := t.TempDir()
+	if err := syscall.Mkfifo(filepath.Join(dir, "fifo.hess"), 0o644); err != nil {
+		t.Skipf("mkfifo: %v", err)
+	}
+	ctx, cancel := context.WithTimeout(context.Background(), hostileDeadline)
+	defer cancel()
+	cmd := exec.CommandContext(ctx, hessBinary(t), "lsp")
+	stdin, err := cmd.StdinPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	stdout, err := cmd.StdoutPipe()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	defer cmd.Wait()
+	defer stdin.Close()
+	send := func(msg map[string]any) {
+		msg["jsonrpc"] = "2.0"
+		b, _ := json.Marshal(msg)
+		fmt.Fprintf(stdin, "Content-Length: %d\r\n\r\n%s", len(b), b)
+	}
+	frames := make(chan map[string]any, 64)
+	go func() {
+		defer close(frames)
+		r := bufio.NewReader(stdout)
+		for {
+			var n int
+			for {
+				line, err := r.ReadString('\n')
+				if err != nil {
+					return
+				}
+				line = strings.TrimSpace(line)
+				if line == "" {
+					break
+				}
+				fmt.Sscanf(line, "Content-Length: %d", &n)
+			}
+			body := make([]byte, n)
+			if _, err := io.ReadFull(r, body); err != nil {
+				return
+			}
+			var m map[string]any
+			json.Unmarshal(body, &m)
+			frames <- m
+		}
+	}()
+	// diagnosticsOf waits for the publish of uri and returns its text.
+	diagnosticsOf := func(uri string) string {
+		t.Helper()
+		for m := range frames {
+			if m["method"] != "textDocument/publishDiagnostics" {
+				continue
+			}
+			if p, _ := m["params"].(map[string]any); p["uri"] == uri {
+				b, _ := json.Marshal(p["diagnostics"])
+				return string(b)
+			}
+		}
+		t.Fatalf("the server stopped before publishing %s", uri)
+		return ""
+	}
+	send(map[string]any{"id": 1, "method": "initialize", "params": map[string]any{
+		"processId": nil, "capabilities": map[string]any{},
+		"workspaceFolders": []map[string]any{{"uri": "file://" + dir, "name": "w"}, {"uri": "file:///dev", "name": "dev"}},
+	}})
+	send(map[string]any{"method": "initialized", "params": map[string]any{}})
+	for i, tc := range []struct{ include, want string }{
+		{"/dev/stdin", "refusing /dev/stdin: it is a named pipe"},
+		{"/dev/zero", "refusing /dev/zero: it is a character device"},
+		{"fifo.hess", "it is a named pipe"},
+		{"/proc/self/environ", "outside the folders includes may come from"},
+		{"", "must name a file"},
+	} {
+		uri := fmt.Sprintf("file://%s/hostile%d.hess", dir, i)
+		send(map[string]any{"method": "textDocument/didOpen", "params": map[string]any{"textDocument": map[string]any{
+			"uri": uri, "languageId": "hess", "version": 1, "text": fmt.Sprintf("include %q\nspecies H2(g)\n", tc.include)}}})
+		if got := diagnosticsOf(uri); !strings.Contains(got, tc.want) {
+			t.Errorf("include %q: %s", tc.include, got)
+		}
+	}
+	uri := "file://" + dir + "/normal.hess"
+	send(map[string]any{"method": "textDocument/didOpen", "params": map[string]any{"textDocument": map[string]any{
+		"uri": uri, "languageId": "hess", "version": 1, "text": "species H2(g), H(g)\nreaction split: H2(g) <-> H(g)\n"}}})
+	if got := diagnosticsOf(uri); !strings.Contains(got, "element-imbalance") {
+		t.Errorf("normal document: %s", got)
+	}
+	send(map[string]any{"id": 2, "method": "shutdown"})
+	send(map[string]any{"method": "exit"})
+	stdin.Close()
+	for range frames {
+	}
+	if err := cmd.Wait(); err != nil || ctx.Err() != nil {
+		t.Errorf("hess lsp: %v (%v)", err, ctx.Err())
+	}
+	if cpu := cmd.ProcessState.UserTime() + cmd.ProcessState.SystemTime(); cpu > hostileCPU {
+		t.Errorf("hess lsp took %v of CPU", cpu)
+	}
 }
