@@ -249,7 +249,7 @@ func TestApproachRefusesBadMixtures(t *testing.T) {
 			n := network.Load(path, network.Disk{}, examplesAllowed)
 			found := false
 			for _, d := range n.Diagnostics {
-				if d.Code == tc.code && strings.Contains(d.Message, tc.text) {
+				if string(d.Code) == tc.code && strings.Contains(d.Message, tc.text) {
 					found = true
 				}
 			}

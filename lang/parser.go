@@ -325,7 +325,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 	if first.Type != Keyword || !statementKeywords[first.Value] {
 		span := TokenSpan(first)
 		return result{diags: Diagnostics{{
-			Code:     "syntax",
+			Code:     CodeSyntax,
 			Severity: Error,
 			Message:  notAStatement + describe(first),
 			Subject:  span,

@@ -80,12 +80,12 @@ func collect(roots []*compiled, snap *snapshot, uriOf func(string) string, enc e
 			if d.Detail != "" {
 				msg += "\n" + d.Detail
 			}
-			k := key{path, r, d.Code, msg}
+			k := key{path, r, string(d.Code), msg}
 			if seen[k] {
 				continue
 			}
 			seen[k] = true
-			pd := Diagnostic{Range: r, Severity: severity(d.Severity), Code: d.Code, Source: "hess", Message: msg}
+			pd := Diagnostic{Range: r, Severity: severity(d.Severity), Code: string(d.Code), Source: "hess", Message: msg}
 			for _, rel := range d.Related {
 				rp, rr := snap.spanRange(c.net, rel.Span, enc)
 				pd.RelatedInformation = append(pd.RelatedInformation, DiagnosticRelatedInformation{

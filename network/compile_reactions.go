@@ -77,7 +77,7 @@ func (c *compiler) addReaction(b builtReaction) {
 		}
 	}
 	if old, dup := c.net.reactionByName[rx.Name]; dup {
-		d := c.report("duplicate-reaction-name", rx.NameSpan, "reaction name %s is used twice", rx.Name)
+		d := c.report(duplicateReactionNameCheck, rx.NameSpan, "reaction name %s is used twice", rx.Name)
 		d.Related = []lang.Related{{Span: old.NameSpan, Message: "first used here"}}
 		return
 	}
@@ -120,10 +120,10 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 			q, err := parseRat(t.Coef.Text)
 			switch {
 			case err != nil:
-				c.report("syntax", t.Coef.Span(), "%v", err)
+				c.report(syntaxCheck, t.Coef.Span(), "%v", err)
 				resolved = false
 			case q.Sign() <= 0:
-				c.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
+				c.report(syntaxCheck, t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
 				resolved = false
 			default:
 				term.Coef = q
@@ -154,7 +154,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, err)
 		return
 	}
 	msg := fmt.Sprintf("species %s is not declared", parts.Canonical())
@@ -168,7 +168,7 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 		sort.Strings(near)
 		msg += "; declared: " + strings.Join(near, ", ")
 	}
-	c.report("undefined-species", ref.Span(), "%s", msg)
+	c.report(undefinedSpeciesCheck, ref.Span(), "%s", msg)
 }
 
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
@@ -178,7 +178,7 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 		name := pr.Tokens[0].Value
 		if name != "logk" {
 			if first, dup := seen.add(name, key); dup {
-				d := c.report("syntax", key, "%s is given twice for reaction %s", name, rx.Name)
+				d := c.report(syntaxCheck, key, "%s is given twice for reaction %s", name, rx.Name)
 				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
 				continue
 			}
@@ -236,14 +236,14 @@ func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
 			return
 		}
 		if t.V <= 0 {
-			c.report("implausible-value", l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
+			c.report(implausibleValueCheck, l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
 			return
 		}
 		lk.T = t.V
 	}
 	for _, old := range rx.LogK {
 		if old.T == lk.T {
-			d := c.report("syntax", l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
+			d := c.report(syntaxCheck, l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
 			d.Related = []lang.Related{{Span: old.Span, Message: "first given here"}}
 			return
 		}
@@ -281,7 +281,7 @@ func (c *compiler) combination(r *lang.Reaction) {
 	}
 	for i, t := range r.Combo.Terms {
 		if i > 0 && t.Sign == "" {
-			c.report("syntax", t.Span(), "terms of a combination are joined by + or -")
+			c.report(syntaxCheck, t.Span(), "terms of a combination are joined by + or -")
 			rx.Combo = nil
 			return
 		}
@@ -289,7 +289,7 @@ func (c *compiler) combination(r *lang.Reaction) {
 		if t.Coef != nil {
 			v, err := parseRat(t.Coef.Text)
 			if err != nil {
-				c.report("syntax", t.Coef.Span(), "%v", err)
+				c.report(syntaxCheck, t.Coef.Span(), "%v", err)
 				rx.Combo = nil
 				return
 			}
@@ -301,9 +301,9 @@ func (c *compiler) combination(r *lang.Reaction) {
 		ct := ComboTerm{Weight: w, Name: t.Name.Name, Span: t.Span()}
 		ct.Reaction = c.net.reactionByName[ct.Name]
 		if ct.Reaction == nil {
-			c.report("undefined-reaction", t.Name.Span(), "reaction %s is not defined", ct.Name)
+			c.report(undefinedReactionCheck, t.Name.Span(), "reaction %s is not defined", ct.Name)
 		} else if ct.Reaction == rx {
-			c.report("undefined-reaction", t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
+			c.report(undefinedReactionCheck, t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
 			ct.Reaction = nil
 		}
 		rx.Combo = append(rx.Combo, ct)

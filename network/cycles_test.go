@@ -36,7 +36,7 @@ func cycleSums(t *testing.T, n *Network, q quantity) (order []string, sums map[s
 func diagnosticsOf(n *Network, code string) []string {
 	var out []string
 	for _, d := range n.Diagnostics {
-		if d.Code == code {
+		if string(d.Code) == code {
 			out = append(out, d.Message)
 		}
 	}

@@ -18,6 +18,9 @@ func FuzzCompile(f *testing.F) {
 			if d.Code == "" || d.Severity == 0 {
 				t.Fatalf("diagnostic without code or severity: %+v", d)
 			}
+			if byCode(d.Code) == nil {
+				t.Fatalf("diagnostic with the unregistered code %q: %+v", d.Code, d)
+			}
 		}
 	})
 }

@@ -175,16 +175,16 @@ func (l *loader) admit(path, id string, at lang.Span) bool {
 // refuse reports an include-refused diagnostic at the include statement.
 func (l *loader) refuse(at lang.Span, format string, args ...any) {
 	l.net.Diagnostics = append(l.net.Diagnostics, lang.Diagnostic{
-		Code: includeRefusedCheck.Name, Message: fmt.Sprintf(format, args...), Subject: at,
+		Code: includeRefusedCheck.Code(), Message: fmt.Sprintf(format, args...), Subject: at,
 	})
 }
 
 // readError reports a file that could not be read or was refused.
 func (l *loader) readError(path string, at lang.Span, err error) {
-	code := includeMissingCheck.Name
+	code := includeMissingCheck.Code()
 	var msg string
 	if r, ok := isRefused(err); ok {
-		code = includeRefusedCheck.Name
+		code = includeRefusedCheck.Code()
 		msg = fmt.Sprintf("refusing %s: %s", path, r.Reason)
 	} else {
 		msg = fmt.Sprintf("cannot read %s: %v", path, describeReadError(err))
@@ -203,7 +203,7 @@ func (l *loader) cycle(i int, path string, at lang.Span) {
 	}
 	names = append(names, path)
 	d := lang.Diagnostic{
-		Code:    includeCycleCheck.Name,
+		Code:    includeCycleCheck.Code(),
 		Message: "includes form a cycle: " + elideChain(names),
 		Subject: at,
 	}
@@ -319,7 +319,7 @@ func quoteFirstLine(f *File, why string) (*File, lang.Diagnostics) {
 	start := lang.Pos{Line: 1, Column: 1}
 	end := lang.Pos{Line: 1, Column: 1 + utf8.RuneCount(line), Offset: len(line)}
 	d := lang.Diagnostic{
-		Code:    syntaxCheck.Name,
+		Code:    syntaxCheck.Code(),
 		Message: fmt.Sprintf("%s does not read as a network file: %s; only its first line is shown", f.Path, why),
 		Subject: lang.Span{File: f.Path, Start: start, End: end},
 	}

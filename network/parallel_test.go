@@ -58,7 +58,7 @@ func TestParallelMatchesSerial(t *testing.T) {
 
 func containsCode(n *Network, code string) bool {
 	for _, d := range n.Diagnostics {
-		if d.Code == code {
+		if string(d.Code) == code {
 			return true
 		}
 	}

@@ -19,7 +19,7 @@ reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
 `
 	temperatureCodes := func(n *Network) (out []lang.Diagnostic) {
 		for _, d := range n.Diagnostics {
-			if d.Code == extrapolationCheck.Name || d.Code == missingThermoCheck.Name {
+			if string(d.Code) == extrapolationCheck.Name || string(d.Code) == missingThermoCheck.Name {
 				out = append(out, d)
 			}
 		}

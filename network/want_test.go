@@ -68,10 +68,10 @@ func TestCheckExpectations(t *testing.T) {
 			for _, d := range n.Diagnostics {
 				found := false
 				for i, w := range wants {
-					if !matched[i] && w.code == d.Code && sameFile(w.file, d.Subject.File) &&
+					if !matched[i] && w.code == string(d.Code) && sameFile(w.file, d.Subject.File) &&
 						w.line == d.Subject.Start.Line && strings.Contains(d.Message, w.text) {
 						matched[i], found = true, true
-						covered[d.Code] = true
+						covered[string(d.Code)] = true
 						break
 					}
 				}
