@@ -10,7 +10,7 @@ import (
 )
 
 func runApproach(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("approach", "approach [--mixture NAME] [--format text|csv|json|markdown] FILE",
+	fs := newFlags("approach", "approach [--mixture NAME] [--format text|csv|json|markdown] [--include-path DIR]... FILE",
 		"For each mixture of the network (or the one named) and each reaction whose\n"+
 			"species it lists: the reaction quotient Q on the network's activity\n"+
 			"conventions (gas p/p°, solute m/(1 mol/kg), solution mole fraction, pure\n"+

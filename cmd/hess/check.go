@@ -12,7 +12,7 @@ import (
 )
 
 func runCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] FILE...",
+	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] [--include-path DIR]... FILE...",
 		"Compile each root file with everything it includes, run every check, and\n"+
 			"report the diagnostics. Exit status: 0 when there are no errors (and, with\n"+
 			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.", stderr)

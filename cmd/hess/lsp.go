@@ -10,7 +10,7 @@ import (
 )
 
 func runLSP(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("lsp", "lsp",
+	fs := newFlags("lsp", "lsp [--include-path DIR]...",
 		"Run the language server on standard input and output (Language Server\n"+
 			"Protocol 3.17). Editors start it and talk to it; it logs to standard\n"+
 			"error. Exit status: 0 after the editor's shutdown and exit, 1 when the\n"+

@@ -31,7 +31,7 @@ const (
 )
 
 func runPlot(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png FILE",
+	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png [--include-path DIR]... FILE",
 		"Draw a van 't Hoff plot: log10 K against 1000/T, one line per reaction (every\n"+
 			"reaction, or those named), over the span of the settings' temperatures or\n"+
 			"those of --temperatures. Parts computed from data outside their range are\n"+

@@ -20,7 +20,7 @@ const cautionText = "Caution: results are estimates from the data given, no bett
 	"before relying on them."
 
 func runTable(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("table", "table [--format text|csv|json|markdown] [--temperatures LIST] [--reaction NAME]... [-o FILE] FILE",
+	fs := newFlags("table", "table [--format text|csv|json|markdown] [--temperatures LIST] [--reaction NAME]... [-o FILE] [--include-path DIR]... FILE",
 		"Compute each reaction's standard reaction enthalpy, entropy and Gibbs energy,\n"+
 			"its equilibrium constant K (relative to the network's standard pressure p°\n"+
 			"and 1 mol/kg), log10 K, Kc in (mol/L)^Δn, the uncertainty of log10 K and the\n"+

@@ -26,7 +26,7 @@ import (
 const watchDebounce = 100 * time.Millisecond
 
 func runWatch(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("watch", "watch [--table OUT] [--format text|csv|json|markdown] [--color auto|always|never] FILE...",
+	fs := newFlags("watch", "watch [--table OUT] [--format text|csv|json|markdown] [--color auto|always|never] [--include-path DIR]... FILE...",
 		"Check the networks, print the report, then check again whenever a root file\n"+
 			"or a file it includes changes (also when an editor saves by renaming a new\n"+
 			"file over the old one), printing each new report with the time. With\n"+
