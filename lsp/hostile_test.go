@@ -95,3 +95,22 @@ func contains(list []string, s string) bool {
 	}
 	return false
 }
+
+// Two open documents that include each other are each compiled, as before
+// the chain rule (neither's network is taken to stand for the other's), and
+// one of them is published as the root.
+func TestOpenDocumentsIncludingEachOther(t *testing.T) {
+	dir := t.TempDir()
+	a, b := filepath.Join(dir, "a.hess"), filepath.Join(dir, "b.hess")
+	docs := []document{
+		{uri: pathToURI(a), path: a, version: 1, text: []byte("include \"b.hess\"\nspecies H2(g)\n")},
+		{uri: pathToURI(b), path: b, version: 1, text: []byte("include \"a.hess\"\nspecies O2(g)\n")},
+	}
+	s := newServer(Options{})
+	open := map[string]document{a: docs[0], b: docs[1]}
+	overlay := network.Overlay{Files: map[string][]byte{a: docs[0].text, b: docs[1].text}, Base: network.Disk{}}
+	roots := s.worker.chooseRoots(docs, open, overlay)
+	if got := s.worker.compiles.Load(); got != 2 || len(roots) != 1 {
+		t.Errorf("%d compiles, %d roots; want 2 and 1", got, len(roots))
+	}
+}

@@ -218,14 +218,20 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 		return !graph.included[ordered[i].path] && graph.included[ordered[j].path]
 	})
 	coveredBy := map[string]string{}
+	reachers := map[string]map[string]bool{} // root -> open documents that include it
 	for _, d := range ordered {
 		if owner := w.owners[d.path]; owner != "" && owner != d.path {
 			if _, ok := open[owner]; ok {
 				continue
 			}
 		}
-		if r, ok := coveredBy[d.path]; ok && !graph.reaches(d.path, r) {
-			continue
+		if r, ok := coveredBy[d.path]; ok {
+			if reachers[r] == nil {
+				reachers[r] = graph.reaching(r)
+			}
+			if !reachers[r][d.path] {
+				continue
+			}
 		}
 		compileRoot(d.path)
 		if c := nets[d.path]; c != nil {
@@ -410,18 +416,18 @@ func cleanPath(p string) string { return network.PathID(p) }
 
 // includeGraph is how the open documents include one another directly.
 type includeGraph struct {
-	edges    map[string][]string // path -> open documents it includes
+	reverse  map[string][]string // path -> open documents that include it
 	included map[string]bool     // open documents another open document includes
 }
 
 // openIncludes reads the include statements of the open documents (parsing
 // them into the caches the compile then reuses).
 func (w *worker) openIncludes(docs []document, open map[string]document) includeGraph {
-	g := includeGraph{edges: map[string][]string{}, included: map[string]bool{}}
+	g := includeGraph{reverse: map[string][]string{}, included: map[string]bool{}}
 	for _, d := range docs {
 		for _, inc := range network.DirectIncludes(d.path, d.text, w.parsed) {
 			if _, ok := open[inc]; ok && inc != d.path {
-				g.edges[d.path] = append(g.edges[d.path], inc)
+				g.reverse[inc] = append(g.reverse[inc], d.path)
 				g.included[inc] = true
 			}
 		}
@@ -429,23 +435,20 @@ func (w *worker) openIncludes(docs []document, open map[string]document) include
 	return g
 }
 
-// reaches reports whether from includes to, directly or through other open
-// documents.
-func (g includeGraph) reaches(from, to string) bool {
-	seen := map[string]bool{from: true}
-	stack := []string{from}
+// reaching returns the open documents that include to, directly or through
+// other open documents.
+func (g includeGraph) reaching(to string) map[string]bool {
+	seen := map[string]bool{}
+	stack := []string{to}
 	for len(stack) > 0 {
 		p := stack[len(stack)-1]
 		stack = stack[:len(stack)-1]
-		for _, q := range g.edges[p] {
-			if q == to {
-				return true
-			}
+		for _, q := range g.reverse[p] {
 			if !seen[q] {
 				seen[q] = true
 				stack = append(stack, q)
 			}
 		}
 	}
-	return false
+	return seen
 }
