@@ -60,6 +60,17 @@ func TestHostileIncludes(t *testing.T) {
 		expectRun(t, runBounded(t, dir, "", "", "check", "lib.hess"), exitTrouble, "refusing lib.hess: it is a named pipe")
 	})
 
+	t.Run("file past the size limit", func(t *testing.T) {
+		dir := t.TempDir()
+		writeFile(t, filepath.Join(dir, "big.hess"), "", 0o644)
+		if err := os.Truncate(filepath.Join(dir, "big.hess"), 65<<20); err != nil {
+			t.Fatal(err)
+		}
+		writeFile(t, filepath.Join(dir, "net.hess"), `include "big.hess"`+tail, 0o644)
+		expectRun(t, runBounded(t, dir, "", "", "check", "net.hess"), exitFindings, "refusing big.hess: it is larger than 64 MiB, the limit on one file")
+		expectRun(t, runBounded(t, dir, "", "", "check", "big.hess"), exitTrouble, "refusing big.hess: it is larger than 64 MiB")
+	})
+
 	t.Run("link out of the folder", func(t *testing.T) {
 		dir := t.TempDir()
 		outside := t.TempDir()
