@@ -2,6 +2,7 @@ package lsp
 
 import (
 	"fmt"
+	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -113,4 +114,27 @@ func TestOpenDocumentsIncludingEachOther(t *testing.T) {
 	if got := s.worker.compiles.Load(); got != 2 || len(roots) != 1 {
 		t.Errorf("%d compiles, %d roots; want 2 and 1", got, len(roots))
 	}
+}
+
+// A folder added to the workspace lets includes read from it at once.
+func TestWorkspaceFolderAdded(t *testing.T) {
+	dir, shared := t.TempDir(), t.TempDir()
+	if err := os.WriteFile(filepath.Join(shared, "gases.hess"), []byte("species H2(g), H(g)\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	c := startServer(t, Options{Debounce: -1})
+	var res InitializeResult
+	c.mustCall("initialize", map[string]any{"processId": nil, "rootUri": pathToURI(dir), "capabilities": map[string]any{}}, &res)
+	if res.Capabilities.Workspace == nil || !res.Capabilities.Workspace.WorkspaceFolders.ChangeNotifications {
+		t.Errorf("capabilities: %+v", res.Capabilities.Workspace)
+	}
+	c.notify("initialized", map[string]any{})
+	uri := fileURI(dir, "net.hess")
+	c.open(uri, "include \""+filepath.Join(shared, "gases.hess")+"\"\nreaction split: H2(g) <-> 2 H(g)\n", 1)
+	if got := codes(c.waitDiagnostics(uri, atVersion(1))); !contains(got, "include-refused") {
+		t.Fatalf("outside the workspace: %v", got)
+	}
+	c.notify("workspace/didChangeWorkspaceFolders", map[string]any{"event": map[string]any{
+		"added": []map[string]any{{"uri": pathToURI(shared), "name": "shared"}}, "removed": []any{}}})
+	c.waitDiagnostics(uri, func(p PublishDiagnosticsParams) bool { return len(codes(p)) == 0 })
 }

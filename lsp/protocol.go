@@ -119,6 +119,27 @@ type ServerCapabilities struct {
 	DocumentSymbolProvider     bool                    `json:"documentSymbolProvider"`
 	CompletionProvider         CompletionOptions       `json:"completionProvider"`
 	DocumentFormattingProvider bool                    `json:"documentFormattingProvider"`
+	Workspace                  *WorkspaceCapabilities  `json:"workspace,omitempty"`
+}
+
+// WorkspaceCapabilities says what the server does with workspace folders.
+type WorkspaceCapabilities struct {
+	WorkspaceFolders WorkspaceFoldersServerCapabilities `json:"workspaceFolders"`
+}
+
+// WorkspaceFoldersServerCapabilities: the server reads the workspace
+// folders and wants to hear when they change.
+type WorkspaceFoldersServerCapabilities struct {
+	Supported           bool `json:"supported"`
+	ChangeNotifications bool `json:"changeNotifications"`
+}
+
+// DidChangeWorkspaceFoldersParams is workspace/didChangeWorkspaceFolders.
+type DidChangeWorkspaceFoldersParams struct {
+	Event struct {
+		Added   []WorkspaceFolder `json:"added"`
+		Removed []WorkspaceFolder `json:"removed"`
+	} `json:"event"`
 }
 
 // TextDocumentSyncOptions says how documents are synchronised.

@@ -162,6 +162,8 @@ func (s *server) methods() map[string]handlerFunc {
 		"textDocument/documentSymbol": s.documentSymbol,
 		"textDocument/completion":     s.completion,
 		"textDocument/formatting":     s.formatting,
+
+		"workspace/didChangeWorkspaceFolders": s.didChangeWorkspaceFolders,
 	}
 }
 
@@ -310,6 +312,9 @@ func (s *server) initialize(ctx context.Context, req *jsonrpc2.Request) (any, er
 			DocumentSymbolProvider:     true,
 			CompletionProvider:         CompletionOptions{TriggerCharacters: []string{"("}},
 			DocumentFormattingProvider: true,
+			Workspace: &WorkspaceCapabilities{WorkspaceFolders: WorkspaceFoldersServerCapabilities{
+				Supported: true, ChangeNotifications: true,
+			}},
 		},
 		ServerInfo: ServerInfo{Name: "hess", Version: s.opts.Version},
 	}, nil
@@ -370,4 +375,33 @@ func (s *server) includePaths() []string {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	return append(append([]string(nil), s.opts.IncludePaths...), s.folders...)
+}
+
+// didChangeWorkspaceFolders updates the folders includes may come from and
+// compiles every open document again: what a network may read has changed.
+func (s *server) didChangeWorkspaceFolders(ctx context.Context, req *jsonrpc2.Request) (any, error) {
+	var p DidChangeWorkspaceFoldersParams
+	if err := params(req, &p); err != nil {
+		return nil, err
+	}
+	removed := map[string]bool{}
+	for _, f := range workspaceFolders(InitializeParams{WorkspaceFolders: p.Event.Removed}, s.log) {
+		removed[f] = true
+	}
+	added := workspaceFolders(InitializeParams{WorkspaceFolders: p.Event.Added}, s.log)
+	s.mu.Lock()
+	kept := s.folders[:0:0]
+	for _, f := range s.folders {
+		if !removed[f] {
+			kept = append(kept, f)
+		}
+	}
+	s.folders = append(kept, added...)
+	s.mu.Unlock()
+	s.docs.invalidate()
+	docs, _ := s.docs.snapshot()
+	for _, d := range docs {
+		s.worker.schedule(d.path, false, true)
+	}
+	return nil, nil
 }
