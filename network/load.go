@@ -115,7 +115,7 @@ func (l *loader) load(path, id string, at lang.Span) {
 
 	l.onStack[id] = len(l.stack)
 	l.stack = append(l.stack, chainLink{path: path, id: id})
-	for _, st := range ast.Statements {
+	for _, st := range f.AST.Statements {
 		inc := st.Include
 		if inc == nil || inc.Path == nil {
 			continue
