@@ -28,7 +28,7 @@ reaction r: A(melt) <-> B(g)
 mixture x { temperature 1e4 K A(melt) 1 B(g) 1e-300 Pa pressure 0 bar }`)
 	f.Add("mixture m { CO2 0.1 K 3 bar H2(g) temperature -4 K }")
 	f.Fuzz(func(t *testing.T, src string) {
-		n := network.Load("net.hess", memSource{"net.hess": []byte(src)})
+		n := network.Load("net.hess", memSource{"net.hess": []byte(src)}, network.Options{})
 		for _, m := range n.Mixtures {
 			a := Approach(n, m)
 			if a == nil {

@@ -39,7 +39,7 @@ mixture m { temperature 99 degC H2O(l) Na+(aq) 6 mol/kg Cl-(aq) 6 mol/kg }`)
 		if len(src) > 4000 {
 			return
 		}
-		n := network.Load("f.hess", memSource{"f.hess": []byte(src)})
+		n := network.Load("f.hess", memSource{"f.hess": []byte(src)}, network.Options{})
 		for _, m := range n.Mixtures {
 			sys, err := AqueousFromMixture(n, m)
 			if err != nil {

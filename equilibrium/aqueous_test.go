@@ -28,7 +28,7 @@ func loadAqueous(t testing.TB, name, model string) *network.Network {
 	if model != "" {
 		text = strings.Replace(text, "settings {", "settings {\n  activity "+model, 1)
 	}
-	n := network.Load(root, network.Overlay{Files: map[string][]byte{root: []byte(text)}, Base: network.Disk{}})
+	n := network.Load(root, network.Overlay{Files: map[string][]byte{root: []byte(text)}, Base: network.Disk{}}, network.Options{})
 	for _, d := range n.Diagnostics {
 		if d.Severity == lang.Error {
 			t.Fatalf("%s:%d: %s: %s", d.Subject.File, d.Subject.Start.Line, d.Code, d.Message)

@@ -30,7 +30,7 @@ func loadThermo(t testing.TB, src string) *network.Network {
 		t.Fatal(err)
 	}
 	root := filepath.Join(dir, "net.hess")
-	n := network.Load(root, network.Overlay{Files: map[string][]byte{root: []byte(src)}, Base: network.Disk{}})
+	n := network.Load(root, network.Overlay{Files: map[string][]byte{root: []byte(src)}, Base: network.Disk{}}, network.Options{})
 	for _, d := range n.Diagnostics {
 		if d.Severity == lang.Error {
 			t.Fatalf("%s:%d: %s: %s", d.Subject.File, d.Subject.Start.Line, d.Code, d.Message)
@@ -42,5 +42,5 @@ func loadThermo(t testing.TB, src string) *network.Network {
 // loadText compiles text as the only file of a network.
 func loadText(t testing.TB, text string) *network.Network {
 	t.Helper()
-	return network.Load("net.hess", memSource{"net.hess": []byte(text)})
+	return network.Load("net.hess", memSource{"net.hess": []byte(text)}, network.Options{})
 }

@@ -28,7 +28,7 @@ func synthSource(tb testing.TB, species, reactions int) (root string, src memSou
 // search included, as `hess table` does.
 func BenchmarkTableSynthetic(b *testing.B) {
 	root, src := synthSource(b, 10000, 50000)
-	n := network.Load(root, src)
+	n := network.Load(root, src, network.Options{})
 	temps := n.Settings.Temperatures
 	if len(temps) != 10 {
 		b.Fatalf("%d temperatures", len(temps))

@@ -33,7 +33,7 @@ func loadFiles(t *testing.T, files map[string]string) *network.Network {
 	for name, text := range files {
 		src[name] = []byte(text)
 	}
-	n := network.Load("root.hess", src)
+	n := network.Load("root.hess", src, network.Options{})
 	for _, d := range n.Diagnostics {
 		if d.Severity == lang.Error {
 			t.Fatalf("%v", d)
@@ -101,7 +101,7 @@ reaction calcine: CaCO3(cr) <-> CaO(cr) + CO2(g) { logk -22.8 }
 	bad := network.Load("root.hess", memSource{
 		"root.hess": []byte(`include "lib.hess"` + "\n"),
 		"lib.hess":  []byte("settings { standard-pressure 1 atm\n tolerance 1 kJ/mol }\n"),
-	})
+	}, network.Options{})
 	found := false
 	for _, d := range bad.Diagnostics {
 		found = found || d.Code == "misplaced-settings"
@@ -121,7 +121,7 @@ species NO(g) { hf 91.29 kJ/mol s 210.76 J/mol/K }
 reaction fix: 1/2 N2(g) + 1/2 O2(g) <-> NO(g)
 `),
 		"lib.hess": []byte(gasesAt1Atm),
-	})
+	}, network.Options{})
 	var msgs []string
 	for _, d := range n.Diagnostics {
 		if d.Code == "unstated-pressure" {

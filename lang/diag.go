@@ -100,11 +100,26 @@ type Related struct {
 	Message string
 }
 
+// Code names the check that made a diagnostic. Package lang reports only
+// the codes in Codes; every code is registered as a check by package
+// network, whose tests fail on a diagnostic whose code is not.
+type Code string
+
+// The codes package lang reports.
+const (
+	// CodeSyntax: the text does not follow the grammar, or a token is
+	// malformed.
+	CodeSyntax Code = "syntax"
+)
+
+// Codes returns every code package lang reports, for the registry's test.
+func Codes() []Code { return []Code{CodeSyntax} }
+
 // Diagnostic is one finding: a code (the name of the check that made it), a
 // severity, a one-line message, an optional longer detail, the subject range
 // it is about, an optional wider context range, and related locations.
 type Diagnostic struct {
-	Code     string
+	Code     Code
 	Severity Severity
 	Message  string
 	Detail   string

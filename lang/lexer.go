@@ -75,7 +75,7 @@ func (l *lexState) advance(n int) {
 
 func (l *lexState) errorf(start Pos, format string, args ...any) {
 	l.diags = append(l.diags, Diagnostic{
-		Code:     "syntax",
+		Code:     CodeSyntax,
 		Severity: Error,
 		Message:  fmt.Sprintf(format, args...),
 		Subject:  Span{File: l.file, Start: start, End: l.pos()},
@@ -196,7 +196,7 @@ func (l *lexState) checkText(text []byte, what string) {
 		at.Column += utf8.RuneCount(text[:i])
 		end := Pos{Line: at.Line, Column: at.Column + 1, Offset: at.Offset + 1}
 		l.diags = append(l.diags, Diagnostic{
-			Code:     "syntax",
+			Code:     CodeSyntax,
 			Severity: Error,
 			Message:  msg,
 			Subject:  Span{File: l.file, Start: at, End: end},

@@ -142,6 +142,7 @@ type groupLexer struct {
 	open     bool        // a statement has started and not yet ended
 	last     lexer.Token // the last token of the open statement
 	depth    int         // brace depth in the open statement
+	junk     bool        // the open statement does not start with a statement keyword
 	full     bool        // the group is full
 	finished bool        // the input is exhausted
 }
@@ -178,11 +179,20 @@ func (b *groupLexer) Next() (lexer.Token, error) {
 		}
 		return lexer.Token{Type: lexer.EOF, Pos: b.l.position()}, nil
 	}
-	if b.open && t.Type == Keyword && statementKeywords[t.Value] && (b.depth <= 0 || t.Pos.Line != b.last.Pos.Line) {
+	if b.open && b.startsStatement(t) {
+		return b.end(), nil
+	}
+	if b.open && b.junk && b.n-b.chunks[len(b.chunks)-1].start >= junkTokens {
+		b.skipStatement(false)
+		return b.end(), nil
+	}
+	if b.open && b.n-b.chunks[len(b.chunks)-1].start >= MaxStatementTokens {
+		b.skipStatement(true)
 		return b.end(), nil
 	}
 	if !b.open {
 		b.open, b.depth = true, 0
+		b.junk = t.Type != Keyword || !statementKeywords[t.Value]
 		b.chunks = append(b.chunks, chunk{start: b.n})
 	}
 	if t.Type == Punct {
@@ -197,6 +207,57 @@ func (b *groupLexer) Next() (lexer.Token, error) {
 	b.n++
 	b.last = t
 	return t, nil
+}
+
+// startsStatement reports whether t begins a new statement: a statement
+// keyword at brace depth 0 or first on its line.
+func (b *groupLexer) startsStatement(t lexer.Token) bool {
+	return t.Type == Keyword && statementKeywords[t.Value] && (b.depth <= 0 || t.Pos.Line != b.last.Pos.Line)
+}
+
+// MaxStatementTokens is the most tokens one statement may hold: 64 MiB of
+// tokens. The longest statements a network needs (a mixture listing every
+// species of a large network, a combination of thousands of reactions) hold
+// far fewer; TestRobustLongLine's 2 MB one-line reaction holds 700 000.
+// The limit keeps one runaway statement (a file of words without a
+// keyword) from holding the tokens of the whole file at once.
+const MaxStatementTokens = 1 << 20
+
+// junkTokens is how many tokens of text that does not start with a
+// statement keyword are kept: the parser reports only its first.
+const junkTokens = 64
+
+// skipStatement skips the rest of the open statement, up to the next
+// statement or the end of the input, without keeping its tokens; report
+// says it passed MaxStatementTokens.
+func (b *groupLexer) skipStatement(report bool) {
+	first := b.last
+	skipped := 0
+	for {
+		t, ok := b.peek()
+		if !ok || b.startsStatement(t) {
+			break
+		}
+		if t.Type == Punct {
+			switch t.Value {
+			case "{":
+				b.depth++
+			case "}":
+				b.depth--
+			}
+		}
+		b.queue++
+		b.last = t
+		skipped++
+	}
+	if !report {
+		return
+	}
+	span := TokenSpan(first).Join(TokenSpan(b.last))
+	b.l.diags = append(b.l.diags, Diagnostic{
+		Code: CodeSyntax, Severity: Error, Subject: TokenSpan(first), Context: span,
+		Message: fmt.Sprintf("a statement of more than %d tokens, the limit on one statement; its last %d tokens, to the next statement, are skipped", MaxStatementTokens, skipped),
+	})
 }
 
 // end closes the open statement and returns its endOfStatement token,
@@ -327,7 +388,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 	if first.Type != Keyword || !statementKeywords[first.Value] {
 		span := TokenSpan(first)
 		return result{diags: Diagnostics{{
-			Code:     "syntax",
+			Code:     CodeSyntax,
 			Severity: Error,
 			Message:  notAStatement + describe(first) + keywordHint(first),
 			Subject:  span,

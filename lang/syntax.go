@@ -124,7 +124,7 @@ func firstOfSequence(s string) string {
 // are the statement's tokens.
 func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 	stmt := TokenSpan(toks[0]).Join(TokenSpan(toks[len(toks)-1]))
-	d := Diagnostic{Code: "syntax", Severity: Error, Context: stmt}
+	d := Diagnostic{Code: CodeSyntax, Severity: Error, Context: stmt}
 	se := toSyntaxError(err)
 	switch {
 	case se == nil:

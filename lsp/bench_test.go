@@ -89,7 +89,7 @@ func BenchmarkCompileOnly(b *testing.B) {
 	src := network.Overlay{Files: map[string][]byte{"/w/unit.hess": text}, Base: noFiles{}}
 	b.ReportAllocs()
 	for i := 0; i < b.N; i++ {
-		if net := network.Load("/w/unit.hess", src); len(net.Reactions) != 5000 {
+		if net := network.Load("/w/unit.hess", src, network.Options{}); len(net.Reactions) != 5000 {
 			b.Fatalf("%d reactions", len(net.Reactions))
 		}
 	}

@@ -76,16 +76,16 @@ func collect(roots []*compiled, snap *snapshot, uriOf func(string) string, enc e
 	for _, c := range roots {
 		for _, d := range c.net.Diagnostics {
 			path, r := snap.spanRange(c.net, d.Subject, enc)
-			msg := untitledText(d.Message, d.Code)
+			msg := untitledText(d.Message, string(d.Code))
 			if d.Detail != "" {
 				msg += "\n" + d.Detail
 			}
-			k := key{path, r, d.Code, msg}
+			k := key{path, r, string(d.Code), msg}
 			if seen[k] {
 				continue
 			}
 			seen[k] = true
-			pd := Diagnostic{Range: r, Severity: severity(d.Severity), Code: d.Code, Source: "hess", Message: msg}
+			pd := Diagnostic{Range: r, Severity: severity(d.Severity), Code: string(d.Code), Source: "hess", Message: msg}
 			for _, rel := range d.Related {
 				rp, rr := snap.spanRange(c.net, rel.Span, enc)
 				pd.RelatedInformation = append(pd.RelatedInformation, DiagnosticRelatedInformation{

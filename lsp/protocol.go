@@ -61,10 +61,13 @@ type Location struct {
 
 // InitializeParams is what the client says about itself in initialize.
 type InitializeParams struct {
-	ProcessID    *int               `json:"processId"`
-	RootURI      *string            `json:"rootUri"`
-	ClientInfo   *ClientInfo        `json:"clientInfo,omitempty"`
-	Capabilities ClientCapabilities `json:"capabilities"`
+	ProcessID *int    `json:"processId"`
+	RootURI   *string `json:"rootUri"`
+	// WorkspaceFolders are the folders open in the editor; includes may
+	// read from them (as from the root document's own folder tree).
+	WorkspaceFolders []WorkspaceFolder  `json:"workspaceFolders,omitempty"`
+	ClientInfo       *ClientInfo        `json:"clientInfo,omitempty"`
+	Capabilities     ClientCapabilities `json:"capabilities"`
 }
 
 // ClientInfo names the client.
@@ -116,6 +119,27 @@ type ServerCapabilities struct {
 	DocumentSymbolProvider     bool                    `json:"documentSymbolProvider"`
 	CompletionProvider         CompletionOptions       `json:"completionProvider"`
 	DocumentFormattingProvider bool                    `json:"documentFormattingProvider"`
+	Workspace                  *WorkspaceCapabilities  `json:"workspace,omitempty"`
+}
+
+// WorkspaceCapabilities says what the server does with workspace folders.
+type WorkspaceCapabilities struct {
+	WorkspaceFolders WorkspaceFoldersServerCapabilities `json:"workspaceFolders"`
+}
+
+// WorkspaceFoldersServerCapabilities: the server reads the workspace
+// folders and wants to hear when they change.
+type WorkspaceFoldersServerCapabilities struct {
+	Supported           bool `json:"supported"`
+	ChangeNotifications bool `json:"changeNotifications"`
+}
+
+// DidChangeWorkspaceFoldersParams is workspace/didChangeWorkspaceFolders.
+type DidChangeWorkspaceFoldersParams struct {
+	Event struct {
+		Added   []WorkspaceFolder `json:"added"`
+		Removed []WorkspaceFolder `json:"removed"`
+	} `json:"event"`
 }
 
 // TextDocumentSyncOptions says how documents are synchronised.
@@ -273,4 +297,10 @@ type FormattingOptions struct {
 type TextEdit struct {
 	Range   Range  `json:"range"`
 	NewText string `json:"newText"`
+}
+
+// WorkspaceFolder is one folder open in the editor.
+type WorkspaceFolder struct {
+	URI  string `json:"uri"`
+	Name string `json:"name"`
 }

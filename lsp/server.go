@@ -33,6 +33,10 @@ type Options struct {
 	// Files reads the files of a network that are not open in the editor;
 	// nil reads the disk.
 	Files network.Source
+	// IncludePaths are folders includes may read from besides the root
+	// document's folder tree and the workspace folders (hess lsp
+	// --include-path).
+	IncludePaths []string
 }
 
 // lifecycle is where the server is between initialize and exit.
@@ -51,12 +55,15 @@ type server struct {
 	docs   *store
 	worker *worker
 
-	mu     sync.Mutex
-	state  lifecycle
-	enc    encoding
-	mdOK   bool // the client renders markdown in hovers
-	status int  // exit status, once exit has arrived
-	exited bool
+	mu    sync.Mutex
+	state lifecycle
+	enc   encoding
+	mdOK  bool // the client renders markdown in hovers
+	// folders are the workspace folders the client named at initialize
+	// (its root URI when it named none).
+	folders []string
+	status  int // exit status, once exit has arrived
+	exited  bool
 
 	exitOnce sync.Once
 	exitCh   chan struct{} // closed when exit arrives
@@ -153,6 +160,8 @@ func (s *server) methods() map[string]handlerFunc {
 		"textDocument/documentSymbol": s.documentSymbol,
 		"textDocument/completion":     s.completion,
 		"textDocument/formatting":     s.formatting,
+
+		"workspace/didChangeWorkspaceFolders": s.didChangeWorkspaceFolders,
 	}
 }
 
@@ -278,6 +287,7 @@ func (s *server) initialize(ctx context.Context, req *jsonrpc2.Request) (any, er
 			}
 		}
 	}
+	s.folders = workspaceFolders(p, s.log)
 	s.state = running
 	return InitializeResult{
 		Capabilities: ServerCapabilities{
@@ -292,6 +302,9 @@ func (s *server) initialize(ctx context.Context, req *jsonrpc2.Request) (any, er
 			DocumentSymbolProvider:     true,
 			CompletionProvider:         CompletionOptions{TriggerCharacters: []string{"("}},
 			DocumentFormattingProvider: true,
+			Workspace: &WorkspaceCapabilities{WorkspaceFolders: WorkspaceFoldersServerCapabilities{
+				Supported: true, ChangeNotifications: true,
+			}},
 		},
 		ServerInfo: ServerInfo{Name: "hess", Version: s.opts.Version},
 	}, nil
@@ -321,4 +334,64 @@ func (s *server) encoding() encoding {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	return s.enc
+}
+
+// workspaceFolders are the paths of the client's workspace folders, or of
+// its root URI when it names none. URIs that are not file: URIs are logged
+// and skipped.
+func workspaceFolders(p InitializeParams, log *log.Logger) []string {
+	uris := make([]string, 0, len(p.WorkspaceFolders))
+	for _, f := range p.WorkspaceFolders {
+		uris = append(uris, f.URI)
+	}
+	if len(uris) == 0 && p.RootURI != nil && *p.RootURI != "" {
+		uris = append(uris, *p.RootURI)
+	}
+	var out []string
+	for _, u := range uris {
+		path, err := uriToPath(u)
+		if err != nil {
+			log.Printf("workspace folder %q skipped: %v", u, err)
+			continue
+		}
+		out = append(out, path)
+	}
+	return out
+}
+
+// includePaths are the folders, besides a root document's own folder
+// tree, that its includes may read from.
+func (s *server) includePaths() []string {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	return append(append([]string(nil), s.opts.IncludePaths...), s.folders...)
+}
+
+// didChangeWorkspaceFolders updates the folders includes may come from and
+// compiles every open document again: what a network may read has changed.
+func (s *server) didChangeWorkspaceFolders(ctx context.Context, req *jsonrpc2.Request) (any, error) {
+	var p DidChangeWorkspaceFoldersParams
+	if err := params(req, &p); err != nil {
+		return nil, err
+	}
+	removed := map[string]bool{}
+	for _, f := range workspaceFolders(InitializeParams{WorkspaceFolders: p.Event.Removed}, s.log) {
+		removed[f] = true
+	}
+	added := workspaceFolders(InitializeParams{WorkspaceFolders: p.Event.Added}, s.log)
+	s.mu.Lock()
+	kept := s.folders[:0:0]
+	for _, f := range s.folders {
+		if !removed[f] {
+			kept = append(kept, f)
+		}
+	}
+	s.folders = append(kept, added...)
+	s.mu.Unlock()
+	s.docs.invalidate()
+	docs, _ := s.docs.snapshot()
+	for _, d := range docs {
+		s.worker.schedule(d.path, false, true)
+	}
+	return nil, nil
 }

@@ -135,3 +135,11 @@ func (s *store) snapshot() ([]document, uint64) {
 	sort.Slice(out, func(i, j int) bool { return out[i].path < out[j].path })
 	return out, s.change
 }
+
+// invalidate counts as a change of what networks read from disk (the
+// workspace folders changed), so no compiled network is reused.
+func (s *store) invalidate() {
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	s.change++
+}

@@ -3,7 +3,6 @@ package lsp
 import (
 	"context"
 	"fmt"
-	"path/filepath"
 	"runtime/debug"
 	"sort"
 	"strings"
@@ -209,13 +208,39 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 			nets[path] = c
 		}
 	}
-	for _, d := range docs {
+	// Documents that no other open document includes are compiled first,
+	// and a document that a network compiled in this round already reads
+	// is not compiled again as a root, unless it reaches that network's
+	// root in turn: a chain of n open documents costs one compile, not n.
+	graph := w.openIncludes(docs, open)
+	ordered := append([]document(nil), docs...)
+	sort.SliceStable(ordered, func(i, j int) bool {
+		return !graph.included[ordered[i].path] && graph.included[ordered[j].path]
+	})
+	coveredBy := map[string]string{}
+	reachers := map[string]map[string]bool{} // root -> open documents that include it
+	for _, d := range ordered {
 		if owner := w.owners[d.path]; owner != "" && owner != d.path {
 			if _, ok := open[owner]; ok {
 				continue
 			}
 		}
+		if r, ok := coveredBy[d.path]; ok {
+			if reachers[r] == nil {
+				reachers[r] = graph.reaching(r)
+			}
+			if !reachers[r][d.path] {
+				continue
+			}
+		}
 		compileRoot(d.path)
+		if c := nets[d.path]; c != nil {
+			for _, f := range c.net.Files {
+				if _, ok := coveredBy[f.ID]; !ok {
+					coveredBy[f.ID] = d.path
+				}
+			}
+		}
 	}
 	var roots []*compiled
 	chosen := map[string]bool{}
@@ -302,7 +327,7 @@ func (w *worker) compile(path string, open map[string]document, src network.Sour
 	if w.beforeCompile != nil {
 		w.beforeCompile(path)
 	}
-	net := network.LoadCached(path, src, w.parsed)
+	net := network.Load(path, src, network.Options{Caches: w.parsed, IncludePaths: w.s.includePaths()})
 	c = &compiled{net: net, key: inputKey(net, open)}
 	w.cache[path] = c
 	return c
@@ -386,10 +411,44 @@ func (w *worker) publish(ctx context.Context, conn *jsonrpc2.Conn, diags map[str
 	}
 }
 
-// cleanPath is the absolute, clean form of a path as the loader reached it.
-func cleanPath(p string) string {
-	if abs, err := filepath.Abs(p); err == nil {
-		return abs
+// cleanPath is the identity of a path as the loader reached it.
+func cleanPath(p string) string { return network.PathID(p) }
+
+// includeGraph is how the open documents include one another directly.
+type includeGraph struct {
+	reverse  map[string][]string // path -> open documents that include it
+	included map[string]bool     // open documents another open document includes
+}
+
+// openIncludes reads the include statements of the open documents (parsing
+// them into the caches the compile then reuses).
+func (w *worker) openIncludes(docs []document, open map[string]document) includeGraph {
+	g := includeGraph{reverse: map[string][]string{}, included: map[string]bool{}}
+	for _, d := range docs {
+		for _, inc := range network.DirectIncludes(d.path, d.text, w.parsed) {
+			if _, ok := open[inc]; ok && inc != d.path {
+				g.reverse[inc] = append(g.reverse[inc], d.path)
+				g.included[inc] = true
+			}
+		}
 	}
-	return filepath.Clean(p)
+	return g
+}
+
+// reaching returns the open documents that include to, directly or through
+// other open documents.
+func (g includeGraph) reaching(to string) map[string]bool {
+	seen := map[string]bool{}
+	stack := []string{to}
+	for len(stack) > 0 {
+		p := stack[len(stack)-1]
+		stack = stack[:len(stack)-1]
+		for _, q := range g.reverse[p] {
+			if !seen[q] {
+				seen[q] = true
+				stack = append(stack, q)
+			}
+		}
+	}
+	return seen
 }

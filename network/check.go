@@ -19,6 +19,9 @@ type Check struct {
 	Run      func(p *Pass)
 }
 
+// Code is the code of the check's diagnostics: its name.
+func (c *Check) Code() lang.Code { return lang.Code(c.Name) }
+
 // Title is the first line of the check's documentation.
 func (c *Check) Title() string {
 	title, _, _ := strings.Cut(c.Doc, "\n")

@@ -26,6 +26,18 @@ relative to the folder of the including file. The message names the chain
 of includes that led to it.`,
 }
 
+var includeRefusedCheck = &Check{
+	Name:     "include-refused",
+	Severity: lang.Error,
+	Doc: `an include is refused
+An include is read only when it names a regular file, inside the root
+file's folder tree or a folder named with --include-path (symbolic links
+followed), of at most 64 MiB, and within the limits of one network: 10 000
+files, 256 MiB in all, includes nested at most 4 096 deep. An empty path, a
+named pipe, a device, a folder, a file outside those folders or past a
+limit is refused with the reason, and never opened for reading.`,
+}
+
 var includeCycleCheck = &Check{
 	Name:     "include-cycle",
 	Severity: lang.Error,

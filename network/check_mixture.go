@@ -8,6 +8,12 @@ import (
 	"hess/thermo"
 )
 
+func init() {
+	mixtureAmountCheck.Run = runMixtureAmount
+	mixtureIncompleteCheck.Run = runMixtureIncomplete
+	mixtureFractionsCheck.Run = runMixtureFractions
+}
+
 var mixtureAmountCheck = &Check{
 	Name:     "mixture-amount",
 	Severity: lang.Error,
@@ -21,16 +27,18 @@ Amounts must be above zero (a species that is absent is left out, since a
 zero activity makes Q zero or infinite), a species is listed once, and a
 species needs its state tag: after a number the next word is read as its
 unit, so CO2 0.1 instead of CO2(g) 0.1 is reported here.`,
-	Run: func(p *Pass) {
-		for _, m := range p.Net.Mixtures {
-			for _, pr := range mixtureProblems(m) {
-				if pr.code == "mixture-amount" {
-					p.Reportf(pr.span, "%s", pr.msg)
-				}
+}
+
+// runMixtureAmount is the Run of mixtureAmountCheck (set in init: it refers to the check).
+func runMixtureAmount(p *Pass) {
+	for _, m := range p.Net.Mixtures {
+		for _, pr := range mixtureProblems(m) {
+			if pr.check == p.check {
+				p.Reportf(pr.span, "%s", pr.msg)
 			}
 		}
-		brokenMixtureUnits(p)
-	},
+	}
+	brokenMixtureUnits(p)
 }
 
 var mixtureIncompleteCheck = &Check{
@@ -41,13 +49,15 @@ A mixture is evaluated at its own temperature, so it must give one. Gas mole
 fractions need the total pressure (pressure 25 bar) to become partial
 pressures; gases given as partial pressures do not. A mixture must list at
 least one species.`,
-	Run: func(p *Pass) {
-		for _, m := range p.Net.Mixtures {
-			for _, pr := range mixtureIncomplete(m) {
-				p.Reportf(pr.span, "%s", pr.msg)
-			}
+}
+
+// runMixtureIncomplete is the Run of mixtureIncompleteCheck (set in init: it refers to the check).
+func runMixtureIncomplete(p *Pass) {
+	for _, m := range p.Net.Mixtures {
+		for _, pr := range mixtureIncomplete(m) {
+			p.Reportf(pr.span, "%s", pr.msg)
 		}
-	},
+	}
 }
 
 var mixtureFractionsCheck = &Check{
@@ -60,15 +70,17 @@ partial pressures, never both (the fractions would have no defined share of
 the pressure). Partial pressures may not sum to more than the mixture's
 total pressure, and the mole fractions of one solution phase may not sum to
 more than 1.`,
-	Run: func(p *Pass) {
-		for _, m := range p.Net.Mixtures {
-			for _, pr := range mixtureProblems(m) {
-				if pr.code == "mixture-fractions" {
-					p.Reportf(pr.span, "%s", pr.msg)
-				}
+}
+
+// runMixtureFractions is the Run of mixtureFractionsCheck (set in init: it refers to the check).
+func runMixtureFractions(p *Pass) {
+	for _, m := range p.Net.Mixtures {
+		for _, pr := range mixtureProblems(m) {
+			if pr.check == p.check {
+				p.Reportf(pr.span, "%s", pr.msg)
 			}
 		}
-	},
+	}
 }
 
 var notInMixtureCheck = &Check{

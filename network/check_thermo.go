@@ -30,7 +30,7 @@ extrapolated. A mixture's temperature counts for each species it lists
 that a reaction evaluated in the mixture uses; hess approach marks those
 values as extrapolated.`,
 	Run: func(p *Pass) {
-		temps := p.Net.Settings.Temperatures
+		temps := p.Net.Temperatures
 		for _, sp := range p.Net.Species {
 			m := sp.Model()
 			if !sp.Used || m == nil || isGibbsOnly(m) {
@@ -183,7 +183,7 @@ of whose species carries any data is not reported when its own data are
 at most a dh (an enthalpy for Hess's law) or a rate (a kinetics-only
 step).`,
 	Run: func(p *Pass) {
-		temps := p.Net.Settings.Temperatures
+		temps := p.Net.Temperatures
 		known := map[*Species]bool{}
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) {
@@ -326,31 +326,6 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 			}
 		}
 	},
-}
-
-// TemperatureDiagnostics runs the checks that depend on the requested
-// temperatures (extrapolation and missing-thermo) at temps instead of the
-// settings' temperatures, with the network's lint settings applied. The
-// network itself is not changed.
-func (n *Network) TemperatureDiagnostics(temps []float64) lang.Diagnostics {
-	scratch := *n
-	scratch.Diagnostics = nil
-	scratch.Settings.Temperatures = temps
-	for _, c := range []*Check{extrapolationCheck, missingThermoCheck} {
-		if sev, ok := n.Settings.Lint[c.Name]; ok && sev == lang.Off {
-			continue
-		}
-		c.Run(&Pass{Net: &scratch, check: c})
-	}
-	finalize(&scratch)
-	return scratch.Diagnostics
-}
-
-// IsTemperatureCode reports whether code is one that TemperatureDiagnostics
-// reports, so that a caller replacing the settings' temperatures can drop
-// the network's own findings of that code.
-func IsTemperatureCode(code string) bool {
-	return code == extrapolationCheck.Name || code == missingThermoCheck.Name
 }
 
 // noEntropyReason says why the elements' entropies cannot give a species'

@@ -18,7 +18,7 @@ type Pass struct {
 // Report records a finding of the running check. Its code is the check's
 // name; its severity is set from the check and the network's lint settings.
 func (p *Pass) Report(d lang.Diagnostic) {
-	d.Code = p.check.Name
+	d.Code = p.check.Code()
 	if p.out != nil {
 		*p.out = append(*p.out, d)
 		return
@@ -35,6 +35,7 @@ func (p *Pass) Reportf(span lang.Span, format string, args ...any) {
 var checks = []*Check{
 	syntaxCheck,
 	includeMissingCheck,
+	includeRefusedCheck,
 	includeCycleCheck,
 	misplacedSettingsCheck,
 	unknownElementCheck,
@@ -89,6 +90,9 @@ var checkByName = func() map[string]*Check {
 	return m
 }()
 
+// byCode finds the check of a diagnostic code, or nil.
+func byCode(code lang.Code) *Check { return checkByName[string(code)] }
+
 // Checks returns every registered check, in registry order.
 func Checks() []*Check { return append([]*Check(nil), checks...) }
 
@@ -124,7 +128,7 @@ func runChecks(n *Network) {
 func finalize(n *Network) {
 	out := n.Diagnostics[:0]
 	for _, d := range n.Diagnostics {
-		c := checkByName[d.Code]
+		c := byCode(d.Code)
 		if d.Severity == lang.SeverityInvalid {
 			if c != nil {
 				d.Severity = c.Severity
@@ -132,7 +136,7 @@ func finalize(n *Network) {
 				d.Severity = lang.Error
 			}
 		}
-		if sev, ok := n.Settings.Lint[d.Code]; ok && d.Severity != lang.Info {
+		if sev, ok := n.Settings.Lint[string(d.Code)]; ok && d.Severity != lang.Info {
 			d.Severity = sev
 		}
 		if d.Severity == lang.Off {

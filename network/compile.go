@@ -23,13 +23,13 @@ func (c *compiler) worker(out *lang.Diagnostics) *compiler {
 	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near}
 }
 
-func (c *compiler) report(code string, span lang.Span, format string, args ...any) *lang.Diagnostic {
+func (c *compiler) report(check *Check, span lang.Span, format string, args ...any) *lang.Diagnostic {
 	out := c.out
 	if out == nil {
 		out = &c.net.Diagnostics
 	}
 	*out = append(*out, lang.Diagnostic{
-		Code: code, Message: fmt.Sprintf(format, args...), Subject: span,
+		Code: check.Code(), Message: fmt.Sprintf(format, args...), Subject: span,
 	})
 	return &(*out)[len(*out)-1]
 }
@@ -82,9 +82,9 @@ func compile(n *Network) {
 					c.libraryDataPressure(s)
 				}
 			case s.Pos.Filename != n.Root:
-				c.report("misplaced-settings", keywordSpan(&s.Node), "settings belong in the root file %s, not in an included file", n.Root)
+				c.report(misplacedSettingsCheck, keywordSpan(&s.Node), "settings belong in the root file %s, not in an included file", n.Root)
 			case settingsSeen != nil:
-				d := c.report("misplaced-settings", keywordSpan(&s.Node), "a network has one settings block; this is a second one")
+				d := c.report(misplacedSettingsCheck, keywordSpan(&s.Node), "a network has one settings block; this is a second one")
 				d.Related = []lang.Related{{Span: keywordSpan(&settingsSeen.Node), Message: "first settings block"}}
 			default:
 				settingsSeen = s
@@ -154,7 +154,7 @@ func (c *compiler) name(id *lang.Ident, what string) bool {
 		return false
 	}
 	if !validName(id.Name) {
-		c.report("syntax", id.Span(), "%s name %q must start with a letter or _ and hold only letters, digits, _ and -", what, id.Name)
+		c.report(syntaxCheck, id.Span(), "%s name %q must start with a letter or _ and hold only letters, digits, _ and -", what, id.Name)
 		return false
 	}
 	return true

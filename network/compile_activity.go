@@ -14,10 +14,10 @@ func (c *compiler) activityModel(id *lang.Ident) {
 	if _, ok := aqueous.ByName(name); !ok {
 		msg := "unknown activity model %q: use " + strings.Join(aqueous.Names(), ", ")
 		if near := nearestName(name, aqueous.Names()); near != "" {
-			c.report("unknown-activity-model", id.Span(), msg+" (did you mean %s?)", name, near)
+			c.report(unknownActivityModelCheck, id.Span(), msg+" (did you mean %s?)", name, near)
 			return
 		}
-		c.report("unknown-activity-model", id.Span(), msg, name)
+		c.report(unknownActivityModelCheck, id.Span(), msg, name)
 		return
 	}
 	c.net.Settings.Activity = name

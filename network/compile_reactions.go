@@ -78,7 +78,7 @@ func (c *compiler) addReaction(b builtReaction) {
 		}
 	}
 	if old, dup := c.net.reactionByName[rx.Name]; dup {
-		d := c.report("duplicate-reaction-name", rx.NameSpan, "reaction name %s is used twice", rx.Name)
+		d := c.report(duplicateReactionNameCheck, rx.NameSpan, "reaction name %s is used twice", rx.Name)
 		d.Related = []lang.Related{{Span: old.NameSpan, Message: "first used here"}}
 		return
 	}
@@ -121,10 +121,10 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 			q, err := parseRat(t.Coef.Text)
 			switch {
 			case err != nil:
-				c.report("syntax", t.Coef.Span(), "%v", err)
+				c.report(syntaxCheck, t.Coef.Span(), "%v", err)
 				resolved = false
 			case q.Sign() <= 0:
-				c.report("syntax", t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
+				c.report(syntaxCheck, t.Coef.Span(), "a coefficient must be positive, found %s; move the species to the other side", t.Coef.Text)
 				resolved = false
 			default:
 				term.Coef = q
@@ -155,7 +155,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, err)
 		return
 	}
 	msg := fmt.Sprintf("species %s is not declared", parts.Canonical())
@@ -173,7 +173,7 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 			msg += "; " + suggest.DidYouMean(key)
 		}
 	}
-	c.report("undefined-species", ref.Span(), "%s", msg)
+	c.report(undefinedSpeciesCheck, ref.Span(), "%s", msg)
 }
 
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
@@ -183,7 +183,7 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 		name := pr.Tokens[0].Value
 		if name != "logk" {
 			if first, dup := seen.add(name, key); dup {
-				d := c.report("syntax", key, "%s is given twice for reaction %s", name, rx.Name)
+				d := c.report(syntaxCheck, key, "%s is given twice for reaction %s", name, rx.Name)
 				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
 				continue
 			}
@@ -241,14 +241,14 @@ func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
 			return
 		}
 		if t.V <= 0 {
-			c.report("implausible-value", l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
+			c.report(implausibleValueCheck, l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
 			return
 		}
 		lk.T = t.V
 	}
 	for _, old := range rx.LogK {
 		if old.T == lk.T {
-			d := c.report("syntax", l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
+			d := c.report(syntaxCheck, l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
 			d.Related = []lang.Related{{Span: old.Span, Message: "first given here"}}
 			return
 		}
@@ -286,7 +286,7 @@ func (c *compiler) combination(r *lang.Reaction) {
 	}
 	for i, t := range r.Combo.Terms {
 		if i > 0 && t.Sign == "" {
-			c.report("syntax", t.Span(), "terms of a combination are joined by + or -")
+			c.report(syntaxCheck, t.Span(), "terms of a combination are joined by + or -")
 			rx.Combo = nil
 			return
 		}
@@ -294,7 +294,7 @@ func (c *compiler) combination(r *lang.Reaction) {
 		if t.Coef != nil {
 			v, err := parseRat(t.Coef.Text)
 			if err != nil {
-				c.report("syntax", t.Coef.Span(), "%v", err)
+				c.report(syntaxCheck, t.Coef.Span(), "%v", err)
 				rx.Combo = nil
 				return
 			}
@@ -312,9 +312,9 @@ func (c *compiler) combination(r *lang.Reaction) {
 					msg += "; " + suggest.DidYouMean(near)
 				}
 			}
-			c.report("undefined-reaction", t.Name.Span(), "%s", msg)
+			c.report(undefinedReactionCheck, t.Name.Span(), "%s", msg)
 		} else if ct.Reaction == rx {
-			c.report("undefined-reaction", t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
+			c.report(undefinedReactionCheck, t.Name.Span(), "reaction %s cannot be a combination of itself", ct.Name)
 			ct.Reaction = nil
 		}
 		rx.Combo = append(rx.Combo, ct)

@@ -17,15 +17,15 @@ func (c *compiler) element(e *lang.Element) {
 	}
 	sym := e.Symbol.Name
 	if !chem.IsElementSymbol(sym) {
-		c.report("syntax", e.Symbol.Span(), "element symbol %q must be an upper-case letter followed by up to two lower-case letters", sym)
+		c.report(syntaxCheck, e.Symbol.Span(), "element symbol %q must be an upper-case letter followed by up to two lower-case letters", sym)
 		return
 	}
 	if _, ok := c.net.Elements.Lookup(sym); ok {
-		c.report("syntax", e.Symbol.Span(), "element %s is already defined", sym)
+		c.report(syntaxCheck, e.Symbol.Span(), "element %s is already defined", sym)
 		return
 	}
 	if e.Mass == nil {
-		c.report("syntax", e.Symbol.Span(), "element %s needs a mass, such as `mass 2.014 g/mol`", sym)
+		c.report(syntaxCheck, e.Symbol.Span(), "element %s needs a mass, such as `mass 2.014 g/mol`", sym)
 		return
 	}
 	v, ok := c.quantity(e.Mass, molarMassKind, "mass", false)
@@ -33,7 +33,7 @@ func (c *compiler) element(e *lang.Element) {
 		return
 	}
 	if v.V <= 0 {
-		c.report("implausible-value", e.Mass.Span(), "element %s has mass %s; a molar mass must be positive", sym, e.Mass.Value.Text)
+		c.report(implausibleValueCheck, e.Mass.Span(), "element %s has mass %s; a molar mass must be positive", sym, e.Mass.Value.Text)
 		return
 	}
 	c.net.Elements = c.net.Elements.With(sym, v.V*1000) // g/mol
@@ -49,25 +49,25 @@ func (c *compiler) phase(p *lang.Phase) {
 	}
 	tag := p.Name.Name
 	if strings.ToLower(tag) != tag {
-		c.report("syntax", p.Name.Span(), "phase name %q must be lower case, as state tags are", tag)
+		c.report(syntaxCheck, p.Name.Span(), "phase name %q must be lower case, as state tags are", tag)
 		return
 	}
 	if old, ok := c.net.Phases[tag]; ok {
 		if old.Builtin {
-			c.report("syntax", p.Name.Span(), "phase %s is built in and cannot be redeclared", tag)
+			c.report(syntaxCheck, p.Name.Span(), "phase %s is built in and cannot be redeclared", tag)
 		} else {
-			d := c.report("syntax", p.Name.Span(), "phase %s is declared twice", tag)
+			d := c.report(syntaxCheck, p.Name.Span(), "phase %s is declared twice", tag)
 			d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
 		}
 		return
 	}
 	if p.Convention == nil {
-		c.report("syntax", p.Name.Span(), "phase %s needs a convention: ideal-gas, pure, solute or solution", tag)
+		c.report(syntaxCheck, p.Name.Span(), "phase %s needs a convention: ideal-gas, pure, solute or solution", tag)
 		return
 	}
 	conv, ok := conventionNames[p.Convention.Name]
 	if !ok {
-		c.report("syntax", p.Convention.Span(), "unknown convention %q: use ideal-gas, pure, solute or solution", p.Convention.Name)
+		c.report(syntaxCheck, p.Convention.Span(), "unknown convention %q: use ideal-gas, pure, solute or solution", p.Convention.Name)
 		return
 	}
 	c.net.Phases[tag] = &Phase{Tag: tag, Convention: conv, Span: p.Name.Span()}
@@ -89,10 +89,10 @@ const minTemperature = 1e-3
 func (c *compiler) temperatureInRange(T float64, q *lang.Quantity) bool {
 	switch {
 	case T > maxTemperature:
-		c.report("syntax", q.Span(), "temperature %s is above %s, the highest temperature hess computes at", quantityText(q), kelvin(maxTemperature))
+		c.report(syntaxCheck, q.Span(), "temperature %s is above %s, the highest temperature hess computes at", quantityText(q), kelvin(maxTemperature))
 		return false
 	case T < minTemperature:
-		c.report("syntax", q.Span(), "temperature %s is below %s, the lowest temperature hess computes at", quantityText(q), kelvin(minTemperature))
+		c.report(syntaxCheck, q.Span(), "temperature %s is below %s, the lowest temperature hess computes at", quantityText(q), kelvin(minTemperature))
 		return false
 	}
 	return true
@@ -128,7 +128,7 @@ func (c *compiler) settings(s *lang.Settings) {
 	seen := map[string]lang.Span{}
 	once := func(key string, span lang.Span) bool {
 		if first, dup := seen[key]; dup {
-			d := c.report("syntax", span, "%s is set twice", key)
+			d := c.report(syntaxCheck, span, "%s is set twice", key)
 			d.Related = []lang.Related{{Span: first, Message: "first set here"}}
 			return false
 		}
@@ -144,7 +144,7 @@ func (c *compiler) settings(s *lang.Settings) {
 			}
 			if v, ok := c.quantity(it.Pressure, pressureKind, "pressure", false); ok {
 				if v.V <= 0 {
-					c.report("implausible-value", it.Pressure.Span(), "standard pressure must be positive, found %s", quantityText(it.Pressure))
+					c.report(implausibleValueCheck, it.Pressure.Span(), "standard pressure must be positive, found %s", quantityText(it.Pressure))
 					continue
 				}
 				set.Pressure = v.V
@@ -165,7 +165,7 @@ func (c *compiler) settings(s *lang.Settings) {
 			}
 			if v, ok := c.quantity(it.Tolerance, energyKind, "tolerance", true); ok {
 				if v.V < 0 {
-					c.report("implausible-value", it.Tolerance.Span(), "tolerance cannot be negative, found %s", quantityText(it.Tolerance))
+					c.report(implausibleValueCheck, it.Tolerance.Span(), "tolerance cannot be negative, found %s", quantityText(it.Tolerance))
 					continue
 				}
 				set.Tolerance = v.V
@@ -189,7 +189,7 @@ func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
 		if it.To == nil {
 			if ok1 {
 				if from.V <= 0 {
-					c.report("implausible-value", it.From.Span(), "temperature %s is not above absolute zero", quantityText(it.From))
+					c.report(implausibleValueCheck, it.From.Span(), "temperature %s is not above absolute zero", quantityText(it.From))
 					ok = false
 					continue
 				}
@@ -210,29 +210,29 @@ func (c *compiler) temperatures(items []*lang.TempSet) ([]float64, bool) {
 		}
 		switch {
 		case from.V <= 0 || to.V <= 0:
-			c.report("implausible-value", it.Span(), "temperature range %s to %s reaches absolute zero or below", quantityText(it.From), quantityText(it.To))
+			c.report(implausibleValueCheck, it.Span(), "temperature range %s to %s reaches absolute zero or below", quantityText(it.From), quantityText(it.To))
 			ok = false
 			continue
 		case !c.temperatureInRange(from.V, it.From) || !c.temperatureInRange(to.V, it.To):
 			ok = false
 			continue
 		case step.V <= 0:
-			c.report("syntax", it.By.Span(), "a temperature step must be positive, found %s", quantityText(it.By))
+			c.report(syntaxCheck, it.By.Span(), "a temperature step must be positive, found %s", quantityText(it.By))
 			ok = false
 			continue
 		case to.V < from.V:
-			c.report("syntax", it.Span(), "temperature range runs backwards: %s to %s", quantityText(it.From), quantityText(it.To))
+			c.report(syntaxCheck, it.Span(), "temperature range runs backwards: %s to %s", quantityText(it.From), quantityText(it.To))
 			ok = false
 			continue
 		}
 		n, err := stepCount(from.V, to.V, step.V)
 		if err != nil {
-			c.report("syntax", it.By.Span(), "temperature step %s: %v", quantityText(it.By), err)
+			c.report(syntaxCheck, it.By.Span(), "temperature step %s: %v", quantityText(it.By), err)
 			ok = false
 			continue
 		}
 		if total := float64(len(out)) + n; total > maxTemperatures {
-			c.report("syntax", it.Span(), "the temperature list would hold %s temperatures, more than %d", countText(total), maxTemperatures)
+			c.report(syntaxCheck, it.Span(), "the temperature list would hold %s temperatures, more than %d", countText(total), maxTemperatures)
 			ok = false
 			continue
 		}
@@ -256,12 +256,12 @@ func (c *compiler) lint(l *lang.Lint) {
 		if hint != "" {
 			hint = "; " + hint
 		}
-		c.report("syntax", l.Check.Span(), "lint names no known check %q%s (`hess explain` lists them)", l.Check.Name, hint)
+		c.report(syntaxCheck, l.Check.Span(), "lint names no known check %q%s (`hess explain` lists them)", l.Check.Name, hint)
 		return
 	}
 	sev, ok := lang.ParseSeverity(l.Level.Name)
 	if !ok || sev == lang.Info {
-		c.report("syntax", l.Level.Span(), "lint level must be off, warning or error, found %q", l.Level.Name)
+		c.report(syntaxCheck, l.Level.Span(), "lint level must be off, warning or error, found %q", l.Level.Name)
 		return
 	}
 	if c.net.Settings.Lint == nil {
@@ -276,7 +276,7 @@ func (c *compiler) dataPressure(it *lang.Setting, key lang.Span) {
 	set := &c.net.Settings
 	file := key.File
 	if old, dup := set.DataPressures[file]; dup {
-		d := c.report("syntax", key, "standard-pressure is set twice in %s", file)
+		d := c.report(syntaxCheck, key, "standard-pressure is set twice in %s", file)
 		d.Related = []lang.Related{{Span: old.Span, Message: "first set here"}}
 		return
 	}
@@ -285,7 +285,7 @@ func (c *compiler) dataPressure(it *lang.Setting, key lang.Span) {
 		return
 	}
 	if v.V <= 0 {
-		c.report("implausible-value", it.StandardPressure.Span(), "standard pressure must be positive, found %s", quantityText(it.StandardPressure))
+		c.report(implausibleValueCheck, it.StandardPressure.Span(), "standard pressure must be positive, found %s", quantityText(it.StandardPressure))
 		return
 	}
 	if set.DataPressures == nil {

@@ -12,12 +12,12 @@ import (
 func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool) *Species {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		c.report("bad-formula", ref.Span(), "%s: %v", ref.Text, err)
+		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, err)
 		return nil
 	}
 	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge}
 	if old, dup := c.net.speciesByKey[sp.Key]; dup {
-		d := c.report("duplicate-species", ref.Span(), "species %s is declared twice", sp.Key)
+		d := c.report(duplicateSpeciesCheck, ref.Span(), "species %s is declared twice", sp.Key)
 		d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
 		return nil
 	}
@@ -28,7 +28,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		if ph, ok := c.net.Phases[parts.State]; ok {
 			sp.Phase = ph
 		} else {
-			c.report("unknown-phase", ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase%s", parts.State, c.phaseHint(parts.State))
+			c.report(unknownPhaseCheck, ref.Span(), "state tag (%s) is neither built in (g, l, s, cr, aq) nor a declared phase%s", parts.State, c.phaseHint(parts.State))
 		}
 	}
 	return sp
@@ -57,7 +57,7 @@ func (c *compiler) declareAll(s *lang.Species, broken bool) declaredSpecies {
 		return declaredSpecies{}
 	}
 	if len(s.Refs) > 1 && s.HasBody {
-		c.report("syntax", keywordSpan(&s.Node), "a species list declares species without data; give each species with data its own statement")
+		c.report(syntaxCheck, keywordSpan(&s.Node), "a species list declares species without data; give each species with data its own statement")
 		return declaredSpecies{}
 	}
 	return declaredSpecies{st: s, declared: declared}
@@ -128,7 +128,7 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 		name := pr.Tokens[0].Value
 		if name != "shomate" && name != "nasa7" {
 			if first, dup := seen.add(name, key); dup {
-				d := c.report("syntax", key, "%s is given twice for %s", name, sp.Key)
+				d := c.report(syntaxCheck, key, "%s is given twice for %s", name, sp.Key)
 				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
 				continue
 			}
@@ -161,7 +161,7 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 				sp.Cp = v
 			case "size":
 				if !(v.V > 0) {
-					c.report("implausible-value", pr.Value.Value.Span(), "ion-size parameter of %s must be above 0, found %s", sp.Key, quantityText(pr.Value.Value))
+					c.report(implausibleValueCheck, pr.Value.Value.Span(), "ion-size parameter of %s must be above 0, found %s", sp.Key, quantityText(pr.Value.Value))
 					continue
 				}
 				sp.Size = v
@@ -191,7 +191,7 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 		if p.Kind == "nasa7" {
 			names = "a1 to a7"
 		}
-		c.report("syntax", keywordSpan(&p.Node), "%s takes %d coefficients (%s), found %d", p.Kind, want, names, len(p.Coeffs))
+		c.report(syntaxCheck, keywordSpan(&p.Node), "%s takes %d coefficients (%s), found %d", p.Kind, want, names, len(p.Coeffs))
 		return
 	}
 	from, ok1 := c.quantity(p.From, temperatureKind, "range start", false)
@@ -207,7 +207,7 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 		return
 	}
 	if from.V <= 0 || to.V <= from.V {
-		c.report("implausible-value", p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
+		c.report(implausibleValueCheck, p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
 		return
 	}
 	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
@@ -225,7 +225,7 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span)
 	if explicit != "" {
 		parts, err := lang.SplitRef(explicit)
 		if err != nil || parts.State != "" || parts.HasCharge {
-			c.report("bad-formula", explicitSpan, "formula %s: give the elements only; the charge and state tag belong to the species name", explicit)
+			c.report(badFormulaCheck, explicitSpan, "formula %s: give the elements only; the charge and state tag belong to the species name", explicit)
 			return
 		}
 		text, span = explicit, explicitSpan
@@ -237,7 +237,7 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span)
 		if explicit == "" && (ferr.Code == "unknown-element" || strings.ToLower(text[:1]) == text[:1]) {
 			msg += "; a species whose name is not a formula declares one with `formula`"
 		}
-		c.report(ferr.Code, sub, "%s", msg)
+		c.report(formulaCheck(ferr.Code), sub, "%s", msg)
 		return
 	}
 	sp.Formula = f
@@ -266,4 +266,13 @@ func subSpan(span lang.Span, text string, from, to int) lang.Span {
 		}
 	}
 	return out
+}
+
+// formulaCheck is the check of a formula error's code (package chem names
+// its codes as strings, since it imports nothing of ours).
+func formulaCheck(code string) *Check {
+	if code == unknownElementCheck.Name {
+		return unknownElementCheck
+	}
+	return badFormulaCheck
 }

@@ -93,7 +93,7 @@ func TestSyntheticNetwork(t *testing.T) {
 // BenchmarkCycleCheck runs the cycle check on a network of 20 000
 // reactions, 2 000 of which carry their own ΔrG° (three of them wrong).
 func BenchmarkCycleCheck(b *testing.B) {
-	n := Load("synthetic.hess", memSource{"synthetic.hess": []byte(benchText())})
+	n := Load("synthetic.hess", memSource{"synthetic.hess": []byte(benchText())}, Options{})
 	base := n.Diagnostics
 	b.ReportAllocs()
 	b.ResetTimer()
@@ -106,7 +106,7 @@ func BenchmarkCycleCheck(b *testing.B) {
 // BenchmarkCycleBasis finds the cycle basis of the 2 000 reactions with
 // own data in the same network.
 func BenchmarkCycleBasis(b *testing.B) {
-	n := Load("synthetic.hess", memSource{"synthetic.hess": []byte(benchText())})
+	n := Load("synthetic.hess", memSource{"synthetic.hess": []byte(benchText())}, Options{})
 	var own []*Reaction
 	for _, rx := range n.Reactions {
 		if hasOwnData(rx) {

@@ -20,7 +20,7 @@ func FuzzCycles(f *testing.F) {
 	f.Add(bandNetwork(20))
 	f.Add("species A(g), B(g)\nreaction r: A(g) <-> A(g) { dg 1 kJ/mol }\nreaction s: A(g) <-> B(g) { rate A 1 1/s Ea 1 kJ/mol reverse A 2 1/s Ea 1 kJ/mol }\n")
 	f.Fuzz(func(t *testing.T, src string) {
-		n := Load("net.hess", memSource{"net.hess": []byte(src)})
+		n := Load("net.hess", memSource{"net.hess": []byte(src)}, Options{})
 		m := n.Stoichiometry()
 		for _, c := range m.CycleBasis(nil) {
 			if len(c.Terms) == 0 || c.Terms[0].Weight.Sign() <= 0 {

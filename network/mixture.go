@@ -32,7 +32,7 @@ func (c *compiler) mixture(m *lang.Mixture) {
 	}
 	mx := &Mixture{Name: m.Name.Name, Span: m.Span(), NameSpan: m.Name.Span(), Valid: true}
 	if first := c.net.LookupMixture(mx.Name); first != nil {
-		d := c.report("syntax", mx.NameSpan, "mixture name %s is used twice", mx.Name)
+		d := c.report(syntaxCheck, mx.NameSpan, "mixture name %s is used twice", mx.Name)
 		d.Related = []lang.Related{{Span: first.NameSpan, Message: "first mixture of that name"}}
 		mx.Valid = false
 	}
@@ -41,14 +41,14 @@ func (c *compiler) mixture(m *lang.Mixture) {
 		switch {
 		case it.Temperature != nil:
 			if mx.wroteT {
-				c.report("syntax", it.Span(), "mixture %s gives its temperature twice", mx.Name)
+				c.report(syntaxCheck, it.Span(), "mixture %s gives its temperature twice", mx.Name)
 				mx.Valid = false
 				continue
 			}
 			mx.wroteT = true
 			v, ok := c.quantity(it.Temperature, temperatureKind, "a mixture's temperature", false)
 			if ok && !(v.V > 0) {
-				c.report("implausible-value", it.Temperature.Span(), "mixture temperature %s is not above 0 K", quantityText(it.Temperature))
+				c.report(implausibleValueCheck, it.Temperature.Span(), "mixture temperature %s is not above 0 K", quantityText(it.Temperature))
 				ok = false
 			}
 			if !ok {
@@ -58,14 +58,14 @@ func (c *compiler) mixture(m *lang.Mixture) {
 			mx.Temperature = v
 		case it.Pressure != nil:
 			if mx.wroteP {
-				c.report("syntax", it.Span(), "mixture %s gives its pressure twice", mx.Name)
+				c.report(syntaxCheck, it.Span(), "mixture %s gives its pressure twice", mx.Name)
 				mx.Valid = false
 				continue
 			}
 			mx.wroteP = true
 			v, ok := c.quantity(it.Pressure, pressureKind, "a mixture's pressure", false)
 			if ok && !(v.V > 0) {
-				c.report("implausible-value", it.Pressure.Span(), "mixture pressure %s is not above 0", quantityText(it.Pressure))
+				c.report(implausibleValueCheck, it.Pressure.Span(), "mixture pressure %s is not above 0", quantityText(it.Pressure))
 				ok = false
 			}
 			if !ok {
@@ -97,7 +97,7 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 	}
 	mm := MixMember{Species: sp, Span: m.Span()}
 	if first, dup := seen[sp]; dup {
-		d := c.report("mixture-amount", m.Species.Span(), "%s is listed twice in mixture %s", sp.Key, mx.Name)
+		d := c.report(mixtureAmountCheck, m.Species.Span(), "%s is listed twice in mixture %s", sp.Key, mx.Name)
 		d.Related = []lang.Related{{Span: first, Message: "first listed here"}}
 		return mm, false
 	}
@@ -106,7 +106,7 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 	var unit thermo.Unit
 	if q != nil {
 		if q.Sigma != nil {
-			c.report("mixture-amount", q.Sigma.Span(), "a mixture amount takes no uncertainty")
+			c.report(mixtureAmountCheck, q.Sigma.Span(), "a mixture amount takes no uncertainty")
 			return mm, false
 		}
 		v, ok := c.number(q.Value)
@@ -138,68 +138,68 @@ func (c *compiler) memberKind(mm *MixMember, m *lang.MixMember, unit thermo.Unit
 	case thermo.ActivityGas:
 		switch {
 		case q == nil:
-			c.report("mixture-amount", m.Span(), "%s is a gas: give its mole fraction (a bare number) or its partial pressure (such as 0.5 bar)", name)
+			c.report(mixtureAmountCheck, m.Span(), "%s is a gas: give its mole fraction (a bare number) or its partial pressure (such as 0.5 bar)", name)
 			return false
 		case q.Unit == nil:
 			if mm.Amount.V < 0 {
-				c.report("mixture-amount", q.Span(), "mole fraction of %s is negative (%s)", name, q.Value.Text)
+				c.report(mixtureAmountCheck, q.Span(), "mole fraction of %s is negative (%s)", name, q.Value.Text)
 				return false
 			}
 			mm.Kind = AmountFraction // zero is judged with the other fractions
 		case unit.Dim == thermo.DimPressure:
 			mm.Amount.V = unit.ToSI(mm.Amount.V)
 			if !(mm.Amount.V > 0) {
-				c.report("mixture-amount", q.Span(), "partial pressure of %s must be above 0, found %s", name, quantityText(q))
+				c.report(mixtureAmountCheck, q.Span(), "partial pressure of %s must be above 0, found %s", name, quantityText(q))
 				return false
 			}
 			mm.Kind = AmountPartialPressure
 		default:
-			c.report("mixture-amount", q.Unit.Span(), "%s is a gas: its amount is a mole fraction (a bare number) or a partial pressure, not %s (%s)",
+			c.report(mixtureAmountCheck, q.Unit.Span(), "%s is a gas: its amount is a mole fraction (a bare number) or a partial pressure, not %s (%s)",
 				name, thermo.DimName(unit.Dim), q.Unit.Text)
 			return false
 		}
 	case thermo.ActivitySolute:
 		switch {
 		case q == nil:
-			c.report("mixture-amount", m.Span(), "%s is a solute: give its molality, such as 0.01 mol/kg", name)
+			c.report(mixtureAmountCheck, m.Span(), "%s is a solute: give its molality, such as 0.01 mol/kg", name)
 			return false
 		case q.Unit == nil:
-			c.report("missing-unit", q.Span(), "molality of %s needs a unit, such as mol/kg", name)
+			c.report(missingUnitCheck, q.Span(), "molality of %s needs a unit, such as mol/kg", name)
 			return false
 		case unit.Dim == thermo.DimMolality:
 			mm.Amount.V = unit.ToSI(mm.Amount.V)
 			if !(mm.Amount.V > 0) {
-				c.report("mixture-amount", q.Span(), "molality of %s must be above 0, found %s", name, quantityText(q))
+				c.report(mixtureAmountCheck, q.Span(), "molality of %s must be above 0, found %s", name, quantityText(q))
 				return false
 			}
 			mm.Kind = AmountMolality
 		default:
-			c.report("mixture-amount", q.Unit.Span(), "%s is a solute: its amount is a molality in mol/kg, not %s (%s)",
+			c.report(mixtureAmountCheck, q.Unit.Span(), "%s is a solute: its amount is a molality in mol/kg, not %s (%s)",
 				name, thermo.DimName(unit.Dim), q.Unit.Text)
 			return false
 		}
 	case thermo.ActivitySolution:
 		switch {
 		case q == nil:
-			c.report("mixture-amount", m.Span(), "%s is a member of solution phase %s: give its mole fraction (a bare number)", name, sp.Phase.Tag)
+			c.report(mixtureAmountCheck, m.Span(), "%s is a member of solution phase %s: give its mole fraction (a bare number)", name, sp.Phase.Tag)
 			return false
 		case q.Unit != nil:
-			c.report("mixture-amount", q.Unit.Span(), "%s is a member of solution phase %s: its mole fraction is a bare number, without %s",
+			c.report(mixtureAmountCheck, q.Unit.Span(), "%s is a member of solution phase %s: its mole fraction is a bare number, without %s",
 				name, sp.Phase.Tag, q.Unit.Text)
 			return false
 		case !(mm.Amount.V > 0 && mm.Amount.V <= 1):
-			c.report("mixture-amount", q.Span(), "mole fraction of %s must be above 0 and at most 1, found %s", name, q.Value.Text)
+			c.report(mixtureAmountCheck, q.Span(), "mole fraction of %s must be above 0 and at most 1, found %s", name, q.Value.Text)
 			return false
 		}
 		mm.Kind = AmountSolution
 	case thermo.ActivityPureSolid, thermo.ActivityPureLiquid:
 		if q != nil {
-			c.report("mixture-amount", q.Span(), "%s is a pure phase: list it without a number to mark it present (its activity is 1)", name)
+			c.report(mixtureAmountCheck, q.Span(), "%s is a pure phase: list it without a number to mark it present (its activity is 1)", name)
 			return false
 		}
 		mm.Kind = AmountPresent
 	default:
-		c.report("mixture-amount", m.Species.Span(), "%s has no known phase, so its activity in a mixture is unknown", name)
+		c.report(mixtureAmountCheck, m.Species.Span(), "%s has no known phase, so its activity in a mixture is unknown", name)
 		return false
 	}
 	return true
@@ -211,11 +211,11 @@ func (c *compiler) memberKind(mm *MixMember, m *lang.MixMember, unit thermo.Unit
 func (c *compiler) unitNotUnit(q *lang.Quantity) {
 	text := q.Unit.Text
 	if parts, err := lang.SplitRef(text); err == nil && parts.State == "" {
-		c.report("mixture-amount", q.Unit.Span(), "%s", untaggedMessage(c.net, text, q.Value.Text))
+		c.report(mixtureAmountCheck, q.Unit.Span(), "%s", untaggedMessage(c.net, text, q.Value.Text))
 		return
 	}
 	_, err := thermo.ParseUnit(text)
-	c.report("unit-mismatch", q.Unit.Span(), "%s", unitErrorMessage(err))
+	c.report(unitMismatchCheck, q.Unit.Span(), "%s", unitErrorMessage(err))
 }
 
 // untaggedMessage explains a species written without its state tag after

@@ -16,9 +16,9 @@ func (m *Mixture) Usable() bool {
 
 // mixtureProblem is one finding about a mixture as a whole.
 type mixtureProblem struct {
-	code string
-	span lang.Span
-	msg  string
+	check *Check
+	span  lang.Span
+	msg   string
 }
 
 // mixtureIncomplete lists what a mixture lacks: a temperature, a total
@@ -26,7 +26,7 @@ type mixtureProblem struct {
 func mixtureIncomplete(m *Mixture) []mixtureProblem {
 	var out []mixtureProblem
 	add := func(format string, args ...any) {
-		out = append(out, mixtureProblem{"mixture-incomplete", m.NameSpan, fmt.Sprintf(format, args...)})
+		out = append(out, mixtureProblem{mixtureIncompleteCheck, m.NameSpan, fmt.Sprintf(format, args...)})
 	}
 	if !m.wroteT {
 		add("mixture %s gives no temperature (such as temperature 850 degC)", m.Name)
@@ -57,22 +57,22 @@ func mixtureProblems(m *Mixture) []mixtureProblem {
 	}
 	switch {
 	case n > 0 && sum == 0:
-		out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+		out = append(out, mixtureProblem{mixtureFractionsCheck, m.NameSpan,
 			fmt.Sprintf("the gas mole fractions of mixture %s sum to 0: there is nothing to normalise", m.Name)})
 	case n > 0:
 		for _, mm := range m.Members {
 			if mm.Kind == AmountFraction && mm.Amount.V == 0 {
-				out = append(out, mixtureProblem{"mixture-amount", mm.Amount.Span,
+				out = append(out, mixtureProblem{mixtureAmountCheck, mm.Amount.Span,
 					fmt.Sprintf("mole fraction of %s is 0, which makes Q zero or infinite: leave the species out, or give its detection limit", mm.Species.Key)})
 			}
 		}
 	}
 	if n > 0 && partialN > 0 {
-		out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+		out = append(out, mixtureProblem{mixtureFractionsCheck, m.NameSpan,
 			fmt.Sprintf("mixture %s gives %d gases as mole fractions and %d as partial pressures: give them all one way", m.Name, n, partialN)})
 	}
 	if partialN > 0 && m.Pressure != nil && partials > m.Pressure.V*(1+1e-9) {
-		out = append(out, mixtureProblem{"mixture-fractions", m.Pressure.Span,
+		out = append(out, mixtureProblem{mixtureFractionsCheck, m.Pressure.Span,
 			fmt.Sprintf("the partial pressures of mixture %s sum to %s bar, above its pressure %s bar", m.Name,
 				barText(partials), barText(m.Pressure.V))})
 	}
@@ -89,7 +89,7 @@ func mixtureProblems(m *Mixture) []mixtureProblem {
 	sort.Strings(tags)
 	for _, tag := range tags {
 		if s := solution[tag]; s > 1+1e-9 {
-			out = append(out, mixtureProblem{"mixture-fractions", m.NameSpan,
+			out = append(out, mixtureProblem{mixtureFractionsCheck, m.NameSpan,
 				fmt.Sprintf("the mole fractions in solution phase %s of mixture %s sum to %.6g, above 1", tag, m.Name, s)})
 		}
 	}

@@ -20,8 +20,13 @@ type Network struct {
 	Reactions []*Reaction
 	Mixtures  []*Mixture
 
+	// Temperatures are the temperatures the network was checked at: the
+	// caller's (Options.Temperatures) or else the settings'.
+	Temperatures []float64
+
 	Diagnostics lang.Diagnostics
 
+	files          map[string]*File // by File.ID
 	speciesByKey   map[string]*Species
 	reactionByName map[string]*Reaction
 }
@@ -29,6 +34,7 @@ type Network struct {
 // File is one source file of the network.
 type File struct {
 	Path   string // as reached: the root as given, includes joined to their includer's folder
+	ID     string // identity: PathID(Path), computed once by the loader
 	Source []byte
 	AST    *lang.File
 }

@@ -13,7 +13,7 @@ func loadNearText(t *testing.T, src string) *Network {
 	if err != nil {
 		t.Fatal(err)
 	}
-	return Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}})
+	return Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}}, Options{})
 }
 
 // TestSpeciesSuggestion: an undeclared species names the declared one it is
@@ -163,7 +163,7 @@ func BenchmarkUndeclaredSuggestions(b *testing.B) {
 		root, _ := filepath.Abs("bench.hess")
 		b.Run(tc.name, func(b *testing.B) {
 			for i := 0; i < b.N; i++ {
-				Load(root, Overlay{Files: map[string][]byte{root: src}, Base: Disk{}})
+				Load(root, Overlay{Files: map[string][]byte{root: src}, Base: Disk{}}, Options{})
 			}
 		})
 	}

@@ -44,13 +44,13 @@ func TestParallelMatchesSerial(t *testing.T) {
 	var runs [2]string
 	for i, procs := range []int{1, 4} {
 		runtime.GOMAXPROCS(procs)
-		runs[i] = describeNetwork(Load(root, src))
+		runs[i] = describeNetwork(Load(root, src, Options{}))
 	}
 	if runs[0] != runs[1] {
 		t.Errorf("one processor and four give different networks:\n--- one\n%.2000s\n--- four\n%.2000s", runs[0], runs[1])
 	}
 	for _, code := range []string{"element-imbalance", "undefined-species", "duplicate-reaction-name", "unit-mismatch", "syntax", "duplicate-reaction"} {
-		if !containsCode(Load(root, src), code) {
+		if !containsCode(Load(root, src, Options{}), code) {
 			t.Errorf("no %s among the diagnostics: the faults do not reach every pass", code)
 		}
 	}
@@ -58,7 +58,7 @@ func TestParallelMatchesSerial(t *testing.T) {
 
 func containsCode(n *Network, code string) bool {
 	for _, d := range n.Diagnostics {
-		if d.Code == code {
+		if string(d.Code) == code {
 			return true
 		}
 	}

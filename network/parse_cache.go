@@ -59,15 +59,3 @@ func (p *ParseCaches) Len() int {
 	defer p.mu.Unlock()
 	return len(p.files)
 }
-
-// LoadCached is Load, taking unchanged statements of each file from caches
-// and keeping the new ones there.
-func LoadCached(root string, src Source, caches *ParseCaches) *Network {
-	n := &Network{Root: root}
-	l := &loader{net: n, src: src, index: map[string]int{}, caches: caches}
-	l.load(root, nil, lang.Span{})
-	compile(n)
-	runChecks(n)
-	finalize(n)
-	return n
-}

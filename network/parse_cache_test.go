@@ -14,7 +14,7 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 	caches := NewParseCaches()
 	same := func() {
 		t.Helper()
-		got, want := LoadCached(root, src, caches), Load(root, src)
+		got, want := Load(root, src, Options{Caches: caches}), Load(root, src, Options{})
 		if fmt.Sprint(got.Diagnostics) != fmt.Sprint(want.Diagnostics) {
 			t.Fatalf("cached load reports\n %v\nfresh load\n %v", got.Diagnostics, want.Diagnostics)
 		}
@@ -27,7 +27,7 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 	name := "/syn/reactions-1.hess"
 	src[name] = bytes.Replace(src[name], []byte("reaction r2: "), []byte("reaction r2: 2 "), 1)
 	same()
-	n := LoadCached(root, src, caches)
+	n := Load(root, src, Options{Caches: caches})
 	found := false
 	for _, d := range n.Diagnostics {
 		found = found || d.Code == "element-imbalance"
@@ -35,7 +35,7 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 	if !found {
 		t.Error("the edited reaction does not show as unbalanced")
 	}
-	hits, parsed := caches.file(identity(name)).Reused()
+	hits, parsed := caches.file(PathID(name)).Reused()
 	if parsed != 0 || hits == 0 {
 		t.Errorf("third load of an unchanged file parsed %d statements and reused %d", parsed, hits)
 	}
@@ -45,11 +45,11 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 func TestParseCachesRetain(t *testing.T) {
 	root, src, _ := synthSource(t, 50, 100)
 	caches := NewParseCaches()
-	n := LoadCached(root, src, caches)
+	n := Load(root, src, Options{Caches: caches})
 	if caches.Len() != len(n.Files) {
 		t.Fatalf("%d caches for %d files", caches.Len(), len(n.Files))
 	}
-	keep := identity(root)
+	keep := PathID(root)
 	caches.Retain(func(path string) bool { return path == keep })
 	if caches.Len() != 1 {
 		t.Errorf("%d caches after keeping the root's alone", caches.Len())

@@ -20,12 +20,12 @@ func (c *compiler) prefactor(q *lang.Quantity) (*Value, bool) {
 		return nil, false
 	}
 	if q.Unit == nil {
-		c.report("missing-unit", q.Value.Span(), "A needs a rate unit, such as 1/s or cm3/mol/s")
+		c.report(missingUnitCheck, q.Value.Span(), "A needs a rate unit, such as 1/s or cm3/mol/s")
 		return nil, false
 	}
 	u, err := thermo.ParseUnit(q.Unit.Text)
 	if err != nil {
-		c.report("unit-mismatch", q.Unit.Span(), "A takes a rate unit (such as 1/s or cm3/mol/s): %s", unitErrorMessage(err, prefactorDims()...))
+		c.report(unitMismatchCheck, q.Unit.Span(), "A takes a rate unit (such as 1/s or cm3/mol/s): %s", unitErrorMessage(err, prefactorDims()...))
 		return nil, false
 	}
 	for order := 0; order <= maxOrder; order++ {
@@ -37,13 +37,13 @@ func (c *compiler) prefactor(q *lang.Quantity) (*Value, bool) {
 				}
 			}
 			if out.V <= 0 {
-				c.report("implausible-value", q.Span(), "a rate prefactor must be positive, found %s", q.Value.Text)
+				c.report(implausibleValueCheck, q.Span(), "a rate prefactor must be positive, found %s", q.Value.Text)
 				return nil, false
 			}
 			return out, true
 		}
 	}
-	c.report("unit-mismatch", q.Unit.Span(), "A takes a rate unit (volume/mol)^(order-1)/s, such as 1/s or cm3/mol/s, found %s (%s)", q.Unit.Text, thermo.DimName(u.Dim))
+	c.report(unitMismatchCheck, q.Unit.Span(), "A takes a rate unit (volume/mol)^(order-1)/s, such as 1/s or cm3/mol/s, found %s (%s)", q.Unit.Text, thermo.DimName(u.Dim))
 	return nil, false
 }
 

@@ -93,7 +93,7 @@ func (c *compiler) number(num *lang.Num) (float64, bool) {
 		return 0, false
 	}
 	if err != nil {
-		c.report("syntax", num.Span(), "%v", err)
+		c.report(syntaxCheck, num.Span(), "%v", err)
 		return 0, false
 	}
 	return v, true
@@ -117,18 +117,18 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 			return nil, false
 		}
 		if s < 0 {
-			c.report("syntax", q.Sigma.Span(), "an uncertainty cannot be negative, found %s", q.Sigma.Text)
+			c.report(syntaxCheck, q.Sigma.Span(), "an uncertainty cannot be negative, found %s", q.Sigma.Text)
 			return nil, false
 		}
 		sigma = s
 	}
 	if q.Unit == nil {
-		c.report("missing-unit", q.Value.Span(), "%s needs a unit of %s, such as %s", what, kind.name, kind.example)
+		c.report(missingUnitCheck, q.Value.Span(), "%s needs a unit of %s, such as %s", what, kind.name, kind.example)
 		return nil, false
 	}
 	u, err := thermo.ParseUnit(q.Unit.Text)
 	if err != nil {
-		c.report("unit-mismatch", q.Unit.Span(), "%s takes %s (such as %s): %s",
+		c.report(unitMismatchCheck, q.Unit.Span(), "%s takes %s (such as %s): %s",
 			what, kind.name, kind.example, unitErrorMessage(err, kind.dim))
 		return nil, false
 	}
@@ -138,7 +138,7 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 		if fix := perMoleFix(q.Unit.Text, kind.dim); fix != "" {
 			msg += "; " + suggest.DidYouMean(fix)
 		}
-		c.report("unit-mismatch", q.Unit.Span(), "%s", msg)
+		c.report(unitMismatchCheck, q.Unit.Span(), "%s", msg)
 		return nil, false
 	}
 	out := &Value{Sigma: sigma * u.Scale, Span: q.Span(), Stated: q.Sigma != nil}
@@ -148,7 +148,7 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 		out.V = u.ToSI(v)
 	}
 	if math.IsInf(out.V, 0) || math.IsInf(out.Sigma, 0) || math.IsNaN(out.V) {
-		c.report("syntax", q.Span(), "%s %s %s is out of range once converted to SI units", what, q.Value.Text, q.Unit.Text)
+		c.report(syntaxCheck, q.Span(), "%s %s %s is out of range once converted to SI units", what, q.Value.Text, q.Unit.Text)
 		return nil, false
 	}
 	return out, true

@@ -22,7 +22,7 @@ func (m memSource) ReadFile(path string) ([]byte, error) {
 
 func loadText(t testing.TB, text string) *Network {
 	t.Helper()
-	return Load("net.hess", memSource{"net.hess": []byte(text)})
+	return Load("net.hess", memSource{"net.hess": []byte(text)}, Options{})
 }
 
 // TestNoPanic compiles hostile inputs end to end: each must come back with
@@ -68,7 +68,7 @@ func TestLargeFile(t *testing.T) {
 		fmt.Fprintf(&b, "reaction r%d: 2 H2(g) + O2(g) <-> 2 H2O(g) # a comment to pad the line out\n", count)
 		count++
 	}
-	n := Load("big.hess", memSource{"big.hess": b.Bytes()})
+	n := Load("big.hess", memSource{"big.hess": b.Bytes()}, Options{})
 	if len(n.Reactions) != count {
 		t.Fatalf("got %d reactions, want %d", len(n.Reactions), count)
 	}
@@ -87,7 +87,7 @@ func TestLargeFile(t *testing.T) {
 }
 
 func TestMissingRoot(t *testing.T) {
-	n := Load("absent.hess", memSource{})
+	n := Load("absent.hess", memSource{}, Options{})
 	if len(n.Files) != 0 || len(n.Diagnostics) != 1 || n.Diagnostics[0].Code != "include-missing" {
 		t.Fatalf("got %d files, diagnostics %v", len(n.Files), n.Diagnostics)
 	}
@@ -97,7 +97,7 @@ func TestMissingRoot(t *testing.T) {
 		t.Errorf("message %q, want %q", got, "cannot read absent.hess: no such file")
 	}
 	// A source that fails another way says so instead.
-	other := Load("locked.hess", failingSource{errors.New("permission denied")})
+	other := Load("locked.hess", failingSource{errors.New("permission denied")}, Options{})
 	if len(other.Diagnostics) != 1 || !strings.Contains(other.Diagnostics[0].Message, "permission denied") ||
 		strings.Contains(other.Diagnostics[0].Message, "no such file") {
 		t.Errorf("unreadable root: %v", other.Diagnostics)

@@ -7,8 +7,8 @@ import "testing"
 // order.
 func TestRunChecksDeterministic(t *testing.T) {
 	root, src, _ := synthSource(t, 200, 1000)
-	a := Load(root, src)
-	b := Load(root, src)
+	a := Load(root, src, Options{})
+	b := Load(root, src, Options{})
 	if len(a.Diagnostics) == 0 {
 		t.Fatal("no diagnostics on the generated network")
 	}

@@ -65,7 +65,7 @@ func benchLoad(b *testing.B, shape synth.Shape, species, reactions int) {
 	b.SetBytes(int64(bytes))
 	b.ReportAllocs()
 	for b.Loop() {
-		n := Load(root, src)
+		n := Load(root, src, Options{})
 		if len(n.Reactions) != reactions {
 			b.Fatalf("%d reactions", len(n.Reactions))
 		}
@@ -79,7 +79,7 @@ func benchLoad(b *testing.B, shape synth.Shape, species, reactions int) {
 func BenchmarkChecksSynthetic(b *testing.B) {
 	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
 		root, src, _ := shapeSource(b, shape, 10000, 50000)
-		n := Load(root, src)
+		n := Load(root, src, Options{})
 		base := n.Diagnostics
 		for _, c := range checks {
 			if c.Run == nil {
@@ -101,7 +101,7 @@ func BenchmarkChecksSynthetic(b *testing.B) {
 // themselves.
 func BenchmarkCycleCheckSynthetic(b *testing.B) {
 	root, src, _ := synthSource(b, 10000, 50000)
-	n := Load(root, src)
+	n := Load(root, src, Options{})
 	base := n.Diagnostics
 	b.ReportAllocs()
 	for b.Loop() {

@@ -11,7 +11,7 @@ import (
 // coefficients fall back.
 func TestIntegerFastPathsAgree(t *testing.T) {
 	root, src, _ := synthSource(t, 200, 400)
-	n := Load(root, src)
+	n := Load(root, src, Options{})
 	if len(n.Reactions) != 400 {
 		t.Fatalf("%d reactions", len(n.Reactions))
 	}

@@ -60,17 +60,9 @@ func (s Symbol) Definition() (lang.Span, bool) {
 	return lang.Span{}, false
 }
 
-// File returns the network's file at path (compared as absolute paths),
-// or nil when the network does not read it.
-func (n *Network) File(path string) *File {
-	id := identity(path)
-	for _, f := range n.Files {
-		if f.Path == path || identity(f.Path) == id {
-			return f
-		}
-	}
-	return nil
-}
+// File returns the network's file at path (compared by PathID), or nil
+// when the network does not read it.
+func (n *Network) File(path string) *File { return n.files[PathID(path)] }
 
 // SymbolAt finds the name that covers the byte offset in the file at path:
 // the offset may be anywhere inside the name or just after its last

@@ -36,7 +36,7 @@ species C(cr)
 
 func symbolsNetwork(t *testing.T) *Network {
 	t.Helper()
-	return Load("/w/plant.hess", memFiles{"/w/plant.hess": symbolsRoot, "/w/lib/gases.hess": symbolsLib})
+	return Load("/w/plant.hess", memFiles{"/w/plant.hess": symbolsRoot, "/w/lib/gases.hess": symbolsLib}, Options{})
 }
 
 // at is the byte offset of the n-th occurrence (from 1) of sub in text,
@@ -148,7 +148,7 @@ reaction red: Fe^3+(aq) + e- <-> Fe^2+(aq)
 reaction burn: H2(g) + O2(g) <-> H2O(l)
 reaction half: H2(g) + 1/2 O2(g) <-> H2O(l)
 reaction ghost: Y(g) <-> H2(g)
-`})
+`}, Options{})
 	text := func(rx *Reaction) string {
 		els, l, r, ok := rx.Balance()
 		if !ok {

@@ -20,7 +20,7 @@ func TestSynthShapesCheck(t *testing.T) {
 		shape := c.shape
 		t.Run(fmt.Sprintf("%v/%d/%d", shape, c.species, c.reactions), func(t *testing.T) {
 			root, src, _ := shapeSource(t, shape, c.species, c.reactions)
-			n := Load(root, src)
+			n := Load(root, src, Options{})
 			if len(n.Species) != c.species || len(n.Reactions) != c.reactions {
 				t.Fatalf("%d species and %d reactions, want %d and %d", len(n.Species), len(n.Reactions), c.species, c.reactions)
 			}

@@ -42,7 +42,7 @@ func TestTemperatureListBounds(t *testing.T) {
 // not as a stray unit.
 func TestHexNumberReportedAtNumber(t *testing.T) {
 	src := "species H2(g) { hf 0x1p3 kJ/mol }\n"
-	net := Load("/hostile/hex.hess", Overlay{Files: map[string][]byte{"/hostile/hex.hess": []byte(src)}})
+	net := Load("/hostile/hex.hess", Overlay{Files: map[string][]byte{"/hostile/hex.hess": []byte(src)}}, Options{})
 	var msgs []string
 	for _, d := range net.Diagnostics {
 		if d.Code == "syntax" {
@@ -70,7 +70,7 @@ func TestShortLargeNumbers(t *testing.T) {
 // as +Inf.
 func TestConversionOverflowReported(t *testing.T) {
 	src := "species H2(g) { hf 1e308 kJ/mol }\n"
-	net := Load("/hostile/big.hess", Overlay{Files: map[string][]byte{"/hostile/big.hess": []byte(src)}})
+	net := Load("/hostile/big.hess", Overlay{Files: map[string][]byte{"/hostile/big.hess": []byte(src)}}, Options{})
 	for _, d := range net.Diagnostics {
 		if strings.Contains(d.Message, "out of range once converted") {
 			return

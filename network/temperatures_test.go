@@ -2,27 +2,45 @@ package network
 
 import (
 	"math"
+	"path/filepath"
 	"strings"
 	"testing"
+
+	"hess/lang"
 )
 
-func TestTemperatureDiagnostics(t *testing.T) {
-	n := loadThermo(t, `
+// TestRequestedTemperatures: the checks of requested temperatures run once,
+// at the caller's temperatures when it names them, and the settings stay.
+func TestRequestedTemperatures(t *testing.T) {
+	const src = `
 settings { temperatures 600 K }
 include "webbook-shomate.hess"
 reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
-`)
-	for _, d := range n.Diagnostics {
-		if IsTemperatureCode(d.Code) {
-			t.Errorf("at the settings' 600 K: %s %s", d.Code, d.Message)
+`
+	temperatureCodes := func(n *Network) (out []lang.Diagnostic) {
+		for _, d := range n.Diagnostics {
+			if string(d.Code) == extrapolationCheck.Name || string(d.Code) == missingThermoCheck.Name {
+				out = append(out, d)
+			}
 		}
+		return out
 	}
-	ds := n.TemperatureDiagnostics([]float64{298.15, 400, 700})
+	if ds := temperatureCodes(loadThermo(t, src)); len(ds) != 0 {
+		t.Errorf("at the settings' 600 K: %v", ds)
+	}
+	dir, err := filepath.Abs(filepath.Join("testdata", "thermo"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	root := filepath.Join(dir, "net.hess")
+	temps := []float64{298.15, 400, 700}
+	n := Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}}, Options{Temperatures: temps})
+	ds := temperatureCodes(n)
 	if len(ds) != 1 || ds[0].Code != "extrapolation" || !strings.Contains(ds[0].Message, "298.15 K and 400 K are outside the data of H2O(g)") {
 		t.Errorf("diagnostics at 298.15, 400 and 700 K: %v", ds)
 	}
-	if len(n.Settings.Temperatures) != 1 {
-		t.Errorf("TemperatureDiagnostics changed the network's temperatures to %v", n.Settings.Temperatures)
+	if len(n.Settings.Temperatures) != 1 || len(n.Temperatures) != 3 {
+		t.Errorf("settings' temperatures %v, checked at %v", n.Settings.Temperatures, n.Temperatures)
 	}
 }
 

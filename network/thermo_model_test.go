@@ -20,7 +20,7 @@ func loadThermo(t testing.TB, src string) *Network {
 		t.Fatal(err)
 	}
 	root := filepath.Join(dir, "net.hess")
-	n := Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}})
+	n := Load(root, Overlay{Files: map[string][]byte{root: []byte(src)}, Base: Disk{}}, Options{})
 	for _, d := range n.Diagnostics {
 		if d.Severity == lang.Error {
 			t.Fatalf("%s:%d: %s: %s", d.Subject.File, d.Subject.Start.Line, d.Code, d.Message)

@@ -62,16 +62,16 @@ func TestCheckExpectations(t *testing.T) {
 	covered := map[string]bool{}
 	for _, root := range roots {
 		t.Run(filepath.Base(root), func(t *testing.T) {
-			n := Load(root, Disk{})
+			n := Load(root, Disk{}, Options{})
 			wants := collectWants(t, n)
 			matched := make([]bool, len(wants))
 			for _, d := range n.Diagnostics {
 				found := false
 				for i, w := range wants {
-					if !matched[i] && w.code == d.Code && sameFile(w.file, d.Subject.File) &&
+					if !matched[i] && w.code == string(d.Code) && sameFile(w.file, d.Subject.File) &&
 						w.line == d.Subject.Start.Line && strings.Contains(d.Message, w.text) {
 						matched[i], found = true, true
-						covered[d.Code] = true
+						covered[string(d.Code)] = true
 						break
 					}
 				}
@@ -102,7 +102,7 @@ func sameFile(a, b string) bool { return filepath.Clean(a) == filepath.Clean(b) 
 func TestExamplesCheckClean(t *testing.T) {
 	roots := exampleRoots(t)
 	for _, root := range roots {
-		n := Load(root, Disk{})
+		n := Load(root, Disk{}, Options{})
 		for _, d := range n.Diagnostics {
 			t.Errorf("%s:%d:%d: %s[%s]: %s", d.Subject.File, d.Subject.Start.Line, d.Subject.Start.Column, d.Severity, d.Code, d.Message)
 		}

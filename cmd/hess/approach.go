@@ -11,7 +11,7 @@ import (
 )
 
 func runApproach(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("approach", "approach [--mixture NAME] [--format text|csv|json|markdown] FILE",
+	fs := newFlags("approach", "approach [--mixture NAME] [--format text|csv|json|markdown] [--include-path DIR]... FILE",
 		"For each mixture of the network (or the one named) and each reaction whose\n"+
 			"species it lists: the reaction quotient Q on the network's activity\n"+
 			"conventions (gas p/p°, solute γ·m/(1 mol/kg) with γ from the network's\n"+
@@ -26,6 +26,7 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 	format := &choice{value: "text", allowed: []string{"text", "csv", "json", "markdown"}}
 	fs.Var(format, "format", "output format: text, csv, json or markdown")
 	mixture := fs.String("mixture", "", "evaluate only the mixture of this `NAME`")
+	includes := includePathFlag(fs)
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -35,7 +36,7 @@ func runApproach(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	doc, status := approachDocument(files[0], *mixture, stderr)
+	doc, status := approachDocument(files[0], *mixture, network.Options{IncludePaths: *includes}, stderr)
 	if doc == nil {
 		return status
 	}
@@ -62,8 +63,8 @@ type approachDoc struct {
 // approachDocument compiles root, reports its diagnostics on stderr and
 // evaluates the named mixture (every mixture when name is empty). It
 // returns nil and the exit status when there is nothing to print.
-func approachDocument(root, name string, stderr io.Writer) (*approachDoc, int) {
-	net, status := compileRoot("approach", root, stderr)
+func approachDocument(root, name string, opts network.Options, stderr io.Writer) (*approachDoc, int) {
+	net, status := compileRoot("approach", root, opts, stderr)
 	if net == nil {
 		return nil, status
 	}

@@ -12,7 +12,7 @@ import (
 )
 
 func runCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] FILE...",
+	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] [--include-path DIR]... FILE...",
 		"Compile each root file with everything it includes, run every check, and\n"+
 			"report the diagnostics. Exit status: 0 when there are no errors (and, with\n"+
 			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.\n"+
@@ -23,6 +23,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 	fs.Var(format, "format", "report format: text, json or sarif")
 	fs.Var(color, "color", "colour text output: auto, always or never")
 	strict := fs.Bool("strict", false, "treat warnings as errors for the exit status")
+	includes := includePathFlag(fs)
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -32,7 +33,7 @@ func runCheck(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	rep, trouble := compileAll(files, os.Stdin, stderr)
+	rep, trouble := compileAll(files, os.Stdin, network.Options{IncludePaths: *includes}, stderr)
 	if trouble && format.value != "sarif" {
 		return exitTrouble
 	}
@@ -72,7 +73,7 @@ const stdinName = "<stdin>"
 // stdin). A root that cannot be read is said on stderr and recorded in the
 // report's Trouble, and compileAll reports trouble; the other roots are
 // still compiled.
-func compileAll(roots []string, stdin io.Reader, stderr io.Writer) (*report, bool) {
+func compileAll(roots []string, stdin io.Reader, opts network.Options, stderr io.Writer) (*report, bool) {
 	rep := &report{}
 	sources := map[string][]byte{}
 	seenFile := map[string]bool{}
@@ -99,7 +100,7 @@ func compileAll(roots []string, stdin io.Reader, stderr io.Writer) (*report, boo
 			fail(displayName(root), fmt.Sprintf("cannot read %s: %v", displayName(root), unwrapPathError(err)))
 			continue
 		}
-		net := network.Load(root, src)
+		net := network.Load(root, src, opts)
 		if len(net.Files) == 0 {
 			fail(displayName(root), unreadableRoot(displayName(root), net))
 			continue
@@ -128,10 +129,11 @@ func compileAll(roots []string, stdin io.Reader, stderr io.Writer) (*report, boo
 }
 
 // unreadableRoot says why a root file gave no network: the loader's
-// message (it is a folder, permission denied, …) when it has one.
+// message (it is a folder, a named pipe, permission denied, …) when it has
+// one.
 func unreadableRoot(root string, net *network.Network) string {
 	for _, d := range net.Diagnostics {
-		if strings.HasPrefix(d.Message, "cannot read ") {
+		if !d.Subject.IsValid() && (strings.HasPrefix(d.Message, "cannot read ") || strings.HasPrefix(d.Message, "refusing ")) {
 			return d.Message
 		}
 	}

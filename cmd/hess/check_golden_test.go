@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"hess/network"
 )
 
 // TestCheckGolden renders every testdata network with the text and JSON
@@ -26,7 +28,7 @@ func TestCheckGolden(t *testing.T) {
 		base := strings.TrimSuffix(f, ".hess")
 		t.Run(filepath.Base(f), func(t *testing.T) {
 			var stderr bytes.Buffer
-			rep, trouble := compileAll([]string{filepath.ToSlash(f)}, nil, &stderr)
+			rep, trouble := compileAll([]string{filepath.ToSlash(f)}, nil, network.Options{}, &stderr)
 			if trouble {
 				t.Fatalf("compile: %s", stderr.String())
 			}

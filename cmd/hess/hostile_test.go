@@ -175,6 +175,8 @@ func TestHostileNetworks(t *testing.T) {
 			[]string{"number 1e-320 is too small to compute with"}, 0},
 		{"70 KB line with 5 000 findings", long + "\n",
 			[]string{"1:69995: error: species H2(g) is declared twice [duplicate-species]", "\n    …"}, 5000 * 400},
+		{"4 million words and no statement keyword", strings.Repeat("a ", 4<<20) + "\n",
+			[]string{"1:1: error: expected a statement"}, 64 << 10},
 		{"16 MB one-line name", "species " + strings.Repeat("Ab", 8<<20) + "(g)\n",
 			[]string{"error:"}, 64 << 10},
 	} {

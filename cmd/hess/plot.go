@@ -31,7 +31,7 @@ const (
 )
 
 func runPlot(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png FILE",
+	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png [--include-path DIR]... FILE",
 		"Draw a van 't Hoff plot: log10 K against 1000/T, one line per reaction (every\n"+
 			"reaction, or those named), over the span of the settings' temperatures or\n"+
 			"those of --temperatures. Parts computed from data outside their range are\n"+
@@ -41,6 +41,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 	temps := fs.String("temperatures", "", "span of temperatures to draw, e.g. \"600 K to 1200 K by 100 K\"")
 	var names nameList
 	fs.Var(&names, "reaction", "draw this reaction (repeatable; default: every reaction)")
+	includes := includePathFlag(fs)
 	out := fs.String("o", "", "write the plot to `FILE` (.svg or .png)")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
@@ -57,7 +58,7 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	doc, status := tabulate("plot", files[0], *temps, names, stderr)
+	doc, status := tabulate("plot", files[0], *temps, names, *includes, stderr)
 	if doc == nil {
 		return status
 	}

@@ -72,7 +72,7 @@ func renderJSON(w io.Writer, r *report) error {
 			EndLine:   end.Line,
 			EndColumn: end.Column,
 			Severity:  d.Severity.String(),
-			Code:      d.Code,
+			Code:      string(d.Code),
 			Message:   d.Message,
 			Detail:    d.Detail,
 			Related:   make([]jsonRelated, 0, len(d.Related)),

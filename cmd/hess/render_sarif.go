@@ -214,11 +214,11 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 	seen := map[string]int{} // file and line hash → occurrences so far
 	for _, d := range r.Diagnostics {
 		res := sarifResult{
-			RuleID:  d.Code,
+			RuleID:  string(d.Code),
 			Level:   sarifLevel(d.Severity),
 			Message: sarifMessage{Text: sarifMessageText(d)},
 		}
-		if i, ok := ruleIndex[d.Code]; ok {
+		if i, ok := ruleIndex[string(d.Code)]; ok {
 			res.RuleIndex = &i
 		}
 		if pl := physical(d.Subject); pl != nil {
@@ -325,7 +325,7 @@ func sarifLevel(s lang.Severity) string {
 func sarifMessageText(d lang.Diagnostic) string {
 	text := d.Message
 	if text == "" {
-		text = d.Code
+		text = string(d.Code)
 	}
 	if d.Detail != "" {
 		text += "\n" + d.Detail

@@ -510,13 +510,13 @@ func TestSARIFFields(t *testing.T) {
 	}
 	for i, d := range r.Diagnostics {
 		res := results[i]
-		if got := field(t, res, "ruleId"); got != d.Code {
+		if got := field(t, res, "ruleId"); got != string(d.Code) {
 			t.Errorf("result %d ruleId = %v, want %s", i, got, d.Code)
 		}
 		idx, hasIndex := res.(map[string]any)["ruleIndex"]
 		known := -1
 		for j, c := range checks {
-			if c.Name == d.Code {
+			if c.Name == string(d.Code) {
 				known = j
 			}
 		}

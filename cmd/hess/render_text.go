@@ -97,7 +97,7 @@ func writeTextDiagnostic(b *strings.Builder, d *lang.Diagnostic, src *sourceLine
 	b.WriteString(displayMessage(d.Message))
 	if d.Code != "" {
 		b.WriteString(" ")
-		b.WriteString(p.code("[" + d.Code + "]"))
+		b.WriteString(p.code("[" + string(d.Code) + "]"))
 	}
 	b.WriteByte('\n')
 

@@ -220,7 +220,7 @@ func TestSARIFSchemaEveryCheck(t *testing.T) {
 		t.Fatalf("no testdata networks: %v", err)
 	}
 	for _, f := range files {
-		rep, trouble := compileAll([]string{f}, nil, &bytes.Buffer{})
+		rep, trouble := compileAll([]string{f}, nil, network.Options{}, &bytes.Buffer{})
 		if trouble {
 			t.Fatalf("%s: cannot read", f)
 		}
@@ -280,7 +280,7 @@ func TestSARIFOutsideWorkingFolder(t *testing.T) {
 	}
 	sch := compileSARIFSchema(t)
 	t.Chdir(work)
-	rep, trouble := compileAll([]string{root}, nil, &bytes.Buffer{})
+	rep, trouble := compileAll([]string{root}, nil, network.Options{}, &bytes.Buffer{})
 	if trouble {
 		t.Fatal("cannot read the network")
 	}

@@ -22,7 +22,7 @@ const cautionText = "Caution: results are estimates from the data given, no bett
 	"before relying on them."
 
 func runTable(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("table", "table [--format text|csv|json|markdown] [--temperatures LIST] [--reaction NAME]... [-o FILE] FILE",
+	fs := newFlags("table", "table [--format text|csv|json|markdown] [--temperatures LIST] [--reaction NAME]... [-o FILE] [--include-path DIR]... FILE",
 		"Compute each reaction's standard reaction enthalpy, entropy and Gibbs energy,\n"+
 			"its equilibrium constant K (relative to the network's standard pressure p°\n"+
 			"and 1 mol/kg), log10 K, Kc in (mol/L)^Δn, the uncertainty of log10 K and the\n"+
@@ -35,6 +35,7 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 	temps := fs.String("temperatures", "", "temperatures instead of the settings', e.g. \"298.15 K, 700 K to 1200 K by 100 K\"")
 	var names nameList
 	fs.Var(&names, "reaction", "tabulate this reaction (repeatable; default: every reaction)")
+	includes := includePathFlag(fs)
 	out := fs.String("o", "", "write the table to `FILE` (atomically) instead of stdout")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
@@ -45,7 +46,7 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
-	doc, status := tabulate("table", files[0], *temps, names, stderr)
+	doc, status := tabulate("table", files[0], *temps, names, *includes, stderr)
 	if doc == nil {
 		return status
 	}
@@ -123,29 +124,21 @@ type tableDoc struct {
 // temperatures of tempText (the settings' when empty). It returns nil and
 // the exit status when there is nothing to print: a usage or input problem
 // (2) or a network with errors (1).
-func tabulate(cmd, root, tempText string, names []string, stderr io.Writer) (*tableDoc, int) {
-	net, status := compileRoot(cmd, root, stderr)
-	if net == nil {
-		return nil, status
-	}
-	temps := net.Settings.Temperatures
-	diags := net.Diagnostics
+func tabulate(cmd, root, tempText string, names, includes []string, stderr io.Writer) (*tableDoc, int) {
+	var requested []float64
 	if tempText != "" {
 		ts, err := network.ParseTemperatures(tempText)
 		if err != nil {
 			fmt.Fprintf(stderr, "hess %s: --temperatures: %v\n", cmd, err)
 			return nil, exitTrouble
 		}
-		temps = ts
-		var kept lang.Diagnostics
-		for _, d := range diags {
-			if !network.IsTemperatureCode(d.Code) {
-				kept = append(kept, d)
-			}
-		}
-		diags = append(kept, net.TemperatureDiagnostics(temps)...)
-		diags.Sort()
+		requested = ts
 	}
+	net, status := compileRoot(cmd, root, network.Options{Temperatures: requested, IncludePaths: includes}, stderr)
+	if net == nil {
+		return nil, status
+	}
+	temps, diags := net.Temperatures, net.Diagnostics
 	if len(diags) > 0 {
 		if err := renderText(stderr, networkReport(net, diags), useColor("auto", stderr)); err != nil {
 			return nil, exitTrouble
@@ -200,12 +193,12 @@ func newTableDoc(net *network.Network, root string, temps []float64, names []str
 
 // compileRoot loads one root file. It returns nil and exit status 2 (having
 // said why on stderr) when the file cannot be read.
-func compileRoot(cmd, root string, stderr io.Writer) (*network.Network, int) {
+func compileRoot(cmd, root string, opts network.Options, stderr io.Writer) (*network.Network, int) {
 	if _, err := os.Stat(root); err != nil {
 		fmt.Fprintf(stderr, "hess %s: cannot read %s: %v\n", cmd, root, unwrapPathError(err))
 		return nil, exitTrouble
 	}
-	net := network.Load(root, network.Disk{})
+	net := network.Load(root, network.Disk{}, opts)
 	if len(net.Files) == 0 {
 		fmt.Fprintf(stderr, "hess %s: %s\n", cmd, unreadableRoot(root, net))
 		return nil, exitTrouble

@@ -26,7 +26,7 @@ import (
 const watchDebounce = 100 * time.Millisecond
 
 func runWatch(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("watch", "watch [--table OUT] [--format text|csv|json|markdown] [--color auto|always|never] FILE...",
+	fs := newFlags("watch", "watch [--table OUT] [--format text|csv|json|markdown] [--color auto|always|never] [--include-path DIR]... FILE...",
 		"Check the networks, print the report, then check again whenever a root file\n"+
 			"or a file it includes changes (also when an editor saves by renaming a new\n"+
 			"file over the old one), printing each new report with the time. With\n"+
@@ -39,6 +39,7 @@ func runWatch(args []string, stdout, stderr io.Writer) int {
 	fs.Var(format, "format", "table format for --table: text, csv, json or markdown")
 	fs.Var(color, "color", "colour the reports: auto, always or never")
 	table := fs.String("table", "", "rewrite the table `FILE` after every good compile")
+	includes := includePathFlag(fs)
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -55,7 +56,7 @@ func runWatch(args []string, stdout, stderr io.Writer) int {
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 	defer stop()
 	return watch(ctx, watchOptions{
-		roots: files, table: *table, format: format.value,
+		roots: files, table: *table, format: format.value, includes: *includes,
 		color: useColor(color.value, stderr), debounce: watchDebounce,
 	}, stderr)
 }
@@ -63,8 +64,9 @@ func runWatch(args []string, stdout, stderr io.Writer) int {
 // watchOptions configure a watch.
 type watchOptions struct {
 	roots    []string
-	table    string // the table file to keep up to date, or ""
-	format   string // table format
+	table    string   // the table file to keep up to date, or ""
+	format   string   // table format
+	includes []string // --include-path folders
 	color    bool
 	debounce time.Duration
 	now      func() time.Time // the clock for timestamps; nil is time.Now
@@ -88,10 +90,11 @@ type watcher struct {
 	out  io.Writer // reports and trouble alike: all of it is progress
 	fsw  *fsnotify.Watcher
 
-	files   map[string]bool // clean absolute paths whose changes count
-	dirs    map[string]bool // folders watched
-	pending map[string]bool // missing folders on the way to a file: their creation counts
-	reports int             // reports printed so far
+	files   map[string]bool        // clean absolute paths whose changes count
+	modes   map[string]os.FileMode // their modes at the last compile
+	dirs    map[string]bool        // folders watched
+	pending map[string]bool        // missing folders on the way to a file: their creation counts
+	reports int                    // reports printed so far
 }
 
 // watch compiles, reports to stderr and waits for changes until ctx ends;
@@ -106,8 +109,16 @@ func watch(ctx context.Context, opts watchOptions, stderr io.Writer) int {
 		return exitTrouble
 	}
 	defer fsw.Close()
-	w := &watcher{opts: opts, out: stderr, fsw: fsw,
-		files: map[string]bool{}, dirs: map[string]bool{}, pending: map[string]bool{}}
+	// The roots and include folders are made absolute once: a relative
+	// path would go on naming the old folder after the working folder is
+	// deleted and made again.
+	opts.roots = absolutePaths(opts.roots)
+	opts.includes = absolutePaths(opts.includes)
+	if opts.table != "" {
+		opts.table = network.PathID(opts.table)
+	}
+	w := &watcher{opts: opts, out: stderr, fsw: fsw, files: map[string]bool{},
+		modes: map[string]os.FileMode{}, dirs: map[string]bool{}, pending: map[string]bool{}}
 	w.rebuild("checking " + strings.Join(displayNames(opts.roots), ", "))
 
 	timer := time.NewTimer(time.Hour)
@@ -145,11 +156,16 @@ func watch(ctx context.Context, opts watchOptions, stderr io.Writer) int {
 // missing folder on the way to one, or a watched folder itself), and what
 // happened to it.
 func (w *watcher) relevant(ev fsnotify.Event) (string, bool) {
-	if !ev.Has(fsnotify.Create) && !ev.Has(fsnotify.Write) && !ev.Has(fsnotify.Remove) && !ev.Has(fsnotify.Rename) {
-		return "", false // a change of permissions or times only
-	}
 	p := filepath.Clean(ev.Name)
 	if !w.files[p] && !w.pending[p] && !w.dirs[p] {
+		return "", false
+	}
+	if !ev.Has(fsnotify.Create) && !ev.Has(fsnotify.Write) && !ev.Has(fsnotify.Remove) && !ev.Has(fsnotify.Rename) {
+		// A change of permissions or times: it counts when a file's mode
+		// changed (an include made unreadable is reported at once).
+		if w.files[p] && ev.Has(fsnotify.Chmod) && fileMode(p) != w.modes[p] {
+			return "permissions changed", true
+		}
 		return "", false
 	}
 	switch {
@@ -189,14 +205,13 @@ func (w *watcher) rebuild(why string) {
 	var nets []*network.Network
 	missing := false
 	for _, root := range w.opts.roots {
-		abs := cleanAbs(root)
-		inputs[abs] = true
+		inputs[root] = true
 		if _, err := os.Stat(root); err != nil {
 			fmt.Fprintf(&buf, "%s cannot read %s: %v; waiting for it\n", w.stamp(), displayName(root), unwrapPathError(err))
 			missing = true
 			continue
 		}
-		net := network.Load(root, network.Disk{})
+		net := network.Load(root, network.Disk{}, network.Options{IncludePaths: w.opts.includes})
 		if len(net.Files) == 0 {
 			fmt.Fprintf(&buf, "%s %s; waiting for it\n", w.stamp(), unreadableRoot(displayName(root), net))
 			missing = true
@@ -204,10 +219,10 @@ func (w *watcher) rebuild(why string) {
 		}
 		nets = append(nets, net)
 		for _, f := range net.Files {
-			inputs[cleanAbs(f.Path)] = true
+			inputs[f.ID] = true
 		}
 		for _, inc := range net.Includes() {
-			inputs[cleanAbs(inc)] = true
+			inputs[network.PathID(inc)] = true
 		}
 	}
 	res := watchResult{errors: -1}
@@ -327,7 +342,20 @@ func (w *watcher) sync(inputs map[string]bool, log io.Writer) {
 		}
 		w.dirs[d] = true
 	}
-	w.files, w.pending = inputs, pending
+	modes := make(map[string]os.FileMode, len(inputs))
+	for f := range inputs {
+		modes[f] = fileMode(f)
+	}
+	w.files, w.modes, w.pending = inputs, modes, pending
+}
+
+// fileMode is a file's type and permissions, or 0 when it cannot be read.
+func fileMode(p string) os.FileMode {
+	info, err := os.Stat(p)
+	if err != nil {
+		return 0
+	}
+	return info.Mode()
 }
 
 func isDir(p string) bool {
@@ -335,11 +363,13 @@ func isDir(p string) bool {
 	return err == nil && info.IsDir()
 }
 
-func cleanAbs(p string) string {
-	if abs, err := filepath.Abs(p); err == nil {
-		return abs
+// absolutePaths gives each path's PathID.
+func absolutePaths(paths []string) []string {
+	out := make([]string, len(paths))
+	for i, p := range paths {
+		out[i] = network.PathID(p)
 	}
-	return filepath.Clean(p)
+	return out
 }
 
 func displayNames(paths []string) []string {
