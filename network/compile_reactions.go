@@ -196,6 +196,7 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 			}
 			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
 			if !ok {
+				rx.BrokenData = true
 				continue
 			}
 			switch pr.Value.Key {
@@ -207,7 +208,9 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 				rx.Ds = v
 			}
 		case pr.LogK != nil:
-			c.logK(rx, pr.LogK)
+			if !c.logK(rx, pr.LogK) {
+				rx.BrokenData = true
+			}
 		case pr.Rate != nil:
 			if rate := c.rate(pr.Rate); rate != nil {
 				if pr.Rate.Kind == "rate" {
@@ -222,27 +225,29 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 	}
 }
 
-func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
+// logK adds a measured log10 K to the reaction; false when it did not
+// compile (its error is reported).
+func (c *compiler) logK(rx *Reaction, l *lang.LogK) bool {
 	v, ok := c.number(l.Value)
 	if !ok {
-		return
+		return false
 	}
 	lk := LogK{Value: Value{V: v, Span: l.Value.Span()}, T: 298.15, Span: l.Span()}
 	if l.Sigma != nil {
 		s, ok := c.number(l.Sigma)
 		if !ok {
-			return
+			return false
 		}
 		lk.Value.Sigma = s
 	}
 	if l.At != nil {
 		t, ok := c.quantity(l.At, temperatureKind, "logk temperature", false)
 		if !ok {
-			return
+			return false
 		}
 		if t.V <= 0 {
 			c.report("implausible-value", l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
-			return
+			return false
 		}
 		lk.T = t.V
 	}
@@ -250,10 +255,11 @@ func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
 		if old.T == lk.T {
 			d := c.report("syntax", l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
 			d.Related = []lang.Related{{Span: old.Span, Message: "first given here"}}
-			return
+			return true // the first one holds
 		}
 	}
 	rx.LogK = append(rx.LogK, lk)
+	return true
 }
 
 func (c *compiler) rate(r *lang.Rate) *Rate {
