@@ -46,7 +46,6 @@ func hasOwnData(rx *Reaction) bool {
 	return rx.Resolved && (rx.Dg != nil || rx.Dh != nil || rx.Ds != nil || len(rx.LogK) > 0 || hasRatePair(rx))
 }
 
-//
 // A pair whose prefactor units do not fit the step's order (rate-units) is
 // no usable pair: its kf/kr would be off by powers of the concentration
 // unit, so the checks that compare it (detailed-balance, the cycles) stay
