@@ -1,0 +1,137 @@
+package main
+
+import (
+	"fmt"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"sort"
+	"strings"
+
+	"hess/network"
+)
+
+// networkExt is the extension of the network files a folder argument
+// stands for.
+const networkExt = ".hess"
+
+// expandArgs replaces each folder among the file arguments by every network
+// file below it, in lexical order (folders whose names begin with a dot,
+// such as .git, are skipped, and symbolic links to folders are not
+// followed). Files and "-" are kept as given. A path that does not exist or
+// a folder that cannot be read is returned as trouble: its message and the
+// argument.
+func expandArgs(args []string) (files []string, trouble []inputTrouble) {
+	seen := map[string]bool{}
+	add := func(path string) {
+		id := path
+		if path != "-" {
+			if abs, err := filepath.Abs(path); err == nil {
+				id = abs
+			}
+		}
+		if !seen[id] {
+			seen[id] = true
+			files = append(files, path)
+		}
+	}
+	for _, arg := range args {
+		if arg == "-" {
+			add(arg)
+			continue
+		}
+		info, err := os.Stat(arg)
+		if err != nil || !info.IsDir() {
+			add(arg) // the caller reports what cannot be read
+			continue
+		}
+		var found []string
+		err = filepath.WalkDir(arg, func(path string, d fs.DirEntry, err error) error {
+			if err != nil {
+				return err
+			}
+			if d.IsDir() {
+				if path != arg && strings.HasPrefix(d.Name(), ".") {
+					return filepath.SkipDir
+				}
+				return nil
+			}
+			if d.Type().IsRegular() && strings.HasSuffix(d.Name(), networkExt) {
+				found = append(found, path)
+			}
+			return nil
+		})
+		if err != nil {
+			trouble = append(trouble, inputTrouble{File: displayName(arg),
+				Message: fmt.Sprintf("cannot read %s: %v", displayName(arg), unwrapPathError(err))})
+			continue
+		}
+		sort.Strings(found)
+		for _, f := range found {
+			add(f)
+		}
+	}
+	return files, trouble
+}
+
+// loadedRoot is one candidate root file and the network it gives.
+type loadedRoot struct {
+	path string
+	net  *network.Network
+}
+
+// pickRoots keeps the candidates that no other candidate's network
+// includes: a shared library of species is checked through the networks
+// that include it, never on its own (where all its species would be
+// unused). Files that only include one another in a cycle are all
+// included; of those, the first not reached from a root so far becomes a
+// root too, so that every candidate is checked once. Order is kept.
+func pickRoots(cands []loadedRoot) []loadedRoot {
+	if len(cands) < 2 {
+		return cands
+	}
+	id := func(path string) string {
+		if abs, err := filepath.Abs(path); err == nil {
+			return abs
+		}
+		return filepath.Clean(path)
+	}
+	reach := make([]map[string]bool, len(cands))
+	included := map[string]bool{}
+	for i, c := range cands {
+		own := id(c.path)
+		reach[i] = map[string]bool{own: true}
+		for _, f := range c.net.Files {
+			fid := id(f.Path)
+			reach[i][fid] = true
+			if fid != own {
+				included[fid] = true
+			}
+		}
+	}
+	covered := map[string]bool{}
+	isRoot := make([]bool, len(cands))
+	take := func(i int) {
+		isRoot[i] = true
+		for f := range reach[i] {
+			covered[f] = true
+		}
+	}
+	for i, c := range cands {
+		if !included[id(c.path)] {
+			take(i)
+		}
+	}
+	for i, c := range cands {
+		if !covered[id(c.path)] {
+			take(i)
+		}
+	}
+	var roots []loadedRoot
+	for i, c := range cands {
+		if isRoot[i] {
+			roots = append(roots, c)
+		}
+	}
+	return roots
+}
