@@ -19,6 +19,10 @@ type builtReaction struct {
 	// propDiags come from the reaction's properties; they are reported
 	// only when the reaction is kept.
 	propDiags lang.Diagnostics
+	// mentioned are the declared species named anywhere in a statement
+	// that did not parse: it may well use them, so they are not reported
+	// as unused on account of its syntax error.
+	mentioned []*Species
 }
 
 // buildReactions compiles every reaction statement on its own, in
@@ -36,6 +40,9 @@ func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
 // buildReaction compiles one reaction statement into b.
 func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	r := st.Reaction
+	if st.Broken {
+		b.mentioned = c.mentioned(st)
+	}
 	if r.Name == nil {
 		return
 	}
@@ -63,6 +70,9 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 // addReaction names a built reaction in the network, in source order, so
 // that the first of two reactions with one name is the one kept.
 func (c *compiler) addReaction(b builtReaction) {
+	for _, sp := range b.mentioned {
+		sp.Used = true
+	}
 	rx := b.rx
 	if rx == nil {
 		return
@@ -88,6 +98,24 @@ func (c *compiler) addReaction(b builtReaction) {
 	}
 	c.net.Reactions = append(c.net.Reactions, rx)
 	c.net.Diagnostics = append(c.net.Diagnostics, b.propDiags...)
+}
+
+// mentioned returns the declared species that a statement's tokens name,
+// also where two terms are written as one token ("CO(g)+O2(g)").
+func (c *compiler) mentioned(st *lang.Statement) []*Species {
+	var out []*Species
+	for _, t := range st.Tokens {
+		for _, piece := range strings.Split(t.Value, ")+") {
+			if piece != t.Value {
+				piece = strings.TrimSuffix(piece, ")") + ")"
+			}
+			piece = strings.Trim(piece, "+")
+			if sp := c.lookup(piece); sp != nil {
+				out = append(out, sp)
+			}
+		}
+	}
+	return out
 }
 
 // lookup finds a declared species by reference, through the compiler's
