@@ -243,20 +243,22 @@ func TestHostileFullDevice(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the built binary")
 	}
-	for _, args := range [][]string{{"explain"}, {"explain", "syntax"}, {"version"}} {
+	for _, args := range [][]string{{"explain"}, {"explain", "syntax"}, {"version"},
+		{"help"}, {"--help"}, {"help", "check"}, {"help", "help"}, {"check", "--help"}, {"plot", "-h"}} {
 		r := runBounded(t, t.TempDir(), "", "/dev/full", args...)
 		expectRun(t, r, exitTrouble, "no space left on device")
 	}
 }
 
-// A folder given as a network says why it cannot be read.
+// A folder with no network file below it is input trouble, not a clean run.
 func TestHostileFolderRoot(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the built binary")
 	}
 	dir := t.TempDir()
 	os.Mkdir(filepath.Join(dir, "sub"), 0o755)
-	expectRun(t, runBounded(t, dir, "", "", "check", "sub"), exitTrouble, "cannot read sub: is a directory")
+	expectRun(t, runBounded(t, dir, "", "", "check", "sub"), exitTrouble, "sub holds no network files (*.hess)")
+	expectRun(t, runBounded(t, dir, "", "", "fmt", "--check", "sub"), exitTrouble, "sub holds no network files (*.hess)")
 }
 
 // The language server answers a negative request id with that id.

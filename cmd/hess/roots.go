@@ -20,7 +20,7 @@ const networkExt = ".hess"
 // such as .git, are skipped, and symbolic links to folders are not
 // followed). Files and "-" are kept as given. A path that does not exist or
 // a folder that cannot be read is returned as trouble: its message and the
-// argument.
+// argument. So is a folder with no network file below it.
 func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 	seen := map[string]bool{}
 	add := func(path string) {
@@ -64,6 +64,11 @@ func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 		if err != nil {
 			trouble = append(trouble, inputTrouble{File: displayName(arg),
 				Message: fmt.Sprintf("cannot read %s: %v", displayName(arg), unwrapPathError(err))})
+			continue
+		}
+		if len(found) == 0 {
+			trouble = append(trouble, inputTrouble{File: displayName(arg),
+				Message: fmt.Sprintf("%s holds no network files (*%s)", displayName(arg), networkExt)})
 			continue
 		}
 		sort.Strings(found)
