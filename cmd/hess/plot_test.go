@@ -9,7 +9,6 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
-
 )
 
 // TestPlotSVGGolden draws the reformer example's van 't Hoff plot as SVG and
