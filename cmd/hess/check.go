@@ -108,13 +108,13 @@ func compileAll(args []string, stdin io.Reader, stderr io.Writer) (*report, bool
 			fail(displayName(root), unreadableRoot(displayName(root), net))
 			continue
 		}
-		cands = append(cands, loadedRoot{path: root, net: net})
+		cands = append(cands, newLoadedRoot(root, net))
 	}
 	sources := map[string][]byte{}
 	seenFile := map[string]bool{}
 	seenDiag := map[string]bool{}
 	for _, c := range pickRoots(cands) {
-		for _, f := range c.net.Files {
+		for _, f := range c.files {
 			name := displayName(f.Path)
 			if !seenFile[name] {
 				seenFile[name] = true
@@ -122,7 +122,7 @@ func compileAll(args []string, stdin io.Reader, stderr io.Writer) (*report, bool
 				sources[name] = f.Source
 			}
 		}
-		for _, d := range c.net.Diagnostics {
+		for _, d := range c.diags {
 			d = displayDiagnostic(d)
 			key := fmt.Sprintf("%s|%d|%d|%s|%s", d.Subject.File, d.Subject.Start.Offset, d.Subject.End.Offset, d.Code, d.Message)
 			if seenDiag[key] {

@@ -8,6 +8,7 @@ import (
 	"sort"
 	"strings"
 
+	"hess/lang"
 	"hess/network"
 )
 
@@ -79,10 +80,23 @@ func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 	return files, trouble
 }
 
-// loadedRoot is one candidate root file and the network it gives.
+// loadedRoot is one candidate root file and what its network gives the
+// report: the files it read (path and text) and its diagnostics. The
+// compiled model is not kept, so that holding every candidate until the
+// roots are known costs about the sources and the findings.
 type loadedRoot struct {
-	path string
-	net  *network.Network
+	path  string
+	files []network.File // Path and Source only
+	diags lang.Diagnostics
+}
+
+// newLoadedRoot keeps what the report needs of a compiled network.
+func newLoadedRoot(path string, net *network.Network) loadedRoot {
+	files := make([]network.File, len(net.Files))
+	for i, f := range net.Files {
+		files[i] = network.File{Path: f.Path, Source: f.Source}
+	}
+	return loadedRoot{path: path, files: files, diags: net.Diagnostics}
 }
 
 // pickRoots keeps the candidates that no other candidate's network
@@ -106,7 +120,7 @@ func pickRoots(cands []loadedRoot) []loadedRoot {
 	for i, c := range cands {
 		own := id(c.path)
 		reach[i] = map[string]bool{own: true}
-		for _, f := range c.net.Files {
+		for _, f := range c.files {
 			fid := id(f.Path)
 			reach[i][fid] = true
 			if fid != own {
