@@ -27,9 +27,7 @@ func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 	add := func(path string) {
 		id := path
 		if path != "-" {
-			if abs, err := filepath.Abs(path); err == nil {
-				id = abs
-			}
+			id = fileIdentity(path)
 		}
 		if !seen[id] {
 			seen[id] = true
@@ -46,13 +44,20 @@ func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 			add(arg) // the caller reports what cannot be read
 			continue
 		}
+		// A folder named through a symbolic link is followed (a trailing
+		// separator makes the walk read the link's target); links below it
+		// are not.
+		root := arg
+		if li, err := os.Lstat(arg); err == nil && li.Mode()&fs.ModeSymlink != 0 {
+			root = arg + string(filepath.Separator)
+		}
 		var found []string
-		err = filepath.WalkDir(arg, func(path string, d fs.DirEntry, err error) error {
+		err = filepath.WalkDir(root, func(path string, d fs.DirEntry, err error) error {
 			if err != nil {
 				return err
 			}
 			if d.IsDir() {
-				if path != arg && strings.HasPrefix(d.Name(), ".") {
+				if path != root && strings.HasPrefix(d.Name(), ".") {
 					return filepath.SkipDir
 				}
 				return nil
@@ -78,6 +83,18 @@ func expandArgs(args []string) (files []string, trouble []inputTrouble) {
 		}
 	}
 	return files, trouble
+}
+
+// fileIdentity names a file once however it is reached: its absolute
+// path, through any symbolic links.
+func fileIdentity(path string) string {
+	if real, err := filepath.EvalSymlinks(path); err == nil {
+		path = real
+	}
+	if abs, err := filepath.Abs(path); err == nil {
+		return abs
+	}
+	return filepath.Clean(path)
 }
 
 // loadedRoot is one candidate root file and what its network gives the
@@ -109,12 +126,7 @@ func pickRoots(cands []loadedRoot) []loadedRoot {
 	if len(cands) < 2 {
 		return cands
 	}
-	id := func(path string) string {
-		if abs, err := filepath.Abs(path); err == nil {
-			return abs
-		}
-		return filepath.Clean(path)
-	}
+	id := fileIdentity
 	reach := make([]map[string]bool, len(cands))
 	included := map[string]bool{}
 	for i, c := range cands {

@@ -94,7 +94,11 @@ func TestCheckFolderRoots(t *testing.T) {
 		".hidden/x.hess":  "this is not read\n",
 		"notes/readme.md": "not a network\n",
 	})
-	r := runHess(t, "check", "--format", "json", filepath.Join(dir, "plants"), filepath.Join(dir, "lib"), filepath.Join(dir, "loop", "one.hess"), filepath.Join(dir, "loop"))
+	// The library's folder is named through a symbolic link.
+	if err := os.Symlink(filepath.Join(dir, "lib"), filepath.Join(dir, "shared")); err != nil {
+		t.Fatal(err)
+	}
+	r := runHess(t, "check", "--format", "json", filepath.Join(dir, "plants"), filepath.Join(dir, "shared"), filepath.Join(dir, "loop", "one.hess"), filepath.Join(dir, "loop"))
 	doc := decodeCheck(t, r.stdout)
 	if len(doc.Files) != 5 {
 		t.Errorf("files %v, want the 5 network files once each", doc.Files)
