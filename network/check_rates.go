@@ -92,7 +92,8 @@ requested temperature where K is known, the mismatch R·T·ln(kf/(kr·Kc)) is
 an energy; it is reported when it exceeds both the tolerance setting and
 twice its uncertainty. Where the species have no data, the rates are
 checked against each other around cycles instead (cycle-inconsistent,
-the Wegscheider condition).`,
+the Wegscheider condition). A pair with a prefactor unit of the wrong
+order (rate-units) is compared with neither.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
 			if rx.Resolved && hasRatePair(rx) {

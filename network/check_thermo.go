@@ -135,7 +135,9 @@ coupled reaction its parts. The message names the temperatures and the
 species whose data fall short; its table rows are empty. A reaction none
 of whose species carries any data is not reported when its own data are
 at most a dh (an enthalpy for Hess's law) or a rate (a kinetics-only
-step).`,
+step). Data that were written but did not compile (a bad unit, a broken
+statement) are reported there, once: the species is left out of this
+message, and a reaction whose own data did not compile is not reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Settings.Temperatures
 		known := map[*Species]bool{}
