@@ -147,7 +147,7 @@ func TestPlotSize(t *testing.T) {
 func TestPlotPaletteAndText(t *testing.T) {
 	inRoot(t)
 	svg := string(plotFile(t, "r.svg"))
-	for i, want := range []string{"#0072B2", "#D55E00", "#009E73", "#CC79A7"} {
+	for i, want := range []string{"#0072B2", "#E69F00", "#009E73", "#CC79A7"} {
 		if !strings.Contains(svg, "stroke:"+want) {
 			t.Errorf("reaction %d: no line in %s", i, want)
 		}

@@ -24,16 +24,17 @@ import (
 
 // okabeIto is the colour-blind-safe palette of Okabe and Ito ("Color
 // Universal Design", 2008; the values as given by B. Wong, Nature Methods
-// 8 (2011) 441), in the order lines take them: the yellow, faint on white,
+// 8 (2011) 441), in the order lines take them: the first four keep the
+// vermillion away from the bluish green, and the yellow, faint on white,
 // comes last. Its colours stay apart for readers with any common colour
-// vision deficiency, and no red is paired with a green.
+// vision deficiency.
 var okabeIto = []color.RGBA{
 	{0x00, 0x72, 0xB2, 0xFF}, // blue
-	{0xD5, 0x5E, 0x00, 0xFF}, // vermillion
+	{0xE6, 0x9F, 0x00, 0xFF}, // orange
 	{0x00, 0x9E, 0x73, 0xFF}, // bluish green
 	{0xCC, 0x79, 0xA7, 0xFF}, // reddish purple
-	{0xE6, 0x9F, 0x00, 0xFF}, // orange
 	{0x56, 0xB4, 0xE9, 0xFF}, // sky blue
+	{0xD5, 0x5E, 0x00, 0xFF}, // vermillion
 	{0x00, 0x00, 0x00, 0xFF}, // black
 	{0xF0, 0xE4, 0x42, 0xFF}, // yellow
 }
