@@ -276,3 +276,20 @@ func TestHostileNegativeRequestID(t *testing.T) {
 		t.Errorf("id -1 answered as an unsigned number:\n%s", r.stdout)
 	}
 }
+
+// The largest PNG --size and --dpi allow stays within the time and memory
+// bounds; a larger one is refused before anything is drawn.
+func TestHostilePlotSize(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	dir := t.TempDir()
+	net, err := filepath.Abs(filepath.Join("..", "..", "examples", "hydrogen-plant", "reformer.hess"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	// 34 cm at 254 dpi: 3400 px a side, 11.6 million pixels.
+	expectRun(t, runBounded(t, dir, "", "", "plot", "--size", "34cmx34cm", "--dpi", "254", "-o", "big.png", net), exitOK)
+	expectRun(t, runBounded(t, dir, "", "", "plot", "--size", "100cmx100cm", "--dpi", "1200", "-o", "huge.png", net),
+		exitTrouble, "would have 2232 million pixels")
+}

@@ -10,7 +10,7 @@ import (
 )
 
 // Plot size and resolution: the defaults and the bounds --size and --dpi
-// accept. The bounds keep a PNG within maxPlotPixels (about 100 MB of
+// accept. The bounds keep a PNG within maxPlotPixels (about 48 MB of
 // pixels while it is drawn).
 const (
 	defaultPlotWidth  = 16 * vg.Centimeter
@@ -20,7 +20,7 @@ const (
 	maxPlotSide       = 100 * vg.Centimeter
 	minPlotDPI        = 30
 	maxPlotDPI        = 1200
-	maxPlotPixels     = 25_000_000
+	maxPlotPixels     = 12_000_000
 )
 
 // plotUnits are the length units --size takes.
