@@ -538,8 +538,8 @@ func referenceParse(src []byte) ([]*Statement, []string) {
 	var stmts []*Statement
 	for _, c := range chunks {
 		if c[0].Type != Keyword || !statementKeywords[c[0].Value] {
-			msgs = append(msgs, fmt.Sprintf("%d:%d: expected a statement (include, settings, element, phase, species, reaction, mixture), found %s",
-				c[0].Pos.Line, c[0].Pos.Column, describe(c[0])))
+			msgs = append(msgs, fmt.Sprintf("%d:%d: expected a statement (include, settings, element, phase, species, reaction, mixture), found %s%s",
+				c[0].Pos.Line, c[0].Pos.Column, describe(c[0]), keywordHint(c[0])))
 			continue
 		}
 		e := TokenSpan(c[len(c)-1]).End
