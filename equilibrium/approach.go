@@ -79,8 +79,23 @@ type ReactionApproach struct {
 // Log10QOverK is log10(Q/K), NaN when K is unknown.
 func (r ReactionApproach) Log10QOverK() float64 { return (r.LnQ - r.LnK) / math.Ln10 }
 
-// ApproachK is T − EquilibriumT at the mixture's temperature T.
-func (r ReactionApproach) ApproachK(T float64) float64 { return T - r.EquilibriumT }
+// ApproachK is the approach to equilibrium at the mixture's temperature T,
+// in kelvin, signed as plant practice reports it: positive when the
+// reaction as written is short of equilibrium (Q < K, so it would still run
+// forward), negative when it is past it (Q > K), for endothermic and
+// exothermic reactions alike. Its size is |T − EquilibriumT|: for an
+// endothermic reaction short of equilibrium T lies above EquilibriumT, for
+// an exothermic one below. NaN when K or EquilibriumT is unknown.
+func (r ReactionApproach) ApproachK(T float64) float64 {
+	d := math.Abs(T - r.EquilibriumT)
+	if math.IsNaN(r.LnK) || math.IsNaN(r.LnQ) {
+		return math.NaN()
+	}
+	if r.LnQ > r.LnK {
+		return -d
+	}
+	return d
+}
 
 // AbsentReaction is a reaction with no quotient in a mixture.
 type AbsentReaction struct {

@@ -90,8 +90,12 @@ mixture unit {
 		if math.Abs(r.EquilibriumT-tc.janafT) > 3 {
 			t.Errorf("%s: equilibrium T %.1f K, NIST-JANAF-derived crossover ≈ %.0f K", tc.name, r.EquilibriumT, tc.janafT)
 		}
-		if got, want := r.ApproachK(950), 950-r.EquilibriumT; got != want {
-			t.Errorf("%s: approach %g K, want %g", tc.name, got, want)
+		// Q = 1 < K at 950 K for both (reform is favoured above its
+		// crossover, the exothermic shift below its own): both are short
+		// of equilibrium, so both approaches are positive, reform's T − T_eq
+		// and shift's T_eq − T.
+		if got, want := r.ApproachK(950), math.Abs(950-r.EquilibriumT); got != want || !(got > 0) {
+			t.Errorf("%s: approach %g K, want +%g (short of equilibrium)", tc.name, got, want)
 		}
 	}
 }
@@ -359,3 +363,34 @@ mixture fraction { temperature 900 K pressure 5 bar CH4(g) 0.05 H2O(g) 0.35 CO(g
 // examplesAllowed lets networks written to a test's temporary folder
 // include the shipped example libraries.
 var examplesAllowed = network.Options{IncludePaths: []string{"../examples"}}
+
+// The approach is positive short of equilibrium and negative past it, for
+// the endothermic reformer and the exothermic shift alike (plant practice).
+func TestApproachSign(t *testing.T) {
+	n := loadPlant(t, `
+# invented compositions: little product (short of equilibrium) and much
+# product (past it), in bar
+mixture short {
+  temperature 950 K
+  CH4(g) 1 bar  H2O(g) 1 bar  CO(g) 0.1 bar  CO2(g) 0.1 bar  H2(g) 1 bar
+}
+mixture past {
+  temperature 950 K
+  CH4(g) 0.01 bar  H2O(g) 0.01 bar  CO(g) 1 bar  CO2(g) 1 bar  H2(g) 3 bar
+}
+`)
+	for _, tc := range []struct {
+		mixture, reaction string
+		positive          bool
+	}{
+		{"short", "reform", true}, {"short", "shift", true},
+		{"past", "reform", false}, {"past", "shift", false},
+	} {
+		_, r := approachOf(t, n, tc.mixture, tc.reaction)
+		got := r.ApproachK(950)
+		if math.IsNaN(got) || (got > 0) != tc.positive || math.Abs(got) != math.Abs(950-r.EquilibriumT) {
+			t.Errorf("%s in %s: approach %g K (T_eq %g K, ln Q %g, ln K %g), want %s", tc.reaction, tc.mixture,
+				got, r.EquilibriumT, r.LnQ, r.LnK, map[bool]string{true: "positive", false: "negative"}[tc.positive])
+		}
+	}
+}

@@ -139,11 +139,13 @@ func (tm *Term) read(lex tokenStream) error {
 		_ = out.Coef.read(lex)
 	}
 	out.Species = &SpeciesRef{}
-	if out.Species.read(lex) != nil {
+	if tok := *lex.Peek(); out.Species.read(lex) != nil {
 		if out.Coef == nil {
 			return participle.NextMatch
 		}
 		return expecting(lex, termRule.at(1))
+	} else if err := gluedTerms(tok); err != nil {
+		return err
 	}
 	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
 	*tm = out

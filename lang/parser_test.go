@@ -376,7 +376,7 @@ func TestSyntaxErrors(t *testing.T) {
 		{"include without path", "include", `expected a string, found end of statement`, 1, 8},
 		{"include two paths", `include "a" "b"`, `expected end of statement, found string "b"`, 1, 13},
 		{"species without name", "species {", `expected a species, found "{"`, 1, 9},
-		{"open block at end", "mixture m {", `expected a mixture item (temperature, pressure, or a species) or "}", found end of statement`, 1, 12},
+		{"open block at end", "mixture m {", `expected a mixture item (temperature, pressure, or a species) or "}", found end of statement; the mixture block opened at line 1, column 11 has no closing "}"`, 1, 12},
 		{"lint without level", "settings { lint unused-species }", `expected a name, found "}"`, 1, 32},
 	}
 	for _, tc := range tests {
@@ -467,7 +467,7 @@ func TestMissingBraceStopsAtNextLine(t *testing.T) {
 	if len(diags) != 2 {
 		t.Fatalf("got %d diagnostics, want 2:\n%s", len(diags), diagList(diags))
 	}
-	want := `expected a species property (formula, hf, gf, s, cp, size, setschenow, shomate, nasa7, source, note) or "}", found end of statement`
+	want := `expected a species property (formula, hf, gf, s, cp, size, setschenow, shomate, nasa7, source, note) or "}", found end of statement; the species block opened at line 1, column 14 has no closing "}"`
 	if diags[0].Message != want || diags[0].Subject.Start != (Pos{2, 14, 28}) {
 		t.Errorf("first diagnostic %q at %+v", diags[0].Message, diags[0].Subject.Start)
 	}
@@ -538,8 +538,8 @@ func referenceParse(src []byte) ([]*Statement, []string) {
 	var stmts []*Statement
 	for _, c := range chunks {
 		if c[0].Type != Keyword || !statementKeywords[c[0].Value] {
-			msgs = append(msgs, fmt.Sprintf("%d:%d: expected a statement (include, settings, element, phase, species, reaction, mixture), found %s",
-				c[0].Pos.Line, c[0].Pos.Column, describe(c[0])))
+			msgs = append(msgs, fmt.Sprintf("%d:%d: expected a statement (include, settings, element, phase, species, reaction, mixture), found %s%s",
+				c[0].Pos.Line, c[0].Pos.Column, describe(c[0]), keywordHint(c[0])))
 			continue
 		}
 		e := TokenSpan(c[len(c)-1]).End

@@ -21,6 +21,21 @@ type syntaxError struct {
 	// worded is a message participle words itself, with no token found;
 	// it is reported at found.Pos as it stands.
 	worded string
+	// glued is set where found is one token that holds two terms joined
+	// by "+" without spaces ("CO(g)+O2(g)"): left and right are the two.
+	glued *[2]string
+}
+
+// gluedTerms reports the error for a species token that holds two terms
+// joined by "+" with no spaces, as in CO(g)+O2(g); nil for any other token.
+// A "+" right after a closing parenthesis cannot be a charge, which stands
+// before the state tag (Na+(aq)).
+func gluedTerms(t lexer.Token) error {
+	i := strings.Index(t.Value, ")+")
+	if i < 0 || i+2 >= len(t.Value) {
+		return nil
+	}
+	return &syntaxError{found: t, glued: &[2]string{t.Value[:i+1], t.Value[i+2:]}}
 }
 
 // expecting is the error for a missing part x of the grammar: the next
@@ -43,6 +58,9 @@ func (e *syntaxError) Message() string {
 // statement's tokens, which name what may stand inside a block where the
 // error expects only its end.
 func (e *syntaxError) message(toks []lexer.Token) string {
+	if e.glued != nil {
+		return fmt.Sprintf("%s is two terms: terms need spaces around \"+\" (write %s + %s)", describe(e.found), e.glued[0], e.glued[1])
+	}
 	exp := strings.Join(e.expected, " or ")
 	if exp == `"}"` || exp == "" {
 		if items := blockItems(toks, e.found); items != "" {
@@ -138,11 +156,74 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 	default:
 		d.Subject = TokenSpan(se.found)
 		d.Message = se.message(toks)
+		if se.glued == nil {
+			d.Message += plusSpacingHint(toks, se.found)
+		}
 		if startsLine(toks, se.found) {
 			d.Message += keywordHint(se.found)
 		}
+		if brace, kind, ok := unclosedBlock(toks, se.found); ok && isEnd(se.found) {
+			p := brace.Pos
+			d.Message += fmt.Sprintf(`; the %s block opened at line %d, column %d has no closing "}"`, kind, p.Line, p.Column)
+			d.Related = append(d.Related, Related{Span: TokenSpan(brace), Message: "the " + kind + " block opens here"})
+		}
 	}
 	return d
+}
+
+// plusSpacingHint says that terms need spaces around "+" where the token
+// found, or the one before it, has a "+" stuck to a term: "CO(g) +O2(g)"
+// or "CO(g)+ O2(g)".
+func plusSpacingHint(toks []lexer.Token, at lexer.Token) string {
+	const hint = `; terms need spaces around "+"`
+	if at.Type != Punct && len(at.Value) > 1 && strings.HasPrefix(at.Value, "+") {
+		return hint
+	}
+	for i, t := range toks {
+		if t.Pos.Offset == at.Pos.Offset {
+			if i > 0 && toks[i-1].Type != Punct && len(toks[i-1].Value) > 1 && strings.HasSuffix(toks[i-1].Value, ")+") {
+				return hint
+			}
+			break
+		}
+	}
+	return ""
+}
+
+// unclosedBlock finds the innermost block still open at token at: its
+// opening brace and its kind (the statement's keyword, "polynomial" inside
+// a species block).
+func unclosedBlock(toks []lexer.Token, at lexer.Token) (lexer.Token, string, bool) {
+	type open struct {
+		brace lexer.Token
+		kind  string
+	}
+	var stack []open
+	for _, t := range toks {
+		if t.Pos.Offset >= at.Pos.Offset {
+			break
+		}
+		if t.Type != Punct {
+			continue
+		}
+		switch t.Value {
+		case "{":
+			kind := toks[0].Value
+			if len(stack) > 0 {
+				kind = "polynomial"
+			}
+			stack = append(stack, open{t, kind})
+		case "}":
+			if len(stack) > 0 {
+				stack = stack[:len(stack)-1]
+			}
+		}
+	}
+	if len(stack) == 0 {
+		return lexer.Token{}, "", false
+	}
+	top := stack[len(stack)-1]
+	return top.brace, top.kind, true
 }
 
 // blockItems names what may stand at token at inside the innermost block

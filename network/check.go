@@ -17,6 +17,11 @@ type Check struct {
 	Doc      string
 	Severity lang.Severity
 	Run      func(p *Pass)
+	// ApproachOnly marks a note that matters only when a mixture is
+	// evaluated: Load leaves the check out, so check, table, plot and the
+	// language server stay quiet about it, and hess approach asks for it
+	// through Network.ApproachNotes.
+	ApproachOnly bool
 }
 
 // Code is the code of the check's diagnostics: its name.

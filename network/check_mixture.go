@@ -84,14 +84,16 @@ func runMixtureFractions(p *Pass) {
 }
 
 var notInMixtureCheck = &Check{
-	Name:     "not-in-mixture",
-	Severity: lang.Info,
+	Name:         "not-in-mixture",
+	Severity:     lang.Info,
+	ApproachOnly: true,
 	Doc: `a reaction has no quotient in a mixture
 A reaction's quotient Q in a mixture needs an activity for every species of
 its equation: the mixture must list each gas, solute and solution member,
 and list each pure phase to mark it present. A reaction that uses a species
 the mixture does not list is left out of that mixture's approach to
-equilibrium; the message names the species it lacks.`,
+equilibrium; the message names the species it lacks. Only hess approach
+reports it: a reaction need not appear in every mixture.`,
 	Run: func(p *Pass) {
 		for _, m := range p.Net.Mixtures {
 			if !m.Usable() {

@@ -36,11 +36,19 @@ coefficients do not add up to a whole number has no such unit.`,
 	},
 }
 
+// unitFitsOrder reports whether a rate's prefactor unit is one of the
+// order of the side it starts from (what rate-units requires).
+func unitFitsOrder(r *Rate, side []Term) bool {
+	order := stepOrder(side)
+	given, ok := prefactorOrder(r.AUnit)
+	return ok && order.IsInt() && order.Num().IsInt64() && order.Num().Int64() == int64(given)
+}
+
 func checkRateUnit(p *Pass, rx *Reaction, r *Rate, side []Term, which string) {
 	order := stepOrder(side)
 	given, ok := prefactorOrder(r.AUnit)
-	if !ok {
-		return // the compiler has reported the unit
+	if !ok || unitFitsOrder(r, side) {
+		return // the compiler has reported an unknown unit
 	}
 	vol := volumeSymbol(r.AUnit)
 	if !order.IsInt() {
@@ -49,10 +57,8 @@ func checkRateUnit(p *Pass, rx *Reaction, r *Rate, side []Term, which string) {
 		return
 	}
 	want := int(order.Num().Int64())
-	if !order.Num().IsInt64() || want != given {
-		p.Reportf(r.A.Span, "A in %s is for a %s step, but the %s side of %s makes it %s: A takes %s",
-			r.AUnit, orderName(given), which, rx.Name, orderName(want), prefactorUnit(want, vol))
-	}
+	p.Reportf(r.A.Span, "A in %s is for a %s step, but the %s side of %s makes it %s: A takes %s",
+		r.AUnit, orderName(given), which, rx.Name, orderName(want), prefactorUnit(want, vol))
 }
 
 var reverseOnOneWayCheck = &Check{
@@ -86,7 +92,8 @@ requested temperature where K is known, the mismatch R·T·ln(kf/(kr·Kc)) is
 an energy; it is reported when it exceeds both the tolerance setting and
 twice its uncertainty. Where the species have no data, the rates are
 checked against each other around cycles instead (cycle-inconsistent,
-the Wegscheider condition).`,
+the Wegscheider condition). A pair with a prefactor unit of the wrong
+order (rate-units) is compared with neither.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
 			if rx.Resolved && hasRatePair(rx) {

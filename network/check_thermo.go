@@ -181,17 +181,20 @@ coupled reaction its parts. The message names the temperatures and the
 species whose data fall short; its table rows are empty. A reaction none
 of whose species carries any data is not reported when its own data are
 at most a dh (an enthalpy for Hess's law) or a rate (a kinetics-only
-step).`,
+step). Data that were written but did not compile (a bad unit, a broken
+statement) are reported there, once: the species is left out of this
+message, and a reaction whose own data did not compile is not reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
 		known := map[*Species]bool{}
 		for _, rx := range p.Net.Reactions {
-			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) {
+			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) || dataBroken(rx) {
 				continue
 			}
 			c := p.Net.ReactionK(rx)
 			var bad []float64
 			var lacking []*Species
+			brokenLack := false // a species lacks data because they did not compile
 			seen := map[*Species]bool{}
 			for _, T := range temps {
 				if !(T > 0) || c.okAt(T) {
@@ -199,13 +202,17 @@ step).`,
 				}
 				bad = append(bad, T)
 				for _, sp := range c.lacking(T) {
+					if sp.BrokenData {
+						brokenLack = true
+						continue
+					}
 					if !seen[sp] {
 						seen[sp] = true
 						lacking = append(lacking, sp)
 					}
 				}
 			}
-			if len(bad) == 0 {
+			if len(bad) == 0 || (brokenLack && len(lacking) == 0) {
 				continue
 			}
 			msg := fmt.Sprintf("K of %s cannot be computed at %s", rx.Name, kelvinList(bad))
@@ -221,6 +228,31 @@ step).`,
 			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg, Related: related})
 		}
 	},
+}
+
+// dataBroken reports whether some of the reaction's own data, or of a part
+// of its combination, were written but did not compile. That error is
+// reported where it was written, so a missing K is its consequence and not
+// reported again. (A species whose data did not compile is left out of the
+// species the message names; see missingThermoCheck.)
+func dataBroken(rx *Reaction) bool {
+	return dataBrokenWithin(rx, map[*Reaction]bool{})
+}
+
+func dataBrokenWithin(rx *Reaction, seen map[*Reaction]bool) bool {
+	if seen[rx] {
+		return false
+	}
+	seen[rx] = true
+	if rx.BrokenData {
+		return true
+	}
+	for _, ct := range rx.Combo {
+		if ct.Reaction != nil && dataBrokenWithin(ct.Reaction, seen) {
+			return true
+		}
+	}
+	return false
 }
 
 // thermoIntent reports whether a reaction is meant to have a K: a species

@@ -104,9 +104,15 @@ func LookupCheck(name string) *Check { return checkByName[name] }
 // each into its own buffer; the findings are appended in registry order, so
 // the result does not depend on scheduling.
 func runChecks(n *Network) {
+	n.Diagnostics = append(n.Diagnostics, runSome(n, false)...)
+}
+
+// runSome runs the enabled checks whose ApproachOnly is approachOnly and
+// returns their findings.
+func runSome(n *Network, approachOnly bool) lang.Diagnostics {
 	var run []*Check
 	for _, c := range checks {
-		if c.Run == nil {
+		if c.Run == nil || c.ApproachOnly != approachOnly {
 			continue
 		}
 		if sev, ok := n.Settings.Lint[c.Name]; ok && sev == lang.Off {
@@ -118,9 +124,24 @@ func runChecks(n *Network) {
 	parallel(len(run), 1, func() func(i int) {
 		return func(i int) { run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]}) }
 	})
+	var out lang.Diagnostics
 	for _, ds := range found {
-		n.Diagnostics = append(n.Diagnostics, ds...)
+		out = append(out, ds...)
 	}
+	return out
+}
+
+// ApproachNotes runs the checks that matter only to hess approach (see
+// Check.ApproachOnly) on the compiled network and returns their findings,
+// with severities from the lint settings, sorted. A network with errors
+// gives none.
+func (n *Network) ApproachNotes() lang.Diagnostics {
+	if n.Diagnostics.HasErrors() {
+		return nil
+	}
+	notes := &Network{Settings: n.Settings, Diagnostics: runSome(n, true)}
+	finalize(notes)
+	return notes.Diagnostics
 }
 
 // finalize sets every diagnostic's severity from its check and the lint

@@ -19,6 +19,10 @@ type builtReaction struct {
 	// propDiags come from the reaction's properties; they are reported
 	// only when the reaction is kept.
 	propDiags lang.Diagnostics
+	// mentioned are the declared species named anywhere in a statement
+	// that did not parse: it may well use them, so they are not reported
+	// as unused on account of its syntax error.
+	mentioned []*Species
 }
 
 // buildReactions compiles every reaction statement on its own, in
@@ -36,6 +40,9 @@ func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
 // buildReaction compiles one reaction statement into b.
 func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	r := st.Reaction
+	if st.Broken {
+		b.mentioned = c.mentioned(st)
+	}
 	if r.Name == nil {
 		return
 	}
@@ -63,6 +70,9 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 // addReaction names a built reaction in the network, in source order, so
 // that the first of two reactions with one name is the one kept.
 func (c *compiler) addReaction(b builtReaction) {
+	for _, sp := range b.mentioned {
+		sp.Used = true
+	}
 	rx := b.rx
 	if rx == nil {
 		return
@@ -88,6 +98,24 @@ func (c *compiler) addReaction(b builtReaction) {
 	}
 	c.net.Reactions = append(c.net.Reactions, rx)
 	c.net.Diagnostics = append(c.net.Diagnostics, b.propDiags...)
+}
+
+// mentioned returns the declared species that a statement's tokens name,
+// also where two terms are written as one token ("CO(g)+O2(g)").
+func (c *compiler) mentioned(st *lang.Statement) []*Species {
+	var out []*Species
+	for _, t := range st.Tokens {
+		for _, piece := range strings.Split(t.Value, ")+") {
+			if piece != t.Value {
+				piece = strings.TrimSuffix(piece, ")") + ")"
+			}
+			piece = strings.Trim(piece, "+")
+			if sp := c.lookup(piece); sp != nil {
+				out = append(out, sp)
+			}
+		}
+	}
+	return out
 }
 
 // lookup finds a declared species by reference, through the compiler's
@@ -196,6 +224,7 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 			}
 			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
 			if !ok {
+				rx.BrokenData = true
 				continue
 			}
 			switch pr.Value.Key {
@@ -207,7 +236,9 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 				rx.Ds = v
 			}
 		case pr.LogK != nil:
-			c.logK(rx, pr.LogK)
+			if !c.logK(rx, pr.LogK) {
+				rx.BrokenData = true
+			}
 		case pr.Rate != nil:
 			if rate := c.rate(pr.Rate); rate != nil {
 				if pr.Rate.Kind == "rate" {
@@ -222,27 +253,29 @@ func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProper
 	}
 }
 
-func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
+// logK adds a measured log10 K to the reaction; false when it did not
+// compile (its error is reported).
+func (c *compiler) logK(rx *Reaction, l *lang.LogK) bool {
 	v, ok := c.number(l.Value)
 	if !ok {
-		return
+		return false
 	}
 	lk := LogK{Value: Value{V: v, Span: l.Value.Span()}, T: 298.15, Span: l.Span()}
 	if l.Sigma != nil {
 		s, ok := c.number(l.Sigma)
 		if !ok {
-			return
+			return false
 		}
 		lk.Value.Sigma, lk.Value.Stated = s, true
 	}
 	if l.At != nil {
 		t, ok := c.quantity(l.At, temperatureKind, "logk temperature", false)
 		if !ok {
-			return
+			return false
 		}
 		if t.V <= 0 {
 			c.report(implausibleValueCheck, l.At.Span(), "temperature %s is not above absolute zero", quantityText(l.At))
-			return
+			return false
 		}
 		lk.T = t.V
 	}
@@ -250,10 +283,11 @@ func (c *compiler) logK(rx *Reaction, l *lang.LogK) {
 		if old.T == lk.T {
 			d := c.report(syntaxCheck, l.Span(), "logk at %g K is given twice for reaction %s", lk.T, rx.Name)
 			d.Related = []lang.Related{{Span: old.Span, Message: "first given here"}}
-			return
+			return true // the first one holds
 		}
 	}
 	rx.LogK = append(rx.LogK, lk)
+	return true
 }
 
 func (c *compiler) rate(r *lang.Rate) *Rate {

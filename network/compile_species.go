@@ -15,7 +15,8 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, err)
 		return nil
 	}
-	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge}
+	// A statement that did not parse has data that were never read.
+	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge, BrokenData: broken}
 	if old, dup := c.net.speciesByKey[sp.Key]; dup {
 		d := c.report(duplicateSpeciesCheck, ref.Span(), "species %s is declared twice", sp.Key)
 		d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
@@ -148,6 +149,7 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 			}
 			v, ok := c.quantity(pr.Value.Value, kind, pr.Value.Key, false)
 			if !ok {
+				sp.BrokenData = true
 				continue
 			}
 			switch pr.Value.Key {
@@ -169,7 +171,9 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 				sp.Setschenow = v
 			}
 		case pr.Poly != nil:
-			c.polynomial(sp, pr.Poly)
+			if !c.polynomial(sp, pr.Poly) {
+				sp.BrokenData = true
+			}
 		case pr.Text != nil:
 			text, _ := lang.Unquote(pr.Text.Text.Raw)
 			if pr.Text.Key == "source" {
@@ -184,7 +188,9 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 
 var polyCoefficients = map[string]int{"shomate": 8, "nasa7": 7}
 
-func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
+// polynomial adds a range to the species; false when it did not compile
+// (its error is reported).
+func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) bool {
 	want := polyCoefficients[p.Kind]
 	if len(p.Coeffs) != want {
 		names := "A to H"
@@ -192,7 +198,7 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 			names = "a1 to a7"
 		}
 		c.report(syntaxCheck, keywordSpan(&p.Node), "%s takes %d coefficients (%s), found %d", p.Kind, want, names, len(p.Coeffs))
-		return
+		return false
 	}
 	from, ok1 := c.quantity(p.From, temperatureKind, "range start", false)
 	to, ok2 := c.quantity(p.To, temperatureKind, "range end", false)
@@ -204,14 +210,15 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) {
 		coeffs = append(coeffs, v)
 	}
 	if !ok1 || !ok2 || !ok3 {
-		return
+		return false
 	}
 	if from.V <= 0 || to.V <= from.V {
 		c.report(implausibleValueCheck, p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
-		return
+		return false
 	}
 	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
 		Header: keywordSpan(&p.Node).Join(p.To.Span())})
+	return true
 }
 
 // formula parses the species' formula: the explicit one if given, else

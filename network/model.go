@@ -162,6 +162,13 @@ type Species struct {
 
 	Used bool // appears in some reaction
 
+	// BrokenData reports that a thermodynamic value of the species (hf,
+	// gf, s, cp or a polynomial range) was written but did not compile.
+	// Its error is reported where it was written; checks that would miss
+	// that value (missing-thermo) stay quiet rather than report the
+	// consequence.
+	BrokenData bool
+
 	index int          // declaration order in the network
 	ints  speciesInts  // the formula in small integers
 	model thermo.Model // built once the species is compiled; see Model
@@ -221,6 +228,9 @@ type Reaction struct {
 
 	// Resolved reports that every species of the equation is declared.
 	Resolved bool
+	// BrokenData reports that some of the reaction's own data (dg, dh, ds,
+	// logk) was written but did not compile; see Species.BrokenData.
+	BrokenData bool
 
 	stoich stoichFacts // worked out by the compiler once resolved
 }

@@ -46,7 +46,14 @@ func hasOwnData(rx *Reaction) bool {
 	return rx.Resolved && (rx.Dg != nil || rx.Dh != nil || rx.Ds != nil || len(rx.LogK) > 0 || hasRatePair(rx))
 }
 
-func hasRatePair(rx *Reaction) bool { return rx.TwoWay && rx.Rate != nil && rx.Reverse != nil }
+// A pair whose prefactor units do not fit the step's order (rate-units) is
+// no usable pair: its kf/kr would be off by powers of the concentration
+// unit, so the checks that compare it (detailed-balance, the cycles) stay
+// quiet rather than report a consequence of that one error.
+func hasRatePair(rx *Reaction) bool {
+	return rx.TwoWay && rx.Rate != nil && rx.Reverse != nil &&
+		unitFitsOrder(rx.Rate, rx.Left) && unitFitsOrder(rx.Reverse, rx.Right)
+}
 
 // ownDatum returns the reaction's own value of q, if its data give one,
 // at the network's standard pressure. ΔrH° comes from dh. ΔrG°(T) comes

@@ -65,7 +65,7 @@ func TestCheckExpectations(t *testing.T) {
 			n := Load(root, Disk{}, Options{})
 			wants := collectWants(t, n)
 			matched := make([]bool, len(wants))
-			for _, d := range n.Diagnostics {
+			for _, d := range append(n.Diagnostics, n.ApproachNotes()...) {
 				found := false
 				for i, w := range wants {
 					if !matched[i] && w.code == string(d.Code) && sameFile(w.file, d.Subject.File) &&

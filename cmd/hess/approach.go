@@ -6,6 +6,7 @@ import (
 	"io"
 
 	"hess/equilibrium"
+	"hess/lang"
 	"hess/network"
 	"hess/suggest"
 )
@@ -68,8 +69,12 @@ func approachDocument(root, name string, opts network.Options, stderr io.Writer)
 	if net == nil {
 		return nil, status
 	}
-	if len(net.Diagnostics) > 0 {
-		if err := renderText(stderr, networkReport(net, net.Diagnostics), useColor("auto", stderr)); err != nil {
+	// Notes that matter only here (a reaction a mixture gives no quotient
+	// for) join the network's own diagnostics.
+	diags := append(append(lang.Diagnostics(nil), net.Diagnostics...), net.ApproachNotes()...)
+	diags.Sort()
+	if len(diags) > 0 {
+		if err := renderText(stderr, networkReport(net, diags), useColor("auto", stderr)); err != nil {
 			return nil, exitTrouble
 		}
 	}

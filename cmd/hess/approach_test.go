@@ -78,9 +78,15 @@ func TestApproachJSONFields(t *testing.T) {
 		if r["direction"] != want {
 			t.Errorf("%v: direction %v, want %s (ΔrG %.3f kJ/mol, tolerance 0.5)", r["name"], r["direction"], want, dg)
 		}
+		// Plant practice: the approach is positive while the reaction is
+		// short of equilibrium (Q < K), negative past it.
 		if teq, ok := r["equilibriumT_K"].(float64); ok {
-			if d := m.T - teq - r["approach_K"].(float64); math.Abs(d) > 1e-6 {
-				t.Errorf("%v: approach_K is not T − equilibriumT_K", r["name"])
+			want := math.Abs(m.T - teq)
+			if q > k {
+				want = -want
+			}
+			if d := want - r["approach_K"].(float64); math.Abs(d) > 1e-6 {
+				t.Errorf("%v: approach_K %v, want %v (|T − equilibriumT_K|, negative past equilibrium)", r["name"], r["approach_K"], want)
 			}
 		}
 	}

@@ -12,10 +12,13 @@ import (
 )
 
 func runCheck(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] [--include-path DIR]... FILE...",
+	fs := newFlags("check", "check [--format text|json|sarif] [--strict] [--color auto|always|never] [--include-path DIR]... FILE|DIR...",
 		"Compile each root file with everything it includes, run every check, and\n"+
-			"report the diagnostics. Exit status: 0 when there are no errors (and, with\n"+
-			"--strict, no warnings), 1 when there are, 2 on usage or input trouble.\n"+
+			"report the diagnostics. A folder stands for every network file (*.hess)\n"+
+			"below it; of the files named, those another one includes are checked only\n"+
+			"through the networks that include them, never on their own. Exit status:\n"+
+			"0 when there are no errors (and, with --strict, no warnings), 1 when\n"+
+			"there are, 2 on usage or input trouble.\n"+
 			"The file \"-\" is standard input, named <stdin> in diagnostics; its includes\n"+
 			"are relative to the working folder.", stderr)
 	format := &choice{value: "text", allowed: []string{"text", "json", "sarif"}}
@@ -68,28 +71,30 @@ func findingsStatus(ds lang.Diagnostics, strict bool) int {
 // argument "-". Its includes resolve against the working folder.
 const stdinName = "<stdin>"
 
-// compileAll loads each root file and merges the results into one report
-// with display file names. The root "-" is standard input (read from
-// stdin). A root that cannot be read is said on stderr and recorded in the
-// report's Trouble, and compileAll reports trouble; the other roots are
-// still compiled.
-func compileAll(roots []string, stdin io.Reader, opts network.Options, stderr io.Writer) (*report, bool) {
+// compileAll loads the networks of the file arguments and merges the
+// results into one report with display file names. A folder stands for
+// every network file below it (expandArgs); of all the files so named, the
+// roots are those no other one includes (pickRoots), and only their
+// networks are reported, so a library file is checked through the networks
+// that include it. The argument "-" is standard input (read from stdin). A
+// file that cannot be read is said on stderr and recorded in the report's
+// Trouble, and compileAll reports trouble; the other files are still
+// compiled.
+func compileAll(args []string, stdin io.Reader, opts network.Options, stderr io.Writer) (*report, bool) {
 	rep := &report{}
-	sources := map[string][]byte{}
-	seenFile := map[string]bool{}
-	seenDiag := map[string]bool{}
 	fail := func(root, msg string) {
 		fmt.Fprintf(stderr, "hess: %s\n", msg)
 		rep.Trouble = append(rep.Trouble, inputTrouble{File: root, Message: msg})
 	}
-	readStdin := false
-	for _, root := range roots {
+	files, trouble := expandArgs(args)
+	for _, tr := range trouble {
+		fail(tr.File, tr.Message)
+	}
+	opts.IncludePaths = append(append([]string(nil), opts.IncludePaths...), folderArgs(args)...)
+	var cands []loadedRoot
+	for _, root := range files {
 		var src network.Source = network.Disk{}
 		if root == "-" {
-			if readStdin {
-				continue
-			}
-			readStdin = true
 			var ok bool
 			root, src, ok = stdinSource(stdin)
 			if !ok {
@@ -105,7 +110,13 @@ func compileAll(roots []string, stdin io.Reader, opts network.Options, stderr io
 			fail(displayName(root), unreadableRoot(displayName(root), net))
 			continue
 		}
-		for _, f := range net.Files {
+		cands = append(cands, newLoadedRoot(root, net))
+	}
+	sources := map[string][]byte{}
+	seenFile := map[string]bool{}
+	seenDiag := map[string]bool{}
+	for _, c := range pickRoots(cands) {
+		for _, f := range c.files {
 			name := displayName(f.Path)
 			if !seenFile[name] {
 				seenFile[name] = true
@@ -113,7 +124,7 @@ func compileAll(roots []string, stdin io.Reader, opts network.Options, stderr io
 				sources[name] = f.Source
 			}
 		}
-		for _, d := range net.Diagnostics {
+		for _, d := range c.diags {
 			d = displayDiagnostic(d)
 			key := fmt.Sprintf("%s|%d|%d|%s|%s", d.Subject.File, d.Subject.Start.Offset, d.Subject.End.Offset, d.Code, d.Message)
 			if seenDiag[key] {
@@ -224,4 +235,20 @@ func useColor(mode string, w io.Writer) bool {
 	}
 	info, err := f.Stat()
 	return err == nil && info.Mode()&os.ModeCharDevice != 0
+}
+
+// folderArgs are the folders among the arguments: a network below a folder
+// named for checking may include any file below that folder too, as a
+// repository's networks include its shared libraries.
+func folderArgs(args []string) []string {
+	var dirs []string
+	for _, arg := range args {
+		if arg == "-" {
+			continue
+		}
+		if info, err := os.Stat(arg); err == nil && info.IsDir() {
+			dirs = append(dirs, arg)
+		}
+	}
+	return dirs
 }

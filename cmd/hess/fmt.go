@@ -10,12 +10,13 @@ import (
 )
 
 func runFmt(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("fmt", "fmt [-w] [--check] FILE...",
+	fs := newFlags("fmt", "fmt [-w] [--check] FILE|DIR...",
 		"Print each file in the canonical layout. Every comment is kept, and\n"+
-			"formatting a formatted file changes nothing. A file with syntax errors is\n"+
-			"left alone and its errors reported (exit status 1). The file \"-\" is\n"+
-			"standard input, printed formatted to standard output (for editors that\n"+
-			"format through a filter).", stderr)
+			"formatting a formatted file changes nothing. A folder stands for every\n"+
+			"network file (*.hess) below it. A file with syntax errors is left alone\n"+
+			"and its errors reported (exit status 1). The file \"-\" is standard input,\n"+
+			"printed formatted to standard output (for editors that format through a\n"+
+			"filter).", stderr)
 	write := fs.Bool("w", false, "rewrite the files in place (atomically) instead of printing them")
 	check := fs.Bool("check", false, "print nothing but the names of files that would change; exit 1 if any")
 	files, status, ok := parseFlags(fs, args, stdout)
@@ -25,6 +26,13 @@ func runFmt(args []string, stdout, stderr io.Writer) int {
 	if len(files) == 0 {
 		fmt.Fprintln(stderr, "hess fmt: no files given")
 		fs.Usage()
+		return exitTrouble
+	}
+	files, trouble := expandArgs(files)
+	for _, tr := range trouble {
+		fmt.Fprintf(stderr, "hess fmt: %s\n", tr.Message)
+	}
+	if len(trouble) > 0 {
 		return exitTrouble
 	}
 	result := exitOK

@@ -245,20 +245,22 @@ func TestHostileFullDevice(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the built binary")
 	}
-	for _, args := range [][]string{{"explain"}, {"explain", "syntax"}, {"version"}} {
+	for _, args := range [][]string{{"explain"}, {"explain", "syntax"}, {"version"},
+		{"help"}, {"--help"}, {"help", "check"}, {"help", "help"}, {"check", "--help"}, {"plot", "-h"}} {
 		r := runBounded(t, t.TempDir(), "", "/dev/full", args...)
 		expectRun(t, r, exitTrouble, "no space left on device")
 	}
 }
 
-// A folder given as a network says why it cannot be read.
+// A folder with no network file below it is input trouble, not a clean run.
 func TestHostileFolderRoot(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the built binary")
 	}
 	dir := t.TempDir()
 	os.Mkdir(filepath.Join(dir, "sub"), 0o755)
-	expectRun(t, runBounded(t, dir, "", "", "check", "sub"), exitTrouble, "cannot read sub: is a directory")
+	expectRun(t, runBounded(t, dir, "", "", "check", "sub"), exitTrouble, "sub holds no network files (*.hess)")
+	expectRun(t, runBounded(t, dir, "", "", "fmt", "--check", "sub"), exitTrouble, "sub holds no network files (*.hess)")
 }
 
 // The language server answers a negative request id with that id.
@@ -275,4 +277,21 @@ func TestHostileNegativeRequestID(t *testing.T) {
 	if strings.Contains(r.stdout, "18446744073709551615") {
 		t.Errorf("id -1 answered as an unsigned number:\n%s", r.stdout)
 	}
+}
+
+// The largest PNG --size and --dpi allow stays within the time and memory
+// bounds; a larger one is refused before anything is drawn.
+func TestHostilePlotSize(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	dir := t.TempDir()
+	net, err := filepath.Abs(filepath.Join("..", "..", "examples", "hydrogen-plant", "reformer.hess"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	// 34 cm at 254 dpi: 3400 px a side, 11.6 million pixels.
+	expectRun(t, runBounded(t, dir, "", "", "plot", "--size", "34cmx34cm", "--dpi", "254", "-o", "big.png", net), exitOK)
+	expectRun(t, runBounded(t, dir, "", "", "plot", "--size", "100cmx100cm", "--dpi", "1200", "-o", "huge.png", net),
+		exitTrouble, "would have 2232 million pixels")
 }

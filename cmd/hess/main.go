@@ -3,6 +3,7 @@
 package main
 
 import (
+	"bytes"
 	"errors"
 	"flag"
 	"fmt"
@@ -70,16 +71,14 @@ func run(args []string, stdout, stderr io.Writer) int {
 	switch args[0] {
 	case "help", "-h", "-help", "--help":
 		if len(args) == 1 {
-			usage(stdout)
-			return exitOK
+			return printUsage(stdout, stderr)
 		}
 		if len(args) > 2 {
 			fmt.Fprintln(stderr, "hess help: takes at most one command")
 			return exitTrouble
 		}
 		if args[1] == "help" {
-			usage(stdout)
-			return exitOK
+			return printUsage(stdout, stderr)
 		}
 		if c, ok := lookupCommand(args[1], stderr); ok {
 			return c.run([]string{"--help"}, stdout, stderr)
@@ -110,6 +109,24 @@ func lookupCommand(name string, stderr io.Writer) (command, bool) {
 	}
 	fmt.Fprintf(stderr, "%s\nRun 'hess help' for the list of commands.\n", msg)
 	return command{}, false
+}
+
+// printUsage prints the general usage on stdout; a failed write (a full
+// device, a closed pipe) is said on stderr and is exit status 2, as for
+// every command.
+func printUsage(stdout, stderr io.Writer) int {
+	var b bytes.Buffer
+	usage(&b)
+	return writeHelp(stdout, stderr, "hess", b.Bytes())
+}
+
+// writeHelp writes help text to stdout, and says on stderr when it cannot.
+func writeHelp(stdout, stderr io.Writer, who string, text []byte) int {
+	if _, err := stdout.Write(text); err != nil {
+		fmt.Fprintf(stderr, "%s: cannot write the help: %v\n", who, unwrapPathError(err))
+		return exitTrouble
+	}
+	return exitOK
 }
 
 func usage(w io.Writer) {
@@ -187,9 +204,10 @@ func parseFlags(fs *flag.FlagSet, args []string, stdout io.Writer) ([]string, in
 		fs.SetOutput(out)
 		if err != nil {
 			if errors.Is(err, flag.ErrHelp) {
-				fs.SetOutput(stdout)
+				var b bytes.Buffer
+				fs.SetOutput(&b)
 				usage()
-				return nil, exitOK, false
+				return nil, writeHelp(stdout, out, "hess "+fs.Name(), b.Bytes()), false
 			}
 			fmt.Fprintf(out, "hess %s: %s\n\n", fs.Name(), flagErrorText(fs, err))
 			usage()

@@ -1,20 +1,18 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"image/color"
 	"io"
 	"math"
+	"path"
 	"path/filepath"
 	"strconv"
 	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/plotutil"
 	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/draw"
 
 	"hess/equilibrium"
 	"hess/network"
@@ -24,25 +22,24 @@ import (
 // spaced in 1000/T.
 const plotSamples = 240
 
-// Size of the plot.
-const (
-	plotWidth  = 16 * vg.Centimeter
-	plotHeight = 11 * vg.Centimeter
-)
-
 func runPlot(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png [--include-path DIR]... FILE",
-		"Draw a van 't Hoff plot: log10 K against 1000/T, one line per reaction (every\n"+
-			"reaction, or those named), over the span of the settings' temperatures or\n"+
-			"those of --temperatures. Parts computed from data outside their range are\n"+
-			"dashed; a marker shows each temperature where K = 1. The format follows the\n"+
-			"output's extension: .svg or .png. The file is written atomically.\n\n"+
+	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] [--size WxH] [--dpi N] -o OUT.svg|OUT.png [--include-path DIR]... FILE",
+		"Draw a van 't Hoff plot: log10 K against 1000 K/T, one line per reaction\n"+
+			"(every reaction, or those named), over the span of the settings'\n"+
+			"temperatures or those of --temperatures, with ticks at round temperatures.\n"+
+			"Each reaction has its own colour (the Okabe-Ito palette, safe for colour-\n"+
+			"blind readers) and marker shape; stretches computed from data outside their\n"+
+			"range are dashed; a dot shows each temperature where K = 1. The legend\n"+
+			"stands beside the plot. The format follows the output's extension: .svg or\n"+
+			".png. The file is written atomically.\n\n"+
 			cautionText, stderr)
 	temps := fs.String("temperatures", "", "span of temperatures to draw, e.g. \"600 K to 1200 K by 100 K\"")
 	var names nameList
 	fs.Var(&names, "reaction", "draw this reaction (repeatable; default: every reaction)")
 	includes := includePathFlag(fs)
 	out := fs.String("o", "", "write the plot to `FILE` (.svg or .png)")
+	sizeText := fs.String("size", "16cmx11cm", "the plot's `WxH` on the page, in cm, mm, in or pt (\"16cmx10cm\", \"6.5x4in\")")
+	dpi := fs.Int("dpi", defaultPlotDPI, "PNG resolution in dots per inch (30 to 1200); the PNG is WxH times this")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -58,11 +55,27 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 		fs.Usage()
 		return exitTrouble
 	}
+	size := plotSize{dpi: *dpi}
+	var err error
+	if size.w, size.h, err = parsePlotSize(*sizeText); err != nil {
+		fmt.Fprintf(stderr, "hess plot: --%v\n", err)
+		return exitTrouble
+	}
+	if size.dpi < minPlotDPI || size.dpi > maxPlotDPI {
+		fmt.Fprintf(stderr, "hess plot: --dpi %d: give %d to %d dots per inch\n", size.dpi, minPlotDPI, maxPlotDPI)
+		return exitTrouble
+	}
+	if format == "png" {
+		if err := size.checkPNGPixels(); err != nil {
+			fmt.Fprintf(stderr, "hess plot: %v\n", err)
+			return exitTrouble
+		}
+	}
 	doc, status := tabulate("plot", files[0], *temps, names, *includes, stderr)
 	if doc == nil {
 		return status
 	}
-	data, err := renderPlot(doc, format)
+	data, err := renderPlot(doc, format, size)
 	if err != nil {
 		fmt.Fprintf(stderr, "hess plot: %v\n", err)
 		return exitTrouble
@@ -91,8 +104,8 @@ func plotSpan(temps []float64) (lo, hi float64) {
 }
 
 // renderPlot draws the van 't Hoff plot of the document's reactions in the
-// given format ("svg" or "png").
-func renderPlot(doc *tableDoc, format string) ([]byte, error) {
+// given format ("svg" or "png") at the given size.
+func renderPlot(doc *tableDoc, format string, size plotSize) ([]byte, error) {
 	lo, hi := plotSpan(doc.Temps)
 	if !(lo < hi) || math.IsInf(lo, 0) {
 		return nil, fmt.Errorf("no temperatures to plot")
@@ -107,10 +120,9 @@ func renderPlot(doc *tableDoc, format string) ([]byte, error) {
 	temps[0], temps[plotSamples-1] = hi, lo
 
 	p := plot.New()
-	p.Title.Text = fmt.Sprintf("van 't Hoff plot of %s (p° = %s)", doc.Network, pressureText(doc.Pressure))
-	p.X.Label.Text = "1000/T [1/K]   (T in K below each value)"
+	setPlotFonts(p)
+	p.X.Label.Text = xAxisLabel
 	p.Y.Label.Text = "log10 K"
-	p.X.Tick.Marker = kelvinTicks{}
 	p.Y.Tick.Marker = niceTicks{}
 	p.Add(plotter.NewGrid())
 
@@ -120,107 +132,75 @@ func renderPlot(doc *tableDoc, format string) ([]byte, error) {
 	zero.Width = vg.Points(0.5)
 	p.Add(zero)
 
-	var marks, all plotter.XYs
-	drawn := 0
+	leg := plot.NewLegend()
+	leg.TextStyle.Font = plotFont(legendFontSize)
+	leg.Top, leg.Left = true, true
+	leg.Padding = vg.Points(2)
+	var marks plotter.XYs
+	drawn, extrapolated := 0, false
 	for i, t := range doc.Tables {
 		rx := t.Reaction
 		// The reaction's table, densely sampled.
 		dense := tableAt(doc, t, temps)
-		col := plotutil.Color(i)
+		st := reactionStyle(i)
 		segs := segments(dense)
 		if len(segs) == 0 {
 			continue // no data anywhere in the span
 		}
+		var glyphs plotter.XYs
 		for _, seg := range segs {
-			all = append(all, seg.xys...)
 			l, err := plotter.NewLine(seg.xys)
 			if err != nil {
 				return nil, fmt.Errorf("line of %s: %w", rx.Name, err)
 			}
-			l.Color = col
-			l.Width = vg.Points(1.5)
+			l.LineStyle = st.line
 			if seg.extrapolated {
-				l.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
+				l.Dashes = extrapolatedDashes
+				extrapolated = true
 			}
 			p.Add(l)
+			glyphs = append(glyphs, markerPoints(seg.xys, xLo, xHi, i)...)
+		}
+		if len(glyphs) > 0 {
+			sc, err := plotter.NewScatter(glyphs)
+			if err != nil {
+				return nil, fmt.Errorf("markers of %s: %w", rx.Name, err)
+			}
+			sc.GlyphStyle = st.glyph
+			p.Add(sc)
 		}
 		drawn++
-		label := rx.Name
-		var at []string
+		var at []float64
 		for _, c := range t.Crossovers {
 			if c.T >= lo && c.T <= hi {
 				marks = append(marks, plotter.XY{X: 1000 / c.T, Y: 0})
-				at = append(at, strconv.FormatFloat(math.Round(c.T*10)/10, 'f', -1, 64)+" K")
+				at = append(at, c.T)
 			}
 		}
-		if len(at) > 0 {
-			label += " (K = 1 at " + strings.Join(at, ", ") + ")"
-		}
-		p.Legend.Add(label, &plotter.Line{LineStyle: draw.LineStyle{Color: col, Width: vg.Points(1.5)}})
+		leg.Add(legendLabel(rx.Name, at), st)
 	}
 	if drawn == 0 {
 		return nil, fmt.Errorf("no reaction has data in %s to %s", kelvinText(lo), kelvinText(hi))
+	}
+	if extrapolated {
+		leg.Add("dashed: extrapolated (data outside their range)", extrapolatedThumb{})
 	}
 	if len(marks) > 0 {
 		sc, err := plotter.NewScatter(marks)
 		if err != nil {
 			return nil, fmt.Errorf("crossover markers: %w", err)
 		}
-		sc.Shape = draw.CircleGlyph{}
-		sc.Color = color.Black
-		sc.Radius = vg.Points(3)
+		sc.GlyphStyle = crossoverGlyph
 		p.Add(sc)
-		p.Legend.Add("K = 1", sc)
+		leg.Add("K = 1", sc)
 	}
 	p.X.Min, p.X.Max = xLo, xHi
-	p.Legend.Top, p.Legend.Left = emptiestCorner(all, xLo, xHi)
-	p.Legend.XOffs, p.Legend.YOffs = vg.Points(6), vg.Points(6)
-	if !p.Legend.Left {
-		p.Legend.XOffs = -p.Legend.XOffs
-	}
-	if p.Legend.Top {
-		p.Legend.YOffs = -p.Legend.YOffs
-	}
-
-	w, err := p.WriterTo(plotWidth, plotHeight, format)
-	if err != nil {
-		return nil, fmt.Errorf("render %s: %w", format, err)
-	}
-	var buf bytes.Buffer
-	if _, err := w.WriteTo(&buf); err != nil {
-		return nil, fmt.Errorf("render %s: %w", format, err)
-	}
-	return buf.Bytes(), nil
-}
-
-// emptiestCorner chooses where the legend goes: the corner of the plot
-// (top or bottom, left or right) whose quarter holds the fewest points of
-// the lines, the bottom left on a tie.
-func emptiestCorner(pts plotter.XYs, xLo, xHi float64) (top, left bool) {
-	yLo, yHi := 0.0, 0.0 // the K = 1 line is always drawn
-	for _, pt := range pts {
-		yLo, yHi = math.Min(yLo, pt.Y), math.Max(yHi, pt.Y)
-	}
-	best := -1
-	for _, c := range []struct{ top, left bool }{{false, true}, {false, false}, {true, true}, {true, false}} {
-		n := 0
-		for _, pt := range pts {
-			fx := (pt.X - xLo) / (xHi - xLo)
-			fy := 0.5
-			if yHi > yLo {
-				fy = (pt.Y - yLo) / (yHi - yLo)
-			}
-			inX := (c.left && fx < 0.5) || (!c.left && fx >= 0.5)
-			inY := (c.top && fy >= 0.6) || (!c.top && fy < 0.4)
-			if inX && inY {
-				n++
-			}
-		}
-		if best < 0 || n < best {
-			best, top, left = n, c.top, c.left
-		}
-	}
-	return top, left
+	// The axis is about the picture less the legend and the y axis.
+	lw, _ := legendWidth(&leg, size.w)
+	axisW := size.w - lw - plotMargin - vg.Points(48)
+	p.X.Tick.Marker = newTemperatureTicks(p.X.Tick.Label, axisW)
+	title := fmt.Sprintf("%s: van 't Hoff plot (p° = %s)", path.Base(doc.Network), pressureText(doc.Pressure))
+	return drawPlot(p, &leg, title, format, size)
 }
 
 // tableAt recomputes a reaction's table at the plot's sample temperatures.
@@ -267,22 +247,6 @@ func segments(rows []network.TableRow) []segment {
 		}
 	}
 	return kept
-}
-
-// kelvinTicks are the default ticks of 1000/T with the temperature written
-// under each labelled one.
-type kelvinTicks struct{}
-
-// Ticks returns the ticks between min and max.
-func (kelvinTicks) Ticks(min, max float64) []plot.Tick {
-	ticks := plot.DefaultTicks{}.Ticks(min, max)
-	for i, t := range ticks {
-		if t.Label == "" || t.Value <= 0 {
-			continue
-		}
-		ticks[i].Label = t.Label + "\n" + strconv.FormatFloat(math.Round(1000/t.Value), 'f', 0, 64) + " K"
-	}
-	return ticks
 }
 
 // niceTicks labels about six values 1, 2 or 5 times a power of ten apart,

@@ -70,6 +70,9 @@ func approachSummary(a *equilibrium.MixtureApproach) string {
 	return s
 }
 
+// approachConvention says which way the approach column counts.
+const approachConvention = "approach: |T - T_eq|, positive while a reaction is short of equilibrium (Q < K), negative past it (Q > K)"
+
 // approachNotes explain what the rows leave out: reactions with no
 // quotient, reactions with no K, extrapolated data.
 func approachNotes(a *equilibrium.MixtureApproach) []string {
@@ -96,6 +99,9 @@ func approachNotes(a *equilibrium.MixtureApproach) []string {
 	}
 	if len(extrapolated) > 0 {
 		notes = append(notes, "extrapolated: "+strings.Join(extrapolated, ", ")+" use some data outside their temperature range")
+	}
+	if len(a.Reactions) > 0 {
+		notes = append(notes, approachConvention)
 	}
 	return notes
 }
