@@ -121,10 +121,10 @@ func renderPlot(doc *tableDoc, format string) ([]byte, error) {
 
 	var marks, all plotter.XYs
 	drawn := 0
-	for i, t := range doc.Tables {
+	for i, t := range doc.tables() {
 		rx := t.Reaction
 		// The reaction's table, densely sampled.
-		dense := tableAt(doc, t, temps)
+		dense := tableAt(doc, t.Table, temps)
 		col := plotutil.Color(i)
 		segs := segments(dense)
 		if len(segs) == 0 {
