@@ -48,9 +48,13 @@ type statementKind struct {
 func participleKind[G any](keyword string, set func(*Statement, *G)) statementKind {
 	p := participle.MustBuild[G](parserOptions...)
 	parse := func(c *tokenCursor, st *Statement) error {
+		toks := c.toks[c.i:]
 		return c.withPeeking(func(peek *lexer.PeekingLexer) error {
 			v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
 			if v != nil {
+				if err != nil {
+					anchorParsed(reflect.ValueOf(v), toks)
+				}
 				set(st, v)
 			}
 			return err
@@ -332,7 +336,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
 		}}}
 	}
-	st := &Statement{Node: Node{Pos: first.Pos, Tokens: toks}}
+	st := &Statement{Node: Node{Tokens: toks}}
 	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1]}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {

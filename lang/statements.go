@@ -3,6 +3,7 @@ package lang
 import (
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
+	"reflect"
 )
 
 // The species and reaction statements, by far the most numerous in a large
@@ -37,8 +38,8 @@ var comboParser = participle.MustBuild[Combination](parserOptions...)
 // parseSpeciesStatement reads a Species.
 func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
-	first := *lex.Next() // "species"
-	out := &Species{Node: Node{Pos: first.Pos}}
+	lex.Next() // "species"
+	out := &Species{Node: startsAt(lex, start)}
 	st.Species = out
 	for {
 		ref := &SpeciesRef{}
@@ -95,8 +96,8 @@ func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
 // parseReactionStatement reads a Reaction.
 func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
-	first := *lex.Next() // "reaction"
-	out := &Reaction{Node: Node{Pos: first.Pos}}
+	lex.Next() // "reaction"
+	out := &Reaction{Node: startsAt(lex, start)}
 	st.Reaction = out
 	name := &Ident{}
 	if name.read(lex) != nil {
@@ -119,9 +120,13 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	}
 	if t := lex.Peek(); t.Type == Punct && isLit(t, comboPart[0]) {
 		lex.Next()
+		toks := lex.toks[lex.i:]
 		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
 			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
 			if c != nil {
+				if err != nil {
+					anchorParsed(reflect.ValueOf(c), toks)
+				}
 				out.Combo = c
 			}
 			return err
