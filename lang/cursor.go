@@ -25,6 +25,7 @@ type tokenStream interface {
 type tokenCursor struct {
 	toks []lexer.Token
 	i    int
+	slab *nodeSlab // where the statement's small nodes come from; nil: the heap
 }
 
 func (c *tokenCursor) Peek() *lexer.Token { return &c.toks[c.i] }

@@ -133,11 +133,12 @@ func (tm *Term) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	var out Term
+	slab := slabOf(lex)
 	if numRule.begins(&first) {
-		out.Coef = &Num{}
+		out.Coef = slab.num()
 		_ = out.Coef.read(lex)
 	}
-	out.Species = &SpeciesRef{}
+	out.Species = slab.ref()
 	if out.Species.read(lex) != nil {
 		if out.Coef == nil {
 			return participle.NextMatch

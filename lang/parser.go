@@ -304,6 +304,7 @@ type result struct {
 // statement whose text it holds is taken from it.
 func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []result {
 	results := make([]result, len(chunks))
+	slab := &nodeSlab{}
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
 			if key, keyed := statementKey(src, toks[c.start:c.end]); keyed {
@@ -311,19 +312,20 @@ func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(toks, c)
+				r := parseStatement(toks, c, slab)
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(toks, c)
+		results[i] = parseStatement(toks, c, slab)
 	}
 	return results
 }
 
-// parseStatement parses the statement c of a group's tokens.
-func parseStatement(group []lexer.Token, c chunk) result {
+// parseStatement parses the statement c of a group's tokens, taking its
+// small nodes from slab.
+func parseStatement(group []lexer.Token, c chunk, slab *nodeSlab) result {
 	toks := group[c.start:c.end:c.end]
 	first := toks[0]
 	if first.Type != Keyword || !statementKeywords[first.Value] {
@@ -337,7 +339,7 @@ func parseStatement(group []lexer.Token, c chunk) result {
 		}}}
 	}
 	st := &Statement{Node: Node{Tokens: toks}}
-	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1]}
+	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1], slab: slab}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
 		err = &syntaxError{found: *cur.Peek()}

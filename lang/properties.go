@@ -1,6 +1,8 @@
 package lang
 
 import (
+	"slices"
+
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -86,10 +88,19 @@ func (p *Polynomial) read(lex tokenStream) error {
 	if err := expectLit(lex, polynomialRule.at(4)); err != nil {
 		return err
 	}
+	// The coefficients are read into one array, which Coeffs points into.
+	var buf [9]Num // the most a polynomial takes
+	nums := buf[:0]
 	for numRule.begins(lex.Peek()) {
-		n := &Num{}
-		_ = n.read(lex)
-		out.Coeffs = append(out.Coeffs, n)
+		nums = append(nums, Num{})
+		_ = nums[len(nums)-1].read(lex)
+	}
+	if len(nums) > 0 {
+		kept := slices.Clone(nums)
+		out.Coeffs = make([]*Num, len(kept))
+		for i := range kept {
+			out.Coeffs[i] = &kept[i]
+		}
 	}
 	if err := expectLit(lex, polynomialRule.at(6)); err != nil {
 		return err

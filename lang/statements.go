@@ -74,18 +74,21 @@ func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 // parseTerms reads Term ("+" Term)* into *terms, failing expecting part
 // x of the reaction when no term starts the list.
 func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
+	var buf [8]*Term
+	read := buf[:0]
+	defer func() { *terms = lex.slab.termList(read) }()
 	for {
-		tm := &Term{}
+		tm := lex.slab.term()
 		if err := tm.read(lex); err != nil {
 			if err != participle.NextMatch {
 				return err
 			}
-			if len(*terms) == 0 {
+			if len(read) == 0 {
 				return expecting(lex, x)
 			}
 			return expecting(lex, moreTermsPart[1])
 		}
-		*terms = append(*terms, tm)
+		read = append(read, tm)
 		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreTermsPart[0]) {
 			return nil
 		}
