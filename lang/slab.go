@@ -14,7 +14,7 @@ type nodeSlab struct {
 }
 
 // slabChunk is how many nodes of a kind one allocation holds.
-const slabChunk = 256
+const slabChunk = 64
 
 // slabNext returns a pointer to the next free element of *s, starting a new
 // chunk when the current one is full.
