@@ -114,14 +114,14 @@ func (c *compiler) lookup(ref string) *Species {
 func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	for _, t := range terms {
-		term := Term{Coef: sharedCoefs[1], Span: t.Span()}
+		term := Term{Coef: sharedRat(1), Span: t.Span()}
 		n, small := int64(1), true
 		if t.Coef != nil {
 			n, small = smallCoef(t.Coef.Text)
 		}
 		switch {
 		case small:
-			term.Coef = sharedCoefs[n]
+			term.Coef = sharedRat(n)
 		default:
 			q, err := parseRat(t.Coef.Text)
 			switch {
@@ -158,16 +158,26 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 	return out, resolved
 }
 
-// sharedCoefs are the coefficients 0 to maxSharedCoef as exact rationals,
-// shared by every term that has one of them: a Term's Coef is never
-// changed in place.
+// sharedCoefs are the whole numbers -maxSharedCoef to maxSharedCoef as
+// exact rationals (sharedCoefs[maxSharedCoef+n] is n), shared by every
+// term and net term that has one of them: a Term's Coef and a NetTerm's Nu
+// are never changed in place.
 var sharedCoefs = func() []*big.Rat {
-	out := make([]*big.Rat, maxSharedCoef+1)
+	out := make([]*big.Rat, 2*maxSharedCoef+1)
 	for i := range out {
-		out[i] = big.NewRat(int64(i), 1)
+		out[i] = big.NewRat(int64(i-maxSharedCoef), 1)
 	}
 	return out
 }()
+
+// sharedRat is n as an exact rational: a shared one where n is within
+// ±maxSharedCoef.
+func sharedRat(n int64) *big.Rat {
+	if n < -maxSharedCoef || n > maxSharedCoef {
+		return big.NewRat(n, 1)
+	}
+	return sharedCoefs[maxSharedCoef+n]
+}
 
 const maxSharedCoef = 99
 

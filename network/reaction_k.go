@@ -81,6 +81,9 @@ type ReactionK struct {
 // ReactionK prepares the evaluation of rx, which must not be nil. An
 // unresolved reaction gives rows that are not Valid.
 func (n *Network) ReactionK(rx *Reaction) *ReactionK {
+	if len(rx.Combo) == 0 {
+		return n.calcWithin(rx, nil, nil) // no parts to expand
+	}
 	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*ReactionK{})
 }
 
@@ -103,7 +106,9 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		}
 		delete(path, rx)
 	}
-	memo[rx] = c
+	if memo != nil {
+		memo[rx] = c
+	}
 	c.dn = deltaGasMoles(c.terms)
 	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
 	for _, t := range c.terms {
