@@ -55,6 +55,7 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "hess table: %v\n", err)
 		return exitTrouble
 	}
+	streamingGC()
 	// The table is written as it is computed, a batch of reactions at a
 	// time: to stdout directly, to -o through a temporary file that
 	// replaces the target once complete.
