@@ -17,6 +17,20 @@ type NetTerm struct {
 	Nu      *big.Rat
 }
 
+// NuFloat is the net coefficient as a float64, without allocating where
+// it is a whole number that fits an int64.
+func (t NetTerm) NuFloat() float64 { return ratFloat(t.Nu) }
+
+// ratFloat is r as the nearest float64; whole numbers that fit an int64
+// are converted without allocating.
+func ratFloat(r *big.Rat) float64 {
+	if r.IsInt() && r.Num().IsInt64() {
+		return float64(r.Num().Int64())
+	}
+	f, _ := r.Float64()
+	return f
+}
+
 // NetTerms returns the reaction's species with non-zero net coefficients, in
 // the order they first appear (left side first). Undefined species are left
 // out.
@@ -93,14 +107,28 @@ func (sp *Species) QuotientActivity() thermo.Activity {
 
 // deltaGasMoles is Δn, the net change in moles of gas.
 func deltaGasMoles(terms []NetTerm) float64 {
+	var small int64 // the sum while every gas coefficient is a small whole number
+	exact := false
+	for _, t := range terms {
+		if t.Species.Activity() != thermo.ActivityGas {
+			continue
+		}
+		if n, ok := smallInt(t.Nu); ok && !exact {
+			small += n
+			continue
+		}
+		exact = true
+	}
+	if !exact {
+		return float64(small)
+	}
 	dn := new(big.Rat)
 	for _, t := range terms {
 		if t.Species.Activity() == thermo.ActivityGas {
 			dn.Add(dn, t.Nu)
 		}
 	}
-	f, _ := dn.Float64()
-	return f
+	return ratFloat(dn)
 }
 
 // EquationText writes the reaction's equation with canonical species names

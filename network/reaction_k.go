@@ -111,8 +111,11 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 	}
 	c.dn = deltaGasMoles(c.terms)
 	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
+	c.coverage = make([][][2]float64, 0, len(c.terms))
+	c.abs.Terms = make([]thermo.Term, 0, len(c.terms))
+	c.form.Terms = make([]thermo.Term, 0, len(c.terms))
 	for _, t := range c.terms {
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		sp := t.Species
 		a := sp.QuotientActivity()
 		m := sp.Model()
@@ -230,7 +233,7 @@ func (c *ReactionK) fromFormation(T float64) point {
 			p.dh = math.NaN()
 			break
 		}
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		p.dh += nu * t.Species.Hf.V
 	}
 	if !math.IsNaN(p.dh) {
