@@ -2,6 +2,7 @@ package equilibrium
 
 import (
 	"math/big"
+	"strconv"
 	"strings"
 
 	"hess/lang"
@@ -14,7 +15,7 @@ import (
 func kindOf(terms []network.NetTerm) string {
 	r := thermo.Reaction{}
 	for _, t := range terms {
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		r.Terms = append(r.Terms, thermo.Term{Nu: nu, Activity: t.Species.QuotientActivity()})
 	}
 	return string(r.Kind())
@@ -32,13 +33,13 @@ func quotientText(terms []network.NetTerm) string {
 			continue
 		}
 		f := factorText(t.Species, a)
-		abs := new(big.Rat).Abs(t.Nu)
-		if abs.Cmp(big.NewRat(1, 1)) != 0 {
-			if abs.IsInt() {
-				f += "^" + abs.Num().String()
-			} else {
-				f += "^(" + abs.RatString() + ")"
+		switch {
+		case t.Nu.IsInt() && t.Nu.Num().IsInt64():
+			if n := t.Nu.Num().Int64(); n != 1 && n != -1 {
+				f += "^" + strconv.FormatUint(absInt64(n), 10)
 			}
+		default:
+			f += "^(" + new(big.Rat).Abs(t.Nu).RatString() + ")"
 		}
 		if t.Nu.Sign() > 0 {
 			num = append(num, f)
@@ -59,6 +60,14 @@ func quotientText(terms []network.NetTerm) string {
 		d = "(" + d + ")"
 	}
 	return n + " / " + d
+}
+
+// absInt64 is |n|, correct for the most negative int64 too.
+func absInt64(n int64) uint64 {
+	if n < 0 {
+		return uint64(-(n + 1)) + 1
+	}
+	return uint64(n)
 }
 
 func factorText(sp *network.Species, a thermo.Activity) string {

@@ -36,15 +36,25 @@ type Statement struct {
 	Broken bool
 }
 
-// Node carries a node's position and tokens.
+// Node carries the tokens a node spans, a run of its statement's tokens.
+// A node that has no tokens of its own (a statement that failed before its
+// end, say) may keep where it starts as an empty run whose capacity
+// reaches the token there; its Span is then empty at that token.
 type Node struct {
-	Pos    lexer.Position
 	Tokens []lexer.Token
+}
+
+// ParsedNode is the Node of a node that participle reads: participle also
+// records the position where it started, which is all a node that failed
+// part-way has (the parser turns it into an empty run of tokens there).
+type ParsedNode struct {
+	Pos lexer.Position
+	Node
 }
 
 // Include is `include "path"`: another file's statements pulled in.
 type Include struct {
-	Node
+	ParsedNode
 	Path *Str `parser:"'include' @@"`
 }
 
@@ -84,13 +94,13 @@ type Unit struct {
 
 // Settings is the `settings { … }` block.
 type Settings struct {
-	Node
+	ParsedNode
 	Items []*Setting `parser:"'settings' '{' @@* '}'"`
 }
 
 // Setting is one key of a settings block.
 type Setting struct {
-	Node
+	ParsedNode
 	Pressure *Quantity `parser:"  'pressure' @@"`
 	// StandardPressure is the standard pressure the file's own data refer
 	// to; unlike the other keys it may stand in an included file.
@@ -104,7 +114,7 @@ type Setting struct {
 // TempSet is one item of a temperature list: a single temperature, or a
 // range From to To by By.
 type TempSet struct {
-	Node
+	ParsedNode
 	From *Quantity `parser:"@@"`
 	To   *Quantity `parser:"( 'to' @@"`
 	By   *Quantity `parser:"  'by' @@ )?"`
@@ -112,21 +122,21 @@ type TempSet struct {
 
 // Lint changes the severity of one check.
 type Lint struct {
-	Node
+	ParsedNode
 	Check *Ident `parser:"@@"`
 	Level *Ident `parser:"@@"`
 }
 
 // Element declares an element beyond the built-in table.
 type Element struct {
-	Node
+	ParsedNode
 	Symbol *Ident    `parser:"'element' @@ '{'"`
 	Mass   *Quantity `parser:"( 'mass' @@ )? '}'"`
 }
 
 // Phase declares a state tag and its activity convention.
 type Phase struct {
-	Node
+	ParsedNode
 	Name       *Ident `parser:"'phase' @@ '{'"`
 	Convention *Ident `parser:"( 'convention' @@ )? '}'"`
 }
@@ -217,13 +227,13 @@ type Term struct {
 // Combination is the weighted sum of reactions a coupled reaction claims
 // to be. Every term after the first carries a sign.
 type Combination struct {
-	Node
+	ParsedNode
 	Terms []*ComboTerm `parser:"@@ ( (?= '+' | '-' ) @@ )*"`
 }
 
 // ComboTerm is one signed, weighted reaction name in a combination.
 type ComboTerm struct {
-	Node
+	ParsedNode
 	Sign string `parser:"@( '+' | '-' )?"`
 	Coef *Num   `parser:"@@?"`
 	Name *Ident `parser:"@@"`
@@ -266,14 +276,14 @@ type Rate struct {
 
 // Mixture is a named composition at a temperature and pressure.
 type Mixture struct {
-	Node
+	ParsedNode
 	Name  *Ident     `parser:"'mixture' @@ '{'"`
 	Items []*MixItem `parser:"@@* '}'"`
 }
 
 // MixItem is one line of a mixture.
 type MixItem struct {
-	Node
+	ParsedNode
 	Temperature *Quantity  `parser:"  'temperature' @@"`
 	Pressure    *Quantity  `parser:"| 'pressure' @@"`
 	Member      *MixMember `parser:"| @@"`
@@ -281,7 +291,7 @@ type MixItem struct {
 
 // MixMember is a species with an optional amount.
 type MixMember struct {
-	Node
+	ParsedNode
 	Species *SpeciesRef `parser:"@@"`
 	Amount  *Quantity   `parser:"@@?"`
 	// Fixed holds a gas at its partial pressure: the mixture is open to a

@@ -76,7 +76,7 @@ func (c *Cache) lookup(k cacheKey, at lexer.Position) *Statement {
 	if st == nil {
 		return nil
 	}
-	if st.Pos.Offset != at.Offset || st.Pos.Line != at.Line || st.Pos.Filename != at.Filename {
+	if p := st.Position(); p.Offset != at.Offset || p.Line != at.Line || p.Filename != at.Filename {
 		st = moved(st, at)
 	}
 	c.mu.Lock()
@@ -100,7 +100,8 @@ func (c *Cache) store(k cacheKey, st *Statement, clean bool) {
 // node and token keeps its column and moves by the same number of lines
 // and bytes.
 func moved(st *Statement, at lexer.Position) *Statement {
-	m := mover{dOff: at.Offset - st.Pos.Offset, dLine: at.Line - st.Pos.Line, file: at.Filename, old: st.Tokens}
+	p := st.Position()
+	m := mover{dOff: at.Offset - p.Offset, dLine: at.Line - p.Line, file: at.Filename, old: st.Tokens}
 	m.toks = make([]lexer.Token, len(st.Tokens))
 	for i, t := range st.Tokens {
 		m.toks[i] = t
@@ -124,7 +125,10 @@ func (m *mover) pos(p lexer.Position) lexer.Position {
 	return p
 }
 
-var nodeType = reflect.TypeFor[Node]()
+var (
+	nodeType       = reflect.TypeFor[Node]()
+	parsedNodeType = reflect.TypeFor[ParsedNode]()
+)
 
 // copyStruct copies the syntax-tree struct src into dst, moving positions.
 func (m *mover) copyStruct(dst, src reflect.Value) {
@@ -133,7 +137,10 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 		switch {
 		case f.Type() == nodeType:
 			n := f.Interface().(Node)
-			d.Set(reflect.ValueOf(Node{Pos: m.pos(n.Pos), Tokens: m.tokens(n.Tokens)}))
+			d.Set(reflect.ValueOf(Node{Tokens: m.tokens(n.Tokens)}))
+		case f.Type() == parsedNodeType:
+			n := f.Interface().(ParsedNode)
+			d.Set(reflect.ValueOf(ParsedNode{Pos: m.pos(n.Pos), Node: Node{Tokens: m.tokens(n.Tokens)}}))
 		case f.Kind() == reflect.Pointer:
 			if !f.IsNil() {
 				p := reflect.New(f.Type().Elem())
@@ -161,21 +168,19 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 // tokens maps a node's tokens, a run of the statement's, onto the moved
 // statement's tokens.
 func (m *mover) tokens(ts []lexer.Token) []lexer.Token {
-	if ts == nil {
-		return nil
+	if cap(ts) == 0 {
+		return ts
 	}
-	if len(ts) == 0 {
-		return []lexer.Token{}
-	}
-	off := ts[0].Pos.Offset
+	off := ts[:1][0].Pos.Offset
 	i := sort.Search(len(m.old), func(i int) bool { return m.old[i].Pos.Offset >= off })
-	if i+len(ts) > len(m.old) || m.old[i].Pos.Offset != off {
-		out := make([]lexer.Token, len(ts))
-		for j, t := range ts {
+	n := max(len(ts), 1) // an empty run keeps the token where it starts
+	if i+n > len(m.old) || m.old[i].Pos.Offset != off {
+		out := make([]lexer.Token, n)
+		for j, t := range ts[:n] {
 			out[j] = t
 			out[j].Pos = m.pos(t.Pos)
 		}
-		return out
+		return out[:len(ts)]
 	}
-	return m.toks[i : i+len(ts) : i+len(ts)]
+	return m.toks[i : i+len(ts) : i+n]
 }

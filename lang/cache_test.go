@@ -21,7 +21,7 @@ func checkCachedParse(t *testing.T, c *Cache, src []byte) *File {
 	}
 	for i := range got.Statements {
 		if !reflect.DeepEqual(got.Statements[i], want.Statements[i]) {
-			t.Fatalf("statement %d at %v differs from a fresh parse", i, want.Statements[i].Pos)
+			t.Fatalf("statement %d at %v differs from a fresh parse", i, want.Statements[i].Position())
 		}
 	}
 	return got

@@ -1,6 +1,11 @@
 package lang
 
-import "github.com/alecthomas/participle/v2/lexer"
+import (
+	"reflect"
+	"sort"
+
+	"github.com/alecthomas/participle/v2/lexer"
+)
 
 // tokenStream is what the hand-written readers need of a token stream. It
 // is met by participle's PeekingLexer, when participle calls a node's
@@ -20,6 +25,7 @@ type tokenStream interface {
 type tokenCursor struct {
 	toks []lexer.Token
 	i    int
+	slab *nodeSlab // where the statement's small nodes come from; nil: the heap
 }
 
 func (c *tokenCursor) Peek() *lexer.Token { return &c.toks[c.i] }
@@ -47,6 +53,40 @@ func (c *tokenCursor) withPeeking(parse func(*lexer.PeekingLexer) error) error {
 	c.i += int(peek.RawCursor())
 	c.i = min(c.i, len(c.toks)-1)
 	return err
+}
+
+// anchorParsed gives every node participle read in v that has no tokens
+// (it failed part-way) an empty run of toks where it started, so that its
+// Span is where it was before. toks are the tokens participle was given.
+func anchorParsed(v reflect.Value, toks []lexer.Token) {
+	switch v.Kind() {
+	case reflect.Pointer:
+		if !v.IsNil() {
+			anchorParsed(v.Elem(), toks)
+		}
+	case reflect.Slice:
+		if v.Type().Elem().Kind() == reflect.Pointer {
+			for i := range v.Len() {
+				anchorParsed(v.Index(i), toks)
+			}
+		}
+	case reflect.Struct:
+		if v.Type() == parsedNodeType {
+			n := v.Addr().Interface().(*ParsedNode)
+			if len(n.Tokens) == 0 && n.Pos.Line > 0 {
+				i := sort.Search(len(toks), func(i int) bool { return toks[i].Pos.Offset >= n.Pos.Offset })
+				if i < len(toks) && toks[i].Pos.Offset == n.Pos.Offset {
+					n.Tokens = toks[i:i:min(i+1, len(toks))]
+				}
+			}
+			return
+		}
+		for i := range v.NumField() {
+			if v.Type().Field(i).IsExported() {
+				anchorParsed(v.Field(i), toks)
+			}
+		}
+	}
 }
 
 // replay is a lexer.Lexer over tokens already read, then EOF.

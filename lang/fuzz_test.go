@@ -136,7 +136,7 @@ func FuzzParse(f *testing.F) {
 				t.Fatalf("statement %d span %+v out of order", i, s)
 			}
 			prev = s.End.Offset
-			if !st.Broken && !diags.HasErrors() && file.Statements[i].Node.Pos.Offset != s.Start.Offset {
+			if !st.Broken && !diags.HasErrors() && file.Statements[i].Position().Offset != s.Start.Offset {
 				t.Fatalf("statement %d position disagrees with its span", i)
 			}
 		}

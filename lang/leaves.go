@@ -42,7 +42,7 @@ func (n *Num) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	t, toks := take(lex)
-	*n = Num{Node: Node{Pos: t.Pos, Tokens: toks}, Text: t.Value}
+	*n = Num{Node: Node{Tokens: toks}, Text: t.Value}
 	return nil
 }
 
@@ -51,7 +51,7 @@ func (u *Unit) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	t, toks := take(lex)
-	*u = Unit{Node: Node{Pos: t.Pos, Tokens: toks}, Text: t.Value}
+	*u = Unit{Node: Node{Tokens: toks}, Text: t.Value}
 	return nil
 }
 
@@ -63,7 +63,7 @@ func (id *Ident) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	t, toks := take(lex)
-	*id = Ident{Node: Node{Pos: t.Pos, Tokens: toks}, Name: t.Value}
+	*id = Ident{Node: Node{Tokens: toks}, Name: t.Value}
 	return nil
 }
 
@@ -75,7 +75,7 @@ func (s *Str) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	t, toks := take(lex)
-	*s = Str{Node: Node{Pos: t.Pos, Tokens: toks}, Raw: t.Value}
+	*s = Str{Node: Node{Tokens: toks}, Raw: t.Value}
 	return nil
 }
 
@@ -87,7 +87,7 @@ func (r *SpeciesRef) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	t, toks := take(lex)
-	*r = SpeciesRef{Node: Node{Pos: t.Pos, Tokens: toks}, Text: t.Value}
+	*r = SpeciesRef{Node: Node{Tokens: toks}, Text: t.Value}
 	return nil
 }
 
@@ -96,7 +96,7 @@ func (a *Arrow) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	tok, toks := take(lex)
-	*a = Arrow{Node: Node{Pos: tok.Pos, Tokens: toks}, Text: tok.Value}
+	*a = Arrow{Node: Node{Tokens: toks}, Text: tok.Value}
 	return nil
 }
 
@@ -111,7 +111,6 @@ func (q *Quantity) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	start := lex.RawCursor()
-	first := *lex.Peek()
 	out := Quantity{Value: &Num{}}
 	_ = out.Value.read(lex)
 	if isPlusMinus(lex.Peek()) {
@@ -125,7 +124,7 @@ func (q *Quantity) read(lex tokenStream) error {
 		out.Unit = &Unit{}
 		_ = out.Unit.read(lex)
 	}
-	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
 	*q = out
 	return nil
 }
@@ -134,11 +133,12 @@ func (tm *Term) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
 	var out Term
+	slab := slabOf(lex)
 	if numRule.begins(&first) {
-		out.Coef = &Num{}
+		out.Coef = slab.num()
 		_ = out.Coef.read(lex)
 	}
-	out.Species = &SpeciesRef{}
+	out.Species = slab.ref()
 	if tok := *lex.Peek(); out.Species.read(lex) != nil {
 		if out.Coef == nil {
 			return participle.NextMatch
@@ -147,7 +147,7 @@ func (tm *Term) read(lex tokenStream) error {
 	} else if err := gluedTerms(tok); err != nil {
 		return err
 	}
-	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
 	*tm = out
 	return nil
 }

@@ -18,7 +18,7 @@ func TestStatementTokenLimit(t *testing.T) {
 		t.Errorf("no limit diagnostic among %d", len(diags))
 	}
 	last := f.Statements[len(f.Statements)-1]
-	if last.Species == nil || last.Broken || last.Pos.Line != 2 {
+	if last.Species == nil || last.Broken || last.Position().Line != 2 {
 		t.Errorf("the statement after the long one: %+v", last)
 	}
 }

@@ -50,9 +50,13 @@ type statementKind struct {
 func participleKind[G any](keyword string, set func(*Statement, *G)) statementKind {
 	p := participle.MustBuild[G](parserOptions...)
 	parse := func(c *tokenCursor, st *Statement) error {
+		toks := c.toks[c.i:]
 		return c.withPeeking(func(peek *lexer.PeekingLexer) error {
 			v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
 			if v != nil {
+				if err != nil {
+					anchorParsed(reflect.ValueOf(v), toks)
+				}
 				set(st, v)
 			}
 			return err
@@ -363,6 +367,7 @@ type result struct {
 // statement whose text it holds is taken from it.
 func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []result {
 	results := make([]result, len(chunks))
+	slab := &nodeSlab{}
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
 			if key, keyed := statementKey(src, toks[c.start:c.end]); keyed {
@@ -370,19 +375,20 @@ func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(toks, c)
+				r := parseStatement(toks, c, slab)
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(toks, c)
+		results[i] = parseStatement(toks, c, slab)
 	}
 	return results
 }
 
-// parseStatement parses the statement c of a group's tokens.
-func parseStatement(group []lexer.Token, c chunk) result {
+// parseStatement parses the statement c of a group's tokens, taking its
+// small nodes from slab.
+func parseStatement(group []lexer.Token, c chunk, slab *nodeSlab) result {
 	toks := group[c.start:c.end:c.end]
 	first := toks[0]
 	if first.Type != Keyword || !statementKeywords[first.Value] {
@@ -395,8 +401,8 @@ func parseStatement(group []lexer.Token, c chunk) result {
 			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
 		}}}
 	}
-	st := &Statement{Node: Node{Pos: first.Pos, Tokens: toks}}
-	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1]}
+	st := &Statement{Node: Node{Tokens: toks}}
+	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1], slab: slab}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
 		err = &syntaxError{found: *cur.Peek()}

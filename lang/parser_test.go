@@ -335,7 +335,7 @@ func TestSpans(t *testing.T) {
 	if nilNode.Span() != (Span{}) {
 		t.Error("nil node has a span")
 	}
-	empty := Node{Pos: f.Statements[1].Pos}
+	empty := Node{Tokens: f.Statements[1].Tokens[:0]}
 	if s := empty.Span(); s.Start != s.End || s.Start.Offset != 55 {
 		t.Errorf("tokenless node span %+v", s)
 	}
@@ -545,7 +545,7 @@ func referenceParse(src []byte) ([]*Statement, []string) {
 		e := TokenSpan(c[len(c)-1]).End
 		eof := lexer.Token{Type: lexer.EOF, Pos: lexer.Position{Filename: "f.hess", Offset: e.Offset, Line: e.Line, Column: e.Column}}
 		stream := append(append([]lexer.Token(nil), c...), eof)
-		st := &Statement{Node: Node{Pos: c[0].Pos, Tokens: c}}
+		st := &Statement{Node: Node{Tokens: c}}
 		cur := &tokenCursor{toks: stream}
 		err := statementParsers[c[0].Value](cur, st)
 		if err == nil && !isEnd(*cur.Peek()) {
@@ -680,5 +680,40 @@ func TestParallelParseMatchesSerial(t *testing.T) {
 	}
 	if n := strings.Count(runs[0], "\n"); n < 3000+60 {
 		t.Errorf("%d lines of statements and diagnostics, want at least 3060", n)
+	}
+}
+
+// TestBrokenNodesKeepTheirStart checks that a node left part-way by a
+// syntax error, read by hand or by participle, has an empty span where it
+// started.
+func TestBrokenNodesKeepTheirStart(t *testing.T) {
+	src := "settings {\n  pressure\n}\nmixture m {\n  temperature\n}\nspecies A(g) {\n  hf\n}\nreaction r: A(g) -> \n"
+	f, diags := Parse("b.hess", []byte(src))
+	if len(diags) != 4 {
+		t.Fatalf("want 4 syntax errors, got %v", diags)
+	}
+	at := func(s string) Span {
+		off := strings.Index(src, s)
+		line := strings.Count(src[:off], "\n") + 1
+		col := off - strings.LastIndex(src[:off], "\n")
+		p := Pos{Line: line, Column: col, Offset: off}
+		return Span{File: "b.hess", Start: p, End: p}
+	}
+	st := f.Statements
+	checks := []struct {
+		name string
+		got  Span
+		want Span
+	}{
+		{"settings", st[0].Settings.Span(), at("settings")},
+		{"setting", st[0].Settings.Items[0].Span(), at("pressure")},
+		{"mixture", st[1].Mixture.Span(), at("mixture")},
+		{"species", st[2].Species.Span(), at("species")},
+		{"reaction", st[3].Reaction.Span(), at("reaction")},
+	}
+	for _, c := range checks {
+		if c.got != c.want {
+			t.Errorf("%s: span %+v, want %+v", c.name, c.got, c.want)
+		}
 	}
 }

@@ -1,6 +1,8 @@
 package lang
 
 import (
+	"slices"
+
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -86,15 +88,24 @@ func (p *Polynomial) read(lex tokenStream) error {
 	if err := expectLit(lex, polynomialRule.at(4)); err != nil {
 		return err
 	}
+	// The coefficients are read into one array, which Coeffs points into.
+	var buf [9]Num // the most a polynomial takes
+	nums := buf[:0]
 	for numRule.begins(lex.Peek()) {
-		n := &Num{}
-		_ = n.read(lex)
-		out.Coeffs = append(out.Coeffs, n)
+		nums = append(nums, Num{})
+		_ = nums[len(nums)-1].read(lex)
+	}
+	if len(nums) > 0 {
+		kept := slices.Clone(nums)
+		out.Coeffs = make([]*Num, len(kept))
+		for i := range kept {
+			out.Coeffs[i] = &kept[i]
+		}
 	}
 	if err := expectLit(lex, polynomialRule.at(6)); err != nil {
 		return err
 	}
-	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
 	*p = out
 	return nil
 }
@@ -106,7 +117,7 @@ func readText(lex tokenStream, first lexer.Token, start lexer.RawCursor) (*TextP
 	if s.read(lex) != nil {
 		return nil, expecting(lex, textRule.at(1))
 	}
-	return &TextProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}, nil
+	return &TextProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}, nil
 }
 
 func (sp *SpeciesProperty) read(lex tokenStream) error {
@@ -121,14 +132,14 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 		if ref.read(lex) != nil {
 			return expecting(lex, formulaRule.at(1))
 		}
-		out.Formula = &FormulaProp{Node: Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
+		out.Formula = &FormulaProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
 	case speciesValueRule.begins(&first):
 		lex.Next()
 		v := &SpeciesValue{Key: first.Value}
 		if v.Value, err = requireQuantity(lex, speciesValueRule.at(1)); err != nil {
 			return err
 		}
-		v.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+		v.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
 		out.Value = v
 	case polynomialRule.begins(&first):
 		out.Poly = &Polynomial{}
@@ -142,7 +153,7 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 	default:
 		return participle.NextMatch
 	}
-	out.Node = Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
 	*sp = out
 	return nil
 }
@@ -196,7 +207,7 @@ func (r *Rate) read(lex tokenStream, node func() Node) error {
 func (rp *ReactionProperty) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
-	node := func() Node { return Node{Pos: first.Pos, Tokens: lex.Range(start, lex.RawCursor())} }
+	node := func() Node { return Node{Tokens: lex.Range(start, lex.RawCursor())} }
 	var out ReactionProperty
 	var err error
 	switch {

@@ -3,6 +3,7 @@ package lang
 import (
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
+	"reflect"
 )
 
 // The species and reaction statements, by far the most numerous in a large
@@ -37,8 +38,8 @@ var comboParser = participle.MustBuild[Combination](parserOptions...)
 // parseSpeciesStatement reads a Species.
 func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
-	first := *lex.Next() // "species"
-	out := &Species{Node: Node{Pos: first.Pos}}
+	lex.Next() // "species"
+	out := &Species{Node: startsAt(lex, start)}
 	st.Species = out
 	for {
 		ref := &SpeciesRef{}
@@ -73,18 +74,21 @@ func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 // parseTerms reads Term ("+" Term)* into *terms, failing expecting part
 // x of the reaction when no term starts the list.
 func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
+	var buf [8]*Term
+	read := buf[:0]
+	defer func() { *terms = lex.slab.termList(read) }()
 	for {
-		tm := &Term{}
+		tm := lex.slab.term()
 		if err := tm.read(lex); err != nil {
 			if err != participle.NextMatch {
 				return err
 			}
-			if len(*terms) == 0 {
+			if len(read) == 0 {
 				return expecting(lex, x)
 			}
 			return expecting(lex, moreTermsPart[1])
 		}
-		*terms = append(*terms, tm)
+		read = append(read, tm)
 		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreTermsPart[0]) {
 			return nil
 		}
@@ -95,8 +99,8 @@ func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
 // parseReactionStatement reads a Reaction.
 func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
-	first := *lex.Next() // "reaction"
-	out := &Reaction{Node: Node{Pos: first.Pos}}
+	lex.Next() // "reaction"
+	out := &Reaction{Node: startsAt(lex, start)}
 	st.Reaction = out
 	name := &Ident{}
 	if name.read(lex) != nil {
@@ -119,9 +123,13 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	}
 	if t := lex.Peek(); t.Type == Punct && isLit(t, comboPart[0]) {
 		lex.Next()
+		toks := lex.toks[lex.i:]
 		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
 			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
 			if c != nil {
+				if err != nil {
+					anchorParsed(reflect.ValueOf(c), toks)
+				}
 				out.Combo = c
 			}
 			return err

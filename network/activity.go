@@ -2,24 +2,43 @@ package network
 
 import (
 	"math/big"
+	"slices"
 	"strings"
 
 	"hess/thermo"
 )
 
 // A NetTerm is one species of a reaction with its net coefficient ν
-// (products positive), a species written on both sides counted once.
+// (products positive), a species written on both sides counted once. Nu
+// may be shared with other terms (small whole numbers are): never change it
+// in place.
 type NetTerm struct {
 	Species *Species
 	Nu      *big.Rat
+}
+
+// NuFloat is the net coefficient as a float64, without allocating where
+// it is a whole number that fits an int64.
+func (t NetTerm) NuFloat() float64 { return ratFloat(t.Nu) }
+
+// ratFloat is r as the nearest float64; whole numbers that fit an int64
+// are converted without allocating.
+func ratFloat(r *big.Rat) float64 {
+	if r.IsInt() && r.Num().IsInt64() {
+		return float64(r.Num().Int64())
+	}
+	f, _ := r.Float64()
+	return f
 }
 
 // NetTerms returns the reaction's species with non-zero net coefficients, in
 // the order they first appear (left side first). Undefined species are left
 // out.
 func (rx *Reaction) NetTerms() []NetTerm {
+	if out, ok := rx.smallNetTerms(); ok {
+		return out
+	}
 	var out []NetTerm
-	index := map[*Species]int{}
 	add := func(terms []Term, sign int) {
 		for _, t := range terms {
 			if t.Species == nil || t.Coef == nil {
@@ -29,11 +48,10 @@ func (rx *Reaction) NetTerms() []NetTerm {
 			if sign < 0 {
 				c.Neg(c)
 			}
-			if i, ok := index[t.Species]; ok {
+			if i := slices.IndexFunc(out, func(n NetTerm) bool { return n.Species == t.Species }); i >= 0 {
 				out[i].Nu.Add(out[i].Nu, c)
 				continue
 			}
-			index[t.Species] = len(out)
 			out = append(out, NetTerm{Species: t.Species, Nu: c})
 		}
 	}
@@ -46,6 +64,34 @@ func (rx *Reaction) NetTerms() []NetTerm {
 		}
 	}
 	return kept
+}
+
+// smallNetTerms is NetTerms where every coefficient is a small whole
+// number: the sums are taken in integers, and a net coefficient from
+// -maxSharedCoef to maxSharedCoef is a shared rational. ok is false when
+// some coefficient is not such a number.
+func (rx *Reaction) smallNetTerms() (out []NetTerm, ok bool) {
+	var buf [12]speciesCount
+	cs := buf[:0]
+	for side, terms := range [2][]Term{rx.Left, rx.Right} {
+		sign := int64(2*side - 1)
+		for _, t := range terms {
+			if t.Species == nil || t.Coef == nil {
+				continue
+			}
+			n, isInt := smallInt(t.Coef)
+			if !isInt {
+				return nil, false
+			}
+			cs = addSpeciesCount(cs, t.Species, sign*n)
+		}
+	}
+	for _, c := range cs {
+		if c.n != 0 {
+			out = append(out, NetTerm{Species: c.sp, Nu: sharedRat(c.n)})
+		}
+	}
+	return out, true
 }
 
 // QuotientActivity is the activity convention the species carries in an
@@ -61,14 +107,28 @@ func (sp *Species) QuotientActivity() thermo.Activity {
 
 // deltaGasMoles is Δn, the net change in moles of gas.
 func deltaGasMoles(terms []NetTerm) float64 {
+	var small int64 // the sum while every gas coefficient is a small whole number
+	exact := false
+	for _, t := range terms {
+		if t.Species.Activity() != thermo.ActivityGas {
+			continue
+		}
+		if n, ok := smallInt(t.Nu); ok && !exact {
+			small += n
+			continue
+		}
+		exact = true
+	}
+	if !exact {
+		return float64(small)
+	}
 	dn := new(big.Rat)
 	for _, t := range terms {
 		if t.Species.Activity() == thermo.ActivityGas {
 			dn.Add(dn, t.Nu)
 		}
 	}
-	f, _ := dn.Float64()
-	return f
+	return ratFloat(dn)
 }
 
 // EquationText writes the reaction's equation with canonical species names

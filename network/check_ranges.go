@@ -57,23 +57,13 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 		if len(sp.Ranges) < 2 {
 			continue
 		}
+		// The species' model is its ranges in sortedRanges order, built
+		// once for the network; it is nil when some range is unusable.
+		pw, ok := sp.Model().(*thermo.Piecewise)
+		if !ok {
+			continue
+		}
 		ranges := sortedRanges(sp.Ranges)
-		pieces := make([]thermo.Model, 0, len(ranges))
-		for _, r := range ranges {
-			m := r.model()
-			if m == nil {
-				pieces = nil
-				break
-			}
-			pieces = append(pieces, m)
-		}
-		if pieces == nil {
-			continue
-		}
-		pw, err := thermo.NewPiecewise(pieces...)
-		if err != nil {
-			continue
-		}
 		for _, j := range pw.Joins() {
 			if j.Kind != kind {
 				continue
@@ -90,7 +80,7 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 					"the ranges of %s overlap by %s, from %s to %s",
 					sp.Key, kelvin(-j.Gap), kelvin(j.UpperTmin), kelvin(j.LowerTmax))})
 			case thermo.JoinMeet:
-				if !jumps(j, pieces, p.Net.Settings.Tolerance) {
+				if !jumps(j, lower.model(), upper.model(), p.Net.Settings.Tolerance) {
 					continue
 				}
 				p.Report(lang.Diagnostic{Subject: upper.Header, Context: upper.Span, Related: related, Message: fmt.Sprintf(
@@ -103,7 +93,7 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 
 // jumps reports whether a join's steps exceed what range-discontinuity
 // allows: tol (J/mol) for H° and T·S°, cpJumpFraction of Cp° for Cp°.
-func jumps(j thermo.Join, pieces []thermo.Model, tol float64) bool {
-	cp := math.Max(math.Abs(pieces[j.Lower].Cp(j.T)), math.Abs(pieces[j.Upper].Cp(j.T)))
+func jumps(j thermo.Join, lower, upper thermo.Model, tol float64) bool {
+	cp := math.Max(math.Abs(lower.Cp(j.T)), math.Abs(upper.Cp(j.T)))
 	return math.Abs(j.DH) > tol || j.T*math.Abs(j.DS) > tol || math.Abs(j.DCp) > cpJumpFraction*cp
 }

@@ -142,10 +142,16 @@ func (c *compiler) lookup(ref string) *Species {
 // integers; coefs becomes nil at the first that is not.
 func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
-	ones := make([]big.Rat, len(terms)) // the default coefficients, one allocation
-	for i, t := range terms {
-		term := Term{Coef: ones[i].SetInt64(1), Span: t.Span()}
+	for _, t := range terms {
+		term := Term{Coef: sharedRat(1), Span: t.Span()}
+		n, small := int64(1), true
 		if t.Coef != nil {
+			n, small = smallCoef(t.Coef.Text)
+		}
+		switch {
+		case small:
+			term.Coef = sharedRat(n)
+		default:
 			q, err := parseRat(t.Coef.Text)
 			switch {
 			case err != nil:
@@ -157,9 +163,10 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 			default:
 				term.Coef = q
 			}
+			n, small = smallInt(term.Coef)
 		}
 		if *coefs != nil {
-			if n, ok := smallInt(term.Coef); ok {
+			if small {
 				*coefs = append(*coefs, n)
 			} else {
 				*coefs = nil
@@ -178,6 +185,45 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 		out = append(out, term)
 	}
 	return out, resolved
+}
+
+// sharedCoefs are the whole numbers -maxSharedCoef to maxSharedCoef as
+// exact rationals (sharedCoefs[maxSharedCoef+n] is n), shared by every
+// term and net term that has one of them: a Term's Coef and a NetTerm's Nu
+// are never changed in place.
+var sharedCoefs = func() []*big.Rat {
+	out := make([]*big.Rat, 2*maxSharedCoef+1)
+	for i := range out {
+		out[i] = big.NewRat(int64(i-maxSharedCoef), 1)
+	}
+	return out
+}()
+
+// sharedRat is n as an exact rational: a shared one where n is within
+// ±maxSharedCoef.
+func sharedRat(n int64) *big.Rat {
+	if n < -maxSharedCoef || n > maxSharedCoef {
+		return big.NewRat(n, 1)
+	}
+	return sharedCoefs[maxSharedCoef+n]
+}
+
+const maxSharedCoef = 99
+
+// smallCoef reads a coefficient written as a whole number from 1 to
+// maxSharedCoef in at most two digits, without allocating; ok is false
+// for anything else, which parseRat reads.
+func smallCoef(text string) (n int64, ok bool) {
+	if len(text) == 0 || len(text) > 2 {
+		return 0, false
+	}
+	for i := range len(text) {
+		if !('0' <= text[i] && text[i] <= '9') {
+			return 0, false
+		}
+		n = 10*n + int64(text[i]-'0')
+	}
+	return n, n > 0
 }
 
 func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {

@@ -100,7 +100,7 @@ func (m *Mixture) LnQuotient(rx *Reaction, p0 float64) (lnQ float64, lacking []*
 			lacking = append(lacking, t.Species)
 			continue
 		}
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		lnQ += nu * math.Log(a)
 	}
 	return lnQ, lacking

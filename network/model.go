@@ -180,6 +180,8 @@ type Species struct {
 }
 
 // Term is one species with its exact coefficient on one side of a reaction.
+// Coef may be shared with other terms (small whole numbers are): never
+// change it in place.
 type Term struct {
 	Coef    *big.Rat
 	Species *Species // nil when undefined

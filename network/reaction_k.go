@@ -94,6 +94,9 @@ type ReactionK struct {
 // ReactionK prepares the evaluation of rx, which must not be nil. An
 // unresolved reaction gives rows that are not Valid.
 func (n *Network) ReactionK(rx *Reaction) *ReactionK {
+	if len(rx.Combo) == 0 {
+		return n.calcWithin(rx, nil, nil) // no parts to expand
+	}
 	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*ReactionK{})
 }
 
@@ -116,11 +119,16 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		}
 		delete(path, rx)
 	}
-	memo[rx] = c
+	if memo != nil {
+		memo[rx] = c
+	}
 	c.dn = deltaGasMoles(c.terms)
 	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
+	c.coverage = make([][][2]float64, 0, len(c.terms))
+	c.abs.Terms = make([]thermo.Term, 0, len(c.terms))
+	c.form.Terms = make([]thermo.Term, 0, len(c.terms))
 	for _, t := range c.terms {
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		sp := t.Species
 		a := sp.QuotientActivity()
 		m := sp.Model()
@@ -286,7 +294,7 @@ func (c *ReactionK) fromFormation(T float64) point {
 			p.dh = math.NaN()
 			break
 		}
-		nu, _ := t.Nu.Float64()
+		nu := t.NuFloat()
 		p.dh += nu * t.Species.Hf.V
 	}
 	if !math.IsNaN(p.dh) {

@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"io"
 	"io/fs"
 	"os"
 	"path/filepath"
@@ -28,6 +29,15 @@ const maxLinkHops = 40
 // Errors name path as the user gave it, never the temporary file. On
 // failure the old file is left as it was.
 func writeFileAtomic(path string, data []byte) (err error) {
+	return writeFileAtomicStream(path, func(w io.Writer) error {
+		_, err := w.Write(data)
+		return err
+	})
+}
+
+// writeFileAtomicStream is writeFileAtomic of what write writes, as it
+// writes it: the target is replaced only once write has succeeded.
+func writeFileAtomicStream(path string, write func(io.Writer) error) (err error) {
 	fail := func(err error) error { return fmt.Errorf("cannot write %s: %w", path, err) }
 	target, err := linkTarget(path)
 	if err != nil {
@@ -70,7 +80,7 @@ func writeFileAtomic(path string, data []byte) (err error) {
 			os.Remove(tmp.Name())
 		}
 	}()
-	if _, err := tmp.Write(data); err != nil {
+	if err := write(tmp); err != nil {
 		return fail(unwrapPathError(err))
 	}
 	if err := tmp.Sync(); err != nil {
@@ -115,6 +125,14 @@ func linkTarget(path string) (string, error) {
 // writeFileAtomic, and refuses to when path is one of the network's own
 // source files.
 func writeOutput(path string, net *network.Network, data []byte) error {
+	return writeOutputStream(path, net, func(w io.Writer) error {
+		_, err := w.Write(data)
+		return err
+	})
+}
+
+// writeOutputStream is writeOutput of what write writes, as it writes it.
+func writeOutputStream(path string, net *network.Network, write func(io.Writer) error) error {
 	var sources []string
 	if net != nil {
 		for _, f := range net.Files {
@@ -124,7 +142,7 @@ func writeOutput(path string, net *network.Network, data []byte) error {
 	if src := sameFileAs(path, sources); src != "" {
 		return fmt.Errorf("cannot write %s: it is %s, a source file of the network", path, displayName(src))
 	}
-	return writeFileAtomic(path, data)
+	return writeFileAtomicStream(path, write)
 }
 
 // sameFileAs returns the first of files that is the same file as out

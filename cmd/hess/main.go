@@ -63,6 +63,17 @@ func tuneGC() {
 	}
 }
 
+// streamingGC is tuneGC for the part of a command that streams output
+// computed from a compiled network (a table): what it allocates is garbage
+// once written, so it collects at Go's default pace (GOGC 100), which keeps
+// the heap near the network's own size instead of letting garbage grow to
+// four times it. GOGC, when set, still decides.
+func streamingGC() {
+	if os.Getenv("GOGC") == "" {
+		debug.SetGCPercent(100)
+	}
+}
+
 func run(args []string, stdout, stderr io.Writer) int {
 	if len(args) == 0 {
 		usage(stderr)

@@ -138,10 +138,10 @@ func renderPlot(doc *tableDoc, format string, size plotSize) ([]byte, error) {
 	leg.Padding = vg.Points(2)
 	var marks plotter.XYs
 	drawn, extrapolated := 0, false
-	for i, t := range doc.Tables {
+	for i, t := range doc.tables() {
 		rx := t.Reaction
 		// The reaction's table, densely sampled.
-		dense := tableAt(doc, t, temps)
+		dense := tableAt(doc, t.Table, temps)
 		st := reactionStyle(i)
 		segs := segments(dense)
 		if len(segs) == 0 {

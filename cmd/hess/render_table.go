@@ -233,13 +233,11 @@ func kelvinText(T float64) string {
 	return strconv.FormatFloat(math.Round(T*100)/100, 'f', -1, 64) + " K"
 }
 
-// anyExtrapolated reports whether some row of the document is extrapolated.
-func anyExtrapolated(doc *tableDoc) bool {
-	for _, t := range doc.Tables {
-		for _, r := range t.Rows {
-			if r.Valid && r.Extrapolated {
-				return true
-			}
+// anyExtrapolated reports whether some row of the table is extrapolated.
+func anyExtrapolated(t *equilibrium.Table) bool {
+	for _, r := range t.Rows {
+		if r.Valid && r.Extrapolated {
+			return true
 		}
 	}
 	return false

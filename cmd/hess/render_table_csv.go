@@ -19,7 +19,7 @@ func renderTableCSV(w io.Writer, doc *tableDoc) error {
 	if err := cw.Write(header); err != nil {
 		return fmt.Errorf("writing CSV: %w", err)
 	}
-	for _, t := range doc.Tables {
+	err := doc.each(func(t tableEntry) error {
 		for _, r := range t.Rows {
 			rec := []string{t.Reaction.Name, csvNumber(r.T), csvNumber(r.DH / 1000), csvNumber(r.DS), csvNumber(r.DG / 1000),
 				csvNumber(r.K), csvNumber(r.Log10K), csvNumber(r.Kc), rational(t.DeltaGasMoles), csvNumber(r.SigmaLog10K),
@@ -28,6 +28,10 @@ func renderTableCSV(w io.Writer, doc *tableDoc) error {
 				return fmt.Errorf("writing CSV: %w", err)
 			}
 		}
+		return nil
+	})
+	if err != nil {
+		return err
 	}
 	cw.Flush()
 	if err := cw.Error(); err != nil {

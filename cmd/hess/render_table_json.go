@@ -13,7 +13,8 @@ import (
 	"hess/thermo"
 )
 
-// jsonTables is the document `table --format json` prints (CLI.md).
+// jsonTables is the document `table --format json` prints (CLI.md);
+// renderTableJSON writes it piece by piece.
 type jsonTables struct {
 	Network             string              `json:"network"`
 	StandardPressureBar jsonNumber          `json:"standardPressure_bar"`
@@ -93,27 +94,55 @@ func (n jsonNumber) MarshalJSON() ([]byte, error) {
 	return []byte(strconv.FormatFloat(round10(v), 'g', -1, 64)), nil
 }
 
-// renderTableJSON writes the tables as one indented JSON document.
+// renderTableJSON writes the tables as one indented JSON document, the
+// jsonTables value, streamed: the head first, then each reaction as its
+// table is computed, written as encoding/json would indent the whole.
 func renderTableJSON(w io.Writer, doc *tableDoc) error {
-	out := jsonTables{
-		Network:             doc.Network,
-		StandardPressureBar: jsonNumber(doc.Pressure / thermo.Bar),
-		Reactions:           make([]jsonReactionTable, 0, len(doc.Tables)),
-	}
-	for _, t := range doc.Tables {
-		jt := jsonTable(t)
-		jt.ReverseRate = jsonReverse(doc.Reverse[t.Reaction])
-		out.Reactions = append(out.Reactions, jt)
-	}
+	fail := func(err error) error { return fmt.Errorf("writing JSON table: %w", err) }
 	var buf bytes.Buffer
 	enc := json.NewEncoder(&buf)
 	enc.SetEscapeHTML(false)
-	enc.SetIndent("", "  ")
-	if err := enc.Encode(out); err != nil {
+	buf.WriteString("{\n  \"network\": ")
+	if err := enc.Encode(doc.Network); err != nil {
 		return fmt.Errorf("encoding JSON table: %w", err)
 	}
+	buf.Truncate(buf.Len() - 1) // Encode's newline
+	pressure, _ := jsonNumber(doc.Pressure / thermo.Bar).MarshalJSON()
+	buf.WriteString(",\n  \"standardPressure_bar\": ")
+	buf.Write(pressure)
+	buf.WriteString(",\n  \"reactions\": [")
+	// Each reaction is an element of the array at depth two.
+	enc.SetIndent("    ", "  ")
+	n := 0
+	err := doc.each(func(t tableEntry) error {
+		jt := jsonTable(t.Table)
+		jt.ReverseRate = jsonReverse(t.Reverse)
+		if n > 0 {
+			buf.WriteString(",")
+		}
+		n++
+		buf.WriteString("\n    ")
+		if err := enc.Encode(jt); err != nil {
+			return fmt.Errorf("encoding JSON table: %w", err)
+		}
+		buf.Truncate(buf.Len() - 1)
+		if buf.Len() >= 1<<16 {
+			if _, err := w.Write(buf.Bytes()); err != nil {
+				return fail(err)
+			}
+			buf.Reset()
+		}
+		return nil
+	})
+	if err != nil {
+		return err
+	}
+	if n > 0 {
+		buf.WriteString("\n  ")
+	}
+	buf.WriteString("]\n}\n")
 	if _, err := w.Write(buf.Bytes()); err != nil {
-		return fmt.Errorf("writing JSON table: %w", err)
+		return fail(err)
 	}
 	return nil
 }

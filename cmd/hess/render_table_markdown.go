@@ -12,16 +12,18 @@ import (
 func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 	var b strings.Builder
 	fmt.Fprintf(&b, "# Equilibrium constants of %s\n\nStandard pressure p° = %s.\n", mdEscape(doc.Network), pressureText(doc.Pressure))
-	for _, t := range doc.Tables {
+	extrapolated := false
+	err := doc.each(func(t tableEntry) error {
+		extrapolated = extrapolated || anyExtrapolated(t.Table)
 		fmt.Fprintf(&b, "\n## %s\n\n`%s`\n\n", mdEscape(t.Reaction.Name), t.Reaction.EquationText())
 		fmt.Fprintf(&b, "- %s = `%s`, Δn(gas) = %s\n", t.Kind, t.Quotient, rational(t.DeltaGasMoles))
-		for _, line := range summaryLines(t)[1:] {
+		for _, line := range summaryLines(t.Table)[1:] {
 			fmt.Fprintf(&b, "- %s\n", line)
 		}
-		if rr := doc.Reverse[t.Reaction]; rr != nil {
+		if rr := t.Reverse; rr != nil {
 			fmt.Fprintf(&b, "- %s\n", mdEscape(reverseRateLine(rr)))
 		}
-		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t))
+		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t.Table))
 		b.WriteString("\n|")
 		for _, c := range cols {
 			fmt.Fprintf(&b, " %s |", mdEscape(c.header))
@@ -41,8 +43,12 @@ func renderTableMarkdown(w io.Writer, doc *tableDoc) error {
 		if err := flushLarge(w, &b); err != nil {
 			return fmt.Errorf("writing Markdown table: %w", err)
 		}
+		return nil
+	})
+	if err != nil {
+		return err
 	}
-	if anyExtrapolated(doc) {
+	if extrapolated {
 		b.WriteString("\nRows marked extrapolated use some data outside their temperature range.\n")
 	}
 	if _, err := io.WriteString(w, b.String()); err != nil {

@@ -7,20 +7,18 @@ import (
 	"hess/network"
 )
 
-// reverseRates fits the reverse rate of every two-way step among rxs that
-// has a forward rate and no reverse rate, where K(T) is known at enough of
-// the temperatures; steps that cannot be fitted are left out.
-func reverseRates(net *network.Network, rxs []*network.Reaction, temps []float64) map[*network.Reaction]*network.ReverseRate {
-	out := map[*network.Reaction]*network.ReverseRate{}
-	for _, rx := range rxs {
-		if !rx.TwoWay || rx.Rate == nil || rx.Reverse != nil {
-			continue
-		}
-		if rr, err := net.FitReverseRate(rx, temps); err == nil {
-			out[rx] = rr
-		}
+// reverseRate fits the reverse rate of rx where it is a two-way step that
+// has a forward rate and no reverse rate, and K(T) is known at enough of
+// the temperatures; otherwise it is nil.
+func reverseRate(net *network.Network, rx *network.Reaction, temps []float64) *network.ReverseRate {
+	if !rx.TwoWay || rx.Rate == nil || rx.Reverse != nil {
+		return nil
 	}
-	return out
+	rr, err := net.FitReverseRate(rx, temps)
+	if err != nil {
+		return nil
+	}
+	return rr
 }
 
 // jsonReverseRate is the fitted reverse rate k = A·T^n·exp(−Ea/RT) of a

@@ -13,18 +13,20 @@ import (
 func renderTableText(w io.Writer, doc *tableDoc) error {
 	var b strings.Builder
 	fmt.Fprintf(&b, "%s: standard pressure p° = %s\n", doc.Network, pressureText(doc.Pressure))
-	if len(doc.Tables) == 0 {
+	if len(doc.reactions) == 0 {
 		b.WriteString("\nno reactions\n")
 	}
-	for _, t := range doc.Tables {
+	extrapolated := false
+	err := doc.each(func(t tableEntry) error {
+		extrapolated = extrapolated || anyExtrapolated(t.Table)
 		fmt.Fprintf(&b, "\n%s: %s\n", t.Reaction.Name, t.Reaction.EquationText())
-		for _, line := range summaryLines(t) {
+		for _, line := range summaryLines(t.Table) {
 			fmt.Fprintf(&b, "  %s\n", line)
 		}
-		if rr := doc.Reverse[t.Reaction]; rr != nil {
+		if rr := t.Reverse; rr != nil {
 			fmt.Fprintf(&b, "  %s\n", reverseRateLine(rr))
 		}
-		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t))
+		cols := tableColumns(kcHeader(t.DeltaGasMoles), hasSpeciesAlternative(t.Table))
 		cells := make([][]string, 0, len(t.Rows)+1)
 		head := make([]string, len(cols))
 		for i, c := range cols {
@@ -56,8 +58,12 @@ func renderTableText(w io.Writer, doc *tableDoc) error {
 		if err := flushLarge(w, &b); err != nil {
 			return fmt.Errorf("writing table: %w", err)
 		}
+		return nil
+	})
+	if err != nil {
+		return err
 	}
-	if anyExtrapolated(doc) {
+	if extrapolated {
 		b.WriteString("\nextrapolated: some data are used outside their temperature range\n")
 	}
 	if _, err := io.WriteString(w, b.String()); err != nil {

@@ -6,7 +6,10 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"hess/equilibrium"
 	"hess/lang"
@@ -50,43 +53,52 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 	if doc == nil {
 		return status
 	}
-	data, err := renderTableFormat(doc, format.value)
+	render, err := tableRenderer(format.value)
 	if err != nil {
 		fmt.Fprintf(stderr, "hess table: %v\n", err)
 		return exitTrouble
 	}
+	streamingGC()
+	// The table is written as it is computed, a batch of reactions at a
+	// time: to stdout directly, to -o through a temporary file that
+	// replaces the target once complete.
 	if *out != "" {
-		if err := writeOutput(*out, doc.net, data); err != nil {
-			fmt.Fprintf(stderr, "hess table: %v\n", err)
-			return exitTrouble
-		}
-		return exitOK
+		err = writeOutputStream(*out, doc.net, func(w io.Writer) error { return render(w, doc) })
+	} else {
+		err = render(stdout, doc)
 	}
-	if _, err := stdout.Write(data); err != nil {
+	if err != nil {
 		fmt.Fprintf(stderr, "hess table: %v\n", err)
 		return exitTrouble
 	}
 	return exitOK
 }
 
-// renderTableFormat renders the document in one of the table formats:
-// "text", "csv", "json" or "markdown".
-func renderTableFormat(doc *tableDoc, format string) ([]byte, error) {
-	var buf bytes.Buffer
-	var err error
+// tableRenderer is the renderer of one of the table formats: "text",
+// "csv", "json" or "markdown".
+func tableRenderer(format string) (func(io.Writer, *tableDoc) error, error) {
 	switch format {
 	case "text":
-		err = renderTableText(&buf, doc)
+		return renderTableText, nil
 	case "csv":
-		err = renderTableCSV(&buf, doc)
+		return renderTableCSV, nil
 	case "json":
-		err = renderTableJSON(&buf, doc)
+		return renderTableJSON, nil
 	case "markdown":
-		err = renderTableMarkdown(&buf, doc)
-	default:
-		err = fmt.Errorf("unknown table format %q", format)
+		return renderTableMarkdown, nil
 	}
+	return nil, fmt.Errorf("unknown table format %q", format)
+}
+
+// renderTableFormat renders the whole document into memory in one of the
+// table formats.
+func renderTableFormat(doc *tableDoc, format string) ([]byte, error) {
+	render, err := tableRenderer(format)
 	if err != nil {
+		return nil, err
+	}
+	var buf bytes.Buffer
+	if err := render(&buf, doc); err != nil {
 		return nil, err
 	}
 	return buf.Bytes(), nil
@@ -106,17 +118,75 @@ func (l *nameList) Set(s string) error {
 }
 
 // tableDoc is what the table renderers print: one network's reaction
-// tables at one list of temperatures.
+// tables at one list of temperatures. The tables are not held: each
+// computes them in order as the renderer asks for them.
 type tableDoc struct {
 	Network  string  // display name of the root file
 	Pressure float64 // standard pressure p°, Pa
 	Temps    []float64
-	Tables   []*equilibrium.Table
-	// Reverse holds the fitted reverse rates of the two-way steps that have
-	// only a forward rate (see reverseRates).
-	Reverse map[*network.Reaction]*network.ReverseRate
 
-	net *network.Network // the compiled network, for plots that sample more temperatures
+	reactions []*network.Reaction // the reactions tabulated, in order
+	// fitReverse asks for the fitted reverse rates of the two-way steps
+	// that have only a forward rate (see reverseRate).
+	fitReverse bool
+	net        *network.Network // the compiled network, for plots that sample more temperatures
+}
+
+// tableEntry is one reaction's table and, where one was fitted, its
+// reverse rate.
+type tableEntry struct {
+	*equilibrium.Table
+	Reverse *network.ReverseRate
+}
+
+// tableBatch is how many reactions' tables are computed at once (on every
+// processor) before they are handed on in order: what a streamed table
+// holds in memory beyond the network.
+const tableBatch = 128
+
+// each computes the document's tables in order and hands each to fn as
+// soon as its batch is ready; it stops at fn's first error and returns it.
+func (doc *tableDoc) each(fn func(tableEntry) error) error {
+	batch := make([]tableEntry, 0, tableBatch)
+	workers := max(1, runtime.GOMAXPROCS(0))
+	for start := 0; start < len(doc.reactions); start += tableBatch {
+		rxs := doc.reactions[start:min(start+tableBatch, len(doc.reactions))]
+		batch = batch[:len(rxs)]
+		var next atomic.Int64
+		var wg sync.WaitGroup
+		for range min(workers, len(rxs)) {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				for i := int(next.Add(1)) - 1; i < len(rxs); i = int(next.Add(1)) - 1 {
+					e := tableEntry{Table: equilibrium.ReactionTable(doc.net, rxs[i], doc.Temps)}
+					if doc.fitReverse {
+						e.Reverse = reverseRate(doc.net, rxs[i], doc.Temps)
+					}
+					batch[i] = e
+				}
+			}()
+		}
+		wg.Wait()
+		for i := range batch {
+			if err := fn(batch[i]); err != nil {
+				return err
+			}
+			batch[i] = tableEntry{}
+		}
+	}
+	return nil
+}
+
+// tables computes all of the document's tables, for a renderer that needs
+// them at once (a plot).
+func (doc *tableDoc) tables() []tableEntry {
+	out := make([]tableEntry, 0, len(doc.reactions))
+	doc.each(func(e tableEntry) error { // fn never fails
+		out = append(out, e)
+		return nil
+	})
+	return out
 }
 
 // tabulate compiles root, reports its diagnostics on stderr and computes the
@@ -156,9 +226,10 @@ func tabulate(cmd, root, tempText string, names, includes []string, stderr io.Wr
 	return doc, exitOK
 }
 
-// newTableDoc computes the tables of a compiled network's named reactions
+// newTableDoc is the document of the tables of a compiled network's named reactions
 // (every reaction when names is empty) at temps. root is the network's root
-// file as given; an unknown name is an error.
+// file as given; an unknown name is an error. The tables are computed as
+// the document is rendered.
 func newTableDoc(net *network.Network, root string, temps []float64, names []string) (*tableDoc, error) {
 	var rxs []*network.Reaction
 	if len(names) == 0 {
@@ -183,12 +254,8 @@ func newTableDoc(net *network.Network, root string, temps []float64, names []str
 			rxs = append(rxs, rx)
 		}
 	}
-	doc := &tableDoc{Network: displayName(root), Pressure: net.Settings.Pressure, Temps: temps, net: net}
-	for _, rx := range rxs {
-		doc.Tables = append(doc.Tables, equilibrium.ReactionTable(net, rx, temps))
-	}
-	doc.Reverse = reverseRates(net, rxs, temps)
-	return doc, nil
+	return &tableDoc{Network: displayName(root), Pressure: net.Settings.Pressure, Temps: temps,
+		reactions: rxs, fitReverse: true, net: net}, nil
 }
 
 // compileRoot loads one root file. It returns nil and exit status 2 (having

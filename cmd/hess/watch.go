@@ -16,7 +16,6 @@ import (
 
 	"github.com/fsnotify/fsnotify"
 
-	"hess/equilibrium"
 	"hess/lang"
 	"hess/network"
 )
@@ -264,15 +263,12 @@ func (w *watcher) rebuild(why string) {
 // temperatures and replaces the table file atomically.
 func (w *watcher) writeTable(net *network.Network) error {
 	temps := net.Settings.Temperatures
-	doc := &tableDoc{Network: displayName(net.Root), Pressure: net.Settings.Pressure, Temps: temps, net: net}
-	for _, rx := range net.Reactions {
-		doc.Tables = append(doc.Tables, equilibrium.ReactionTable(net, rx, temps))
-	}
-	data, err := renderTableFormat(doc, w.opts.format)
+	doc := &tableDoc{Network: displayName(net.Root), Pressure: net.Settings.Pressure, Temps: temps, reactions: net.Reactions, net: net}
+	render, err := tableRenderer(w.opts.format)
 	if err != nil {
 		return fmt.Errorf("rendering the table: %w", err)
 	}
-	return writeOutput(w.opts.table, net, data)
+	return writeOutputStream(w.opts.table, net, func(out io.Writer) error { return render(out, doc) })
 }
 
 // mergedReport is one report of several networks: every file once, every
