@@ -15,6 +15,8 @@ const (
 	maxGammaLoops  = 200
 )
 
+// kind is how a species enters G: in a mixture phase, as a pure phase, or
+// held at a fixed potential.
 type kind uint8
 
 const (
