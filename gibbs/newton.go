@@ -100,11 +100,7 @@ func (sv *solver) unknowns() newtonStep {
 			st.phaseIdx = append(st.phaseIdx, k)
 		}
 	}
-	for j := 0; j < sv.s; j++ {
-		if (sv.kind[j] == kPure || sv.kind[j] == kFixed) && sv.active[j] && !sv.zero[j] {
-			st.pureIdx = append(st.pureIdx, j)
-		}
-	}
+	st.pureIdx = sv.pureSet()
 	return st
 }
 
