@@ -71,9 +71,24 @@ func shortRat(v float64) (*big.Rat, bool) {
 	return q, ok
 }
 
+// exactLeftNull is the left null space of N by elimination in big.Rat:
+// Nᵀ read as short decimals, brought to reduced row echelon form, and one
+// integer row with no common factor read off per free column. ok is false
+// when an entry is not a short decimal.
 func exactLeftNull(N *mat.Dense) (*mat.Dense, bool) {
+	s, _ := N.Dims()
+	a, ok := ratTranspose(N)
+	if !ok {
+		return nil, false
+	}
+	pivots := ratEchelon(a, s)
+	return ratNullRows(a, pivots, s), true
+}
+
+// ratTranspose is A = Nᵀ (r × s) in rationals; null(A) is the left null
+// space of N.
+func ratTranspose(N *mat.Dense) ([][]*big.Rat, bool) {
 	s, r := N.Dims()
-	// A = Nᵀ (r × s); null(A) = left null space of N.
 	a := make([][]*big.Rat, r)
 	for i := range a {
 		a[i] = make([]*big.Rat, s)
@@ -85,6 +100,13 @@ func exactLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 			a[i][j] = q
 		}
 	}
+	return a, true
+}
+
+// ratEchelon brings a (rows × s) to reduced row echelon form (pivots 1)
+// and returns the pivot columns in order.
+func ratEchelon(a [][]*big.Rat, s int) []int {
+	r := len(a)
 	pivots := make([]int, 0, min(r, s))
 	row := 0
 	tmp := new(big.Rat)
@@ -119,6 +141,13 @@ func exactLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 		pivots = append(pivots, col)
 		row++
 	}
+	return pivots
+}
+
+// ratNullRows reads one null-space vector per free column off the echelon
+// form (x_f = 1, x_p = −a_pf) and stores it as integers with no common
+// factor.
+func ratNullRows(a [][]*big.Rat, pivots []int, s int) *mat.Dense {
 	isPivot := make([]bool, s)
 	for _, c := range pivots {
 		isPivot[c] = true
@@ -128,7 +157,7 @@ func exactLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 	if free == 0 {
 		// Every species can change freely: nothing is conserved. One zero row
 		// keeps the shape valid; the solver drops it.
-		return B, true
+		return B
 	}
 	k := 0
 	vec := make([]*big.Rat, s)
@@ -143,40 +172,50 @@ func exactLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 		for pi, c := range pivots {
 			vec[c].Neg(a[pi][f])
 		}
-		// Scale to integers with no common factor.
-		l := big.NewInt(1)
-		g := new(big.Int)
-		for _, q := range vec {
-			d := q.Denom()
-			g.GCD(nil, nil, l, d)
-			l.Div(l.Mul(l, d), g)
-		}
-		ints := make([]*big.Int, s)
-		var h *big.Int
-		for j, q := range vec {
-			v := new(big.Int).Mul(q.Num(), l)
-			v.Div(v, q.Denom())
-			ints[j] = v
-			if v.Sign() != 0 {
-				if h == nil {
-					h = new(big.Int).Abs(v)
-				} else {
-					h.GCD(nil, nil, h, new(big.Int).Abs(v))
-				}
-			}
-		}
-		for j, v := range ints {
-			if h != nil && h.Sign() != 0 {
-				v.Div(v, h)
-			}
+		for j, v := range integerRow(vec) {
 			x, _ := new(big.Float).SetInt(v).Float64()
 			B.Set(k, j, x)
 		}
 		k++
 	}
-	return B, true
+	return B
 }
 
+// integerRow scales a rational vector to integers with no common factor:
+// by the lcm of the denominators, then down by the gcd of the numerators.
+func integerRow(vec []*big.Rat) []*big.Int {
+	l := big.NewInt(1)
+	g := new(big.Int)
+	for _, q := range vec {
+		d := q.Denom()
+		g.GCD(nil, nil, l, d)
+		l.Div(l.Mul(l, d), g)
+	}
+	ints := make([]*big.Int, len(vec))
+	var h *big.Int
+	for j, q := range vec {
+		v := new(big.Int).Mul(q.Num(), l)
+		v.Div(v, q.Denom())
+		ints[j] = v
+		if v.Sign() != 0 {
+			if h == nil {
+				h = new(big.Int).Abs(v)
+			} else {
+				h.GCD(nil, nil, h, new(big.Int).Abs(v))
+			}
+		}
+	}
+	for _, v := range ints {
+		if h != nil && h.Sign() != 0 {
+			v.Div(v, h)
+		}
+	}
+	return ints
+}
+
+// svdLeftNull is the left null space of N from its full singular value
+// decomposition: the left singular vectors beyond the numerical rank, as
+// orthonormal rows.
 func svdLeftNull(N *mat.Dense) (*mat.Dense, error) {
 	s, r := N.Dims()
 	var svd mat.SVD

@@ -17,6 +17,22 @@ const intLimit = 1 << 30
 // not a short decimal or a number outgrows intLimit; the caller then
 // eliminates in big.Rat.
 func intLeftNull(N *mat.Dense) (*mat.Dense, bool) {
+	s, _ := N.Dims()
+	a, ok := intTranspose(N)
+	if !ok {
+		return nil, false
+	}
+	pivots, ok := intEchelon(a, s)
+	if !ok {
+		return nil, false
+	}
+	return intNullRows(a, pivots, s)
+}
+
+// intTranspose is Nᵀ (reactions × species) with each reaction scaled by the
+// least power of ten (up to 1e6) that makes it integral, divided by its gcd;
+// ok is false when no such power exists or an entry reaches intLimit.
+func intTranspose(N *mat.Dense) ([][]int64, bool) {
 	s, r := N.Dims()
 	a := make([][]int64, r)
 	for i := range a {
@@ -43,7 +59,16 @@ func intLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 		}
 		reduceRow(a[i])
 	}
-	pivots := make([]int, 0, min(r, s))
+	return a, true
+}
+
+// intEchelon brings a (rows × s) to reduced row echelon form without
+// fractions: each pivot row is subtracted from the others cross-multiplied,
+// and every row is kept divided by its gcd. It returns the pivot columns in
+// order; ok is false when an operand reaches intLimit.
+func intEchelon(a [][]int64, s int) (pivots []int, ok bool) {
+	r := len(a)
+	pivots = make([]int, 0, min(r, s))
 	row := 0
 	for col := 0; col < s && row < r; col++ {
 		p := -1
@@ -79,6 +104,13 @@ func intLeftNull(N *mat.Dense) (*mat.Dense, bool) {
 		pivots = append(pivots, col)
 		row++
 	}
+	return pivots, true
+}
+
+// intNullRows reads the null-space vectors off the echelon form, one per
+// free column, as integer rows with no common factor. With no free column
+// nothing is conserved: one zero row keeps the shape valid.
+func intNullRows(a [][]int64, pivots []int, s int) (*mat.Dense, bool) {
 	isPivot := make([]bool, s)
 	for _, c := range pivots {
 		isPivot[c] = true

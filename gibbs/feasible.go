@@ -21,22 +21,7 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 	s := len(n0)
 	zero = make([]bool, s)
 	point = make([]float64, s)
-	possible := make([]bool, s)
-	total := 0.0
-	undetermined := 0
-	for j := range n0 {
-		if fixed[j] {
-			possible[j] = true
-			continue
-		}
-		point[j] = n0[j]
-		total += n0[j]
-		if n0[j] > 0 {
-			possible[j] = true
-		} else {
-			undetermined++
-		}
-	}
+	possible, undetermined, total := feedPossible(n0, fixed, point)
 	span := newSpan(B, rows)
 	for j := range n0 {
 		if possible[j] {
@@ -50,14 +35,63 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 	if total <= 0 {
 		total = 1
 	}
-	var nonFixed, fixedIdx []int
+	lpp := newReachLP(B, rows, b, fixed, total)
+	found, ok := lpp.rounds(possible, point, span, fixed, total)
+	if !ok {
+		return make([]bool, s), point, false
+	}
+	for _, j := range lpp.nonFixed {
+		point[j] /= found
+		zero[j] = !possible[j]
+	}
+	for _, j := range lpp.fixedIdx {
+		point[j] = 0
+	}
+	return zero, point, true
+}
+
+// feedPossible marks the species the feed holds (and the fixed ones) able
+// to be positive and copies the feed into point; it returns the marks, how
+// many non-fixed species remain undetermined, and the feed's total.
+func feedPossible(n0 []float64, fixed []bool, point []float64) (possible []bool, undetermined int, total float64) {
+	possible = make([]bool, len(n0))
 	for j := range n0 {
 		if fixed[j] {
-			fixedIdx = append(fixedIdx, j)
+			possible[j] = true
+			continue
+		}
+		point[j] = n0[j]
+		total += n0[j]
+		if n0[j] > 0 {
+			possible[j] = true
 		} else {
-			nonFixed = append(nonFixed, j)
+			undetermined++
 		}
 	}
+	return possible, undetermined, total
+}
+
+// reachLP is the linear programme of forcedZero in gonum's standard form
+// (A x = b, x ≥ 0): a column per non-fixed species, two per fixed species
+// (its positive and negative parts), and a slack for Σ n ≤ K.
+type reachLP struct {
+	A                  *mat.Dense
+	b                  []float64
+	nonFixed, fixedIdx []int
+}
+
+// newReachLP sets up the programme's constraints: the kept rows of B·n = b
+// and Σ n + slack = 1e6 times the feed.
+func newReachLP(B *mat.Dense, rows []int, b []float64, fixed []bool, total float64) *reachLP {
+	lpp := &reachLP{}
+	for j := range fixed {
+		if fixed[j] {
+			lpp.fixedIdx = append(lpp.fixedIdx, j)
+		} else {
+			lpp.nonFixed = append(lpp.nonFixed, j)
+		}
+	}
+	nonFixed, fixedIdx := lpp.nonFixed, lpp.fixedIdx
 	m := len(rows)
 	cols := len(nonFixed) + 2*len(fixedIdx) + 1
 	A := mat.NewDense(m+1, cols, nil)
@@ -77,12 +111,23 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 	}
 	A.Set(m, cols-1, 1)
 	bb[m] = 1e6 * total
+	lpp.A, lpp.b = A, bb
+	return lpp
+}
+
+// rounds maximises, round by round, the sum of the species not yet known
+// able to be positive; those positive at the optimum are marked (with the
+// span's closure), and each vertex is added into point. It returns how many
+// points were summed (the feed and the vertices), and false when the
+// simplex fails or its optimum is too spread to trust.
+func (lpp *reachLP) rounds(possible []bool, point []float64, span *colSpan, fixed []bool, total float64) (found float64, ok bool) {
+	_, cols := lpp.A.Dims()
 	c := make([]float64, cols)
-	found := 1.0
+	found = 1.0
 	thr := 1e-9 * total
-	for rounds := 0; rounds <= s; rounds++ {
+	for rounds := 0; rounds <= len(possible); rounds++ {
 		any := false
-		for k, j := range nonFixed {
+		for k, j := range lpp.nonFixed {
 			c[k] = 0
 			if !possible[j] {
 				c[k] = -1
@@ -92,15 +137,15 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 		if !any {
 			break
 		}
-		f, x, err := lp.Simplex(c, A, bb, 1e-12, nil)
+		f, x, err := lp.Simplex(c, lpp.A, lpp.b, 1e-12, nil)
 		if err != nil {
-			return make([]bool, s), point, false
+			return found, false
 		}
 		if -f <= thr {
 			break
 		}
 		marked := false
-		for k, j := range nonFixed {
+		for k, j := range lpp.nonFixed {
 			if !possible[j] && x[k] > thr {
 				possible[j] = true
 				marked = true
@@ -115,17 +160,10 @@ func forcedZero(B *mat.Dense, rows []int, b []float64, n0 []float64, fixed []boo
 		if !marked {
 			// The optimum is positive but spread below the threshold on
 			// every species: numerically unreliable, mark nothing zero.
-			return make([]bool, s), point, false
+			return found, false
 		}
 	}
-	for _, j := range nonFixed {
-		point[j] /= found
-		zero[j] = !possible[j]
-	}
-	for _, j := range fixedIdx {
-		point[j] = 0
-	}
-	return zero, point, true
+	return found, true
 }
 
 // colSpan is an orthonormal basis (Gram–Schmidt) of the span of some columns

@@ -149,20 +149,31 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 	if r == nil {
 		r = &report{}
 	}
-	rootURI := folderURI(root)
-	artifactLocation := func(file string) sarifArtifactLocation { return artifactLocationIn(root, file) }
+	rules, ruleIndex := sarifRules(checks)
+	arts := &sarifArtifacts{root: root, list: []sarifArtifact{}, index: map[string]int{}}
+	for _, f := range r.Files {
+		arts.add(f)
+	}
 	run := sarifRun{
 		Tool: sarifTool{Driver: sarifDriver{
 			Name:    "hess",
 			Version: toolVersion,
-			Rules:   []sarifRule{},
+			Rules:   rules,
 		}},
-		OriginalURIBaseIDs: map[string]sarifArtifactLocation{sarifRoot: {URI: rootURI}},
-		Artifacts:          []sarifArtifact{},
+		OriginalURIBaseIDs: map[string]sarifArtifactLocation{sarifRoot: {URI: folderURI(root)}},
 		ColumnKind:         "unicodeCodePoints",
-		Results:            make([]sarifResult, 0, len(r.Diagnostics)),
+		Results:            sarifResults(r, ruleIndex, arts),
+		Invocations:        []sarifInvocation{sarifInvocationOf(r.Trouble, root)},
 	}
+	run.Artifacts = arts.list
+	doc := sarifLog{Schema: sarifSchema, Version: sarifVersion, Runs: []sarifRun{run}}
+	return writeIndentedJSON(w, doc, "SARIF log")
+}
 
+// sarifRules makes a rule of every check, in order (a nil check and a
+// repeated name are skipped), and returns each rule's index by name.
+func sarifRules(checks []*network.Check) ([]sarifRule, map[string]int) {
+	rules := []sarifRule{}
 	ruleIndex := map[string]int{}
 	for _, c := range checks {
 		if c == nil {
@@ -171,7 +182,7 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 		if _, dup := ruleIndex[c.Name]; dup {
 			continue
 		}
-		ruleIndex[c.Name] = len(run.Tool.Driver.Rules)
+		ruleIndex[c.Name] = len(rules)
 		rule := sarifRule{
 			ID:                   c.Name,
 			DefaultConfiguration: sarifConfiguration{Level: sarifLevel(c.Severity)},
@@ -183,33 +194,47 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 			rule.FullDescription = &sarifMessage{Text: clipSentences(e, maxDescription)}
 		}
 		rule.Help = sarifRuleHelp(c)
-		run.Tool.Driver.Rules = append(run.Tool.Driver.Rules, rule)
+		rules = append(rules, rule)
 	}
+	return rules, ruleIndex
+}
 
-	artifactIndex := map[string]int{}
-	addArtifact := func(file string) int {
-		if i, ok := artifactIndex[file]; ok {
-			return i
-		}
-		i := len(run.Artifacts)
-		artifactIndex[file] = i
-		loc := artifactLocation(file)
-		run.Artifacts = append(run.Artifacts, sarifArtifact{Location: loc})
+// sarifArtifacts is the run's artifact list, each file once, in the order
+// first met.
+type sarifArtifacts struct {
+	root  string // the SRCROOT folder
+	list  []sarifArtifact
+	index map[string]int
+}
+
+// add lists file if it is new and returns its index.
+func (a *sarifArtifacts) add(file string) int {
+	if i, ok := a.index[file]; ok {
 		return i
 	}
-	for _, f := range r.Files {
-		addArtifact(f)
-	}
-	physical := func(s lang.Span) *sarifPhysicalLocation {
-		if s.File == "" {
-			return nil
-		}
-		loc := artifactLocation(s.File)
-		i := addArtifact(s.File)
-		loc.Index = &i
-		return &sarifPhysicalLocation{ArtifactLocation: loc, Region: sarifRegionOf(s)}
-	}
+	i := len(a.list)
+	a.index[file] = i
+	a.list = append(a.list, sarifArtifact{Location: artifactLocationIn(a.root, file)})
+	return i
+}
 
+// physical is the location of s with its artifact's index and region, or
+// nil when s names no file.
+func (a *sarifArtifacts) physical(s lang.Span) *sarifPhysicalLocation {
+	if s.File == "" {
+		return nil
+	}
+	loc := artifactLocationIn(a.root, s.File)
+	i := a.add(s.File)
+	loc.Index = &i
+	return &sarifPhysicalLocation{ArtifactLocation: loc, Region: sarifRegionOf(s)}
+}
+
+// sarifResults makes a result of every diagnostic: its rule (with the
+// index where the rule is known), level and message, its location with a
+// line-hash fingerprint counted per file and hash, and its related spans.
+func sarifResults(r *report, ruleIndex map[string]int, arts *sarifArtifacts) []sarifResult {
+	results := make([]sarifResult, 0, len(r.Diagnostics))
 	src := newSourceLines(r.Source)
 	seen := map[string]int{} // file and line hash → occurrences so far
 	for _, d := range r.Diagnostics {
@@ -221,7 +246,7 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 		if i, ok := ruleIndex[string(d.Code)]; ok {
 			res.RuleIndex = &i
 		}
-		if pl := physical(d.Subject); pl != nil {
+		if pl := arts.physical(d.Subject); pl != nil {
 			res.Locations = []sarifLocation{{PhysicalLocation: pl}}
 			h := lineHash(d, src)
 			key := d.Subject.File + "\x00" + h
@@ -229,26 +254,29 @@ func writeSARIF(w io.Writer, r *report, checks []*network.Check, toolVersion, ro
 			res.PartialFingerprints = map[string]string{lineHashKey: h + ":" + strconv.Itoa(seen[key])}
 		}
 		for i, rel := range d.Related {
-			loc := sarifLocation{ID: i + 1, PhysicalLocation: physical(rel.Span)}
+			loc := sarifLocation{ID: i + 1, PhysicalLocation: arts.physical(rel.Span)}
 			if rel.Message != "" {
 				loc.Message = &sarifMessage{Text: rel.Message}
 			}
 			res.RelatedLocations = append(res.RelatedLocations, loc)
 		}
-		run.Results = append(run.Results, res)
+		results = append(results, res)
 	}
+	return results
+}
 
-	run.Invocations = []sarifInvocation{{ExecutionSuccessful: len(r.Trouble) == 0}}
-	for _, tr := range r.Trouble {
+// sarifInvocationOf is the run's invocation: successful unless an input
+// could not be read, each such input an error notification.
+func sarifInvocationOf(trouble []inputTrouble, root string) sarifInvocation {
+	inv := sarifInvocation{ExecutionSuccessful: len(trouble) == 0}
+	for _, tr := range trouble {
 		n := sarifNotification{Level: "error", Message: sarifMessage{Text: tr.Message}}
 		if tr.File != "" {
-			n.Locations = []sarifLocation{{PhysicalLocation: &sarifPhysicalLocation{ArtifactLocation: artifactLocation(tr.File)}}}
+			n.Locations = []sarifLocation{{PhysicalLocation: &sarifPhysicalLocation{ArtifactLocation: artifactLocationIn(root, tr.File)}}}
 		}
-		run.Invocations[0].ToolExecutionNotifications = append(run.Invocations[0].ToolExecutionNotifications, n)
+		inv.ToolExecutionNotifications = append(inv.ToolExecutionNotifications, n)
 	}
-
-	doc := sarifLog{Schema: sarifSchema, Version: sarifVersion, Runs: []sarifRun{run}}
-	return writeIndentedJSON(w, doc, "SARIF log")
+	return inv
 }
 
 // maxDescription is the longest rule description code-scanning services
