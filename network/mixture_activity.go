@@ -54,7 +54,7 @@ func (m *Mixture) TotalPressure() float64 {
 // solute, the mole fraction for a solution member and 1 for a pure phase.
 // It is NaN when the member's amount is unusable.
 func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
-	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) {
+	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) || m.mixesMoles() {
 		return math.NaN()
 	}
 	switch mm.Kind {
@@ -73,6 +73,8 @@ func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
 		return mm.Amount.V
 	case AmountPresent:
 		return 1
+	case AmountMoles:
+		return m.moleActivity(mm, p0)
 	}
 	return math.NaN()
 }
