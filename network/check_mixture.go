@@ -82,8 +82,8 @@ the mixture does not list is left out of that mixture's approach to
 equilibrium; the message names the species it lacks.`,
 	Run: func(p *Pass) {
 		for _, m := range p.Net.Mixtures {
-			if !m.Usable() {
-				continue
+			if !m.Usable() || m.GivesAmounts() {
+				continue // a feed is for hess equilibrium, not for quotients
 			}
 			var parts []string
 			for _, rx := range p.Net.Reactions {

@@ -169,3 +169,32 @@ func (m *Mixture) mixesMoles() bool {
 	moles, others := m.hasMoles()
 	return moles > 0 && others > 0
 }
+
+// DataAt reports whether the species' own data hold at T, without
+// extrapolation: what a feed member, and every species of an equilibrium
+// calculation on the elements, needs.
+func (s *Species) DataAt(T float64) bool {
+	m := s.Model()
+	return m != nil && covers(m, T)
+}
+
+// DataSpan is the lowest and highest temperature where the species' data
+// hold (they may have gaps between); ok is false without a model.
+func (s *Species) DataSpan() (lo, hi float64, ok bool) {
+	spans := coverage(s.Model())
+	if len(spans) == 0 {
+		return 0, 0, false
+	}
+	lo, hi = math.Inf(1), math.Inf(-1)
+	for _, sp := range spans {
+		lo, hi = math.Min(lo, sp[0]), math.Max(hi, sp[1])
+	}
+	return lo, hi, true
+}
+
+// GivesAmounts reports whether the mixture gives its members as amounts (a
+// feed in mol), rather than as fractions, pressures or molalities.
+func (m *Mixture) GivesAmounts() bool {
+	moles, _ := m.hasMoles()
+	return moles > 0
+}

@@ -1,0 +1,83 @@
+package main
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+
+	"hess/equilibrium"
+)
+
+// equilibriumCaution ends the text and Markdown results.
+const equilibriumCaution = "Caution: estimates from the data given; check them against local codes and licensed engineering practice before relying on them."
+
+// amountText writes an amount, a mole fraction or an activity: six
+// decimals, trace values (below 1e-4) in scientific notation, 0 as 0.
+func amountText(v float64) string {
+	switch {
+	case !finite(v):
+		return missingCell
+	case v == 0:
+		return "0"
+	case math.Abs(v) < 1e-4:
+		return strconv.FormatFloat(v, 'e', 4, 64)
+	case math.Abs(v) >= 1e7:
+		return strconv.FormatFloat(v, 'e', 6, 64)
+	}
+	return strconv.FormatFloat(v, 'f', 6, 64)
+}
+
+// resultHeading names a result: mixture, temperature and pressure.
+func resultHeading(c *equilibrium.Composition) string {
+	s := fmt.Sprintf("%s at %s, %s", c.Mixture.Name, kelvinText(c.T), pressureText(c.P))
+	if c.Adiabatic {
+		s += " (adiabatic)"
+	}
+	return s
+}
+
+// resultSummary is the lines under a result's heading.
+func resultSummary(c *equilibrium.Composition) []string {
+	conv := fmt.Sprintf("converged in %d iterations", c.Iterations)
+	if !c.Converged {
+		conv = fmt.Sprintf("NOT CONVERGED after %d iterations: these numbers are no equilibrium", c.Iterations)
+	}
+	lines := []string{
+		fmt.Sprintf("basis: %s; %s; element residual %.3g, stationarity %.3g", c.Basis, conv, c.ElementResidual, c.Stationarity),
+		fmt.Sprintf("feed: %s mol at %s", amountText(c.FeedMoles), kelvinText(c.FeedT)),
+	}
+	if finite(c.Heat) {
+		lines = append(lines, fmt.Sprintf("heat to bring the feed to the products at %s: %s kJ (%s kJ per mol of feed)",
+			kelvinText(c.T), fixed(c.Heat/1000, 3), fixed(c.HeatPerMolFeed()/1000, 3)))
+	} else {
+		lines = append(lines, "heat: unknown: "+c.HeatNote)
+	}
+	if c.AdjustedMu {
+		lines = append(lines, "some standard chemical potentials were fitted to the reactions' own ΔrG° (see docs/commands.md)")
+	}
+	return lines
+}
+
+// presentText is "present" or "absent".
+func presentText(p bool) string {
+	if p {
+		return "present"
+	}
+	return "absent"
+}
+
+// reactionText is log10(Q/K) or why it is missing.
+func reactionText(r equilibrium.ReactionBalance) string {
+	if finite(r.Log10QoverK) {
+		return strconv.FormatFloat(r.Log10QoverK, 'e', 2, 64)
+	}
+	return "n/a (a species is absent or ΔrG° unknown)"
+}
+
+// molalityText is a solute's molality, blank otherwise.
+func molalityText(v float64) string {
+	if !finite(v) {
+		return ""
+	}
+	return amountText(v)
+}

@@ -1,0 +1,130 @@
+package equilibrium
+
+import (
+	"fmt"
+	"math"
+
+	"hess/lang"
+	"hess/network"
+	"hess/thermo"
+)
+
+// adiabatic finds the temperature at which the feed's equilibrium products
+// have the feed's enthalpy at its own temperature (H and P held): the
+// adiabatic reaction or flame temperature. The search runs over the span
+// where every feed species has data; a root outside it is a diagnostic.
+// The products' enthalpy at equilibrium rises with T (its derivative is the
+// equilibrium heat capacity, positive), so the root is bracketed and found
+// by regula falsi (Illinois) with bisection as a safeguard, each solve
+// warm-started from the nearest one before.
+func adiabatic(net *network.Network, mx *network.Mixture, o Options) (*Composition, lang.Diagnostics, error) {
+	feed, total, diags := feedOf(mx)
+	if diags != nil {
+		return nil, diags, nil
+	}
+	Tfeed, P, diags := conditions(mx, Options{P: o.P})
+	if diags != nil {
+		return nil, diags, nil
+	}
+	errAt := func(code string, span lang.Span, format string, args ...any) lang.Diagnostics {
+		return lang.Diagnostics{{Code: code, Severity: lang.Error, Subject: span, Message: fmt.Sprintf(format, args...)}}
+	}
+	lo, hi := 0.0, math.Inf(1)
+	for _, f := range feed {
+		a, b, ok := f.species.DataSpan()
+		if !ok {
+			return nil, errAt("missing-thermo", f.span, "%s has no temperature model, so the feed has no enthalpy", f.species.Key), nil
+		}
+		lo, hi = math.Max(lo, a), math.Min(hi, b)
+	}
+	if !(hi > lo) {
+		return nil, errAt("missing-thermo", mx.NameSpan, "the data of mixture %s's members share no temperature range", mx.Name), nil
+	}
+	hFeed, sp := feedEnthalpy(feed, Tfeed)
+	if sp != nil {
+		return nil, errAt("missing-thermo", mx.NameSpan, "%s has no enthalpy data at the feed's %s K", sp.Key, kelvin(Tfeed)), nil
+	}
+	var last *Composition
+	eval := func(T float64) (float64, *Composition, lang.Diagnostics, error) {
+		c, diags, err := solveAt(net, mx, feed, total, T, P, o.Basis, last)
+		if c == nil {
+			return math.NaN(), nil, diags, err
+		}
+		last = c
+		h, sp := c.productEnthalpy()
+		if sp != nil {
+			return math.NaN(), nil, errAt("missing-thermo", mx.NameSpan, "%s forms at %s K and has no enthalpy data there", sp.Key, kelvin(T)), nil
+		}
+		if !c.Converged {
+			return math.NaN(), c, nil, nil
+		}
+		return h - hFeed, c, nil, nil
+	}
+	scale := math.Max(math.Abs(hFeed), total*thermo.R*1000)
+	fLo, cLo, diags, err := eval(lo)
+	if cLo == nil || math.IsNaN(fLo) {
+		return finishNoRoot(cLo, diags, err, mx, lo)
+	}
+	if fLo > 0 {
+		return nil, errAt("extrapolation", mx.NameSpan, "the products of mixture %s at %s K, the lowest temperature of its members' data, already hold %.6g kJ more than the feed: the adiabatic temperature lies below the data's range",
+			mx.Name, kelvin(lo), fLo/1000), nil
+	}
+	fHi, cHi, diags, err := eval(hi)
+	if cHi == nil || math.IsNaN(fHi) {
+		return finishNoRoot(cHi, diags, err, mx, hi)
+	}
+	if fHi < 0 {
+		return nil, errAt("extrapolation", mx.NameSpan, "the products of mixture %s at %s K, the highest temperature of its members' data, still hold %.6g kJ less than the feed: the adiabatic temperature lies above the data's range",
+			mx.Name, kelvin(hi), -fHi/1000), nil
+	}
+	best, fBest := cLo, fLo
+	if math.Abs(fHi) < math.Abs(fLo) {
+		best, fBest = cHi, fHi
+	}
+	a, b, fa, fb := lo, hi, fLo, fHi
+	side := 0
+	for it := 0; it < 200 && math.Abs(fBest) > 1e-12*scale && b-a > 1e-9*b; it++ {
+		t := (a*fb - b*fa) / (fb - fa)
+		if !(t > a && t < b) || it%4 == 3 {
+			t = (a + b) / 2
+		}
+		ft, ct, diags, err := eval(t)
+		if ct == nil || math.IsNaN(ft) {
+			return finishNoRoot(ct, diags, err, mx, t)
+		}
+		if math.Abs(ft) < math.Abs(fBest) {
+			best, fBest = ct, ft
+		}
+		if ft < 0 {
+			a, fa = t, ft
+			if side == -1 {
+				fb /= 2
+			}
+			side = -1
+		} else {
+			b, fb = t, ft
+			if side == 1 {
+				fa /= 2
+			}
+			side = 1
+		}
+	}
+	best.Adiabatic = true
+	best.FeedT = Tfeed
+	best.heat(feed)
+	return best, nil, nil
+}
+
+// finishNoRoot reports a solve that failed or did not converge during the
+// temperature search: the last composition is returned unconverged, so that
+// the caller says so.
+func finishNoRoot(c *Composition, diags lang.Diagnostics, err error, mx *network.Mixture, T float64) (*Composition, lang.Diagnostics, error) {
+	if c != nil {
+		c.Adiabatic = true
+		c.Converged = false
+		c.Heat = math.NaN()
+		c.HeatNote = fmt.Sprintf("the equilibrium at %s K did not converge during the search for the adiabatic temperature", kelvin(T))
+		return c, nil, nil
+	}
+	return nil, diags, err
+}
