@@ -1,0 +1,189 @@
+package equilibrium
+
+import (
+	"fmt"
+	"math"
+	"testing"
+
+	"hess/lang"
+	"hess/network"
+	"hess/thermo"
+)
+
+// mustLoad compiles text and fails on any error diagnostic.
+func mustLoad(t testing.TB, text string) *network.Network {
+	t.Helper()
+	n := loadText(t, text)
+	for _, d := range n.Diagnostics {
+		if d.Severity == lang.Error {
+			t.Fatalf("%d:%d: %s: %s", d.Subject.Start.Line, d.Subject.Start.Column, d.Code, d.Message)
+		}
+	}
+	return n
+}
+
+// solve brings the named mixture to equilibrium and fails on diagnostics,
+// errors or a solve that did not converge.
+func solve(t testing.TB, n *network.Network, mixture string, o Options) *Composition {
+	t.Helper()
+	mx := n.LookupMixture(mixture)
+	if mx == nil {
+		t.Fatalf("no mixture %s", mixture)
+	}
+	c, diags, err := Equilibrate(n, mx, o)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(diags) > 0 {
+		t.Fatalf("diagnostics: %v", diags)
+	}
+	if !c.Converged {
+		t.Fatalf("%s at %g K did not converge (residual %g, stationarity %g)", mixture, c.T, c.ElementResidual, c.Stationarity)
+	}
+	return c
+}
+
+// amount is the amount of a species in a composition, mol.
+func amount(t testing.TB, c *Composition, key string) float64 {
+	t.Helper()
+	for _, s := range c.Species {
+		if s.Species.Key == key {
+			return s.Amount
+		}
+	}
+	t.Fatalf("no species %s in the result", key)
+	return math.NaN()
+}
+
+func within(t testing.TB, what string, got, want, tol float64) {
+	t.Helper()
+	if d := math.Abs(got - want); !(d <= tol*math.Max(1, math.Abs(want))) {
+		t.Errorf("%s = %.15g, want %.15g (off by %.3g)", what, got, want, d)
+	}
+}
+
+// allReactionsAtEquilibrium requires log10(Q/K) ≈ 0 for every reaction
+// whose species are all present.
+func allReactionsAtEquilibrium(t testing.TB, c *Composition) {
+	t.Helper()
+	for _, r := range c.Reactions {
+		if !math.IsNaN(r.Log10QoverK) && math.Abs(r.Log10QoverK) > 1e-9 {
+			t.Errorf("%s: log10(Q/K) = %g at %g K", r.Reaction.Name, r.Log10QoverK, c.T)
+		}
+	}
+	if c.ElementResidual > 1e-12 {
+		t.Errorf("element residual %g", c.ElementResidual)
+	}
+}
+
+// Data for the closed-form tests: ΔfH° and S° at 298.15 K (NIST-JANAF
+// 1998; CaCO3 and CaO NBS82, as in the reference data). With hf and s
+// alone a species' model has Cp = 0, so ΔrG°(T) = ΔrH° − TΔrS° exactly:
+// the tests check the solver's answer against the closed form on the same
+// numbers.
+const shiftNet = `
+species CO(g) { hf -110.527 kJ/mol s 197.653 J/mol/K }
+species H2O(g) { hf -241.826 kJ/mol s 188.834 J/mol/K }
+species CO2(g) { hf -393.522 kJ/mol s 213.795 J/mol/K }
+species H2(g) { hf 0 kJ/mol s 130.680 J/mol/K }
+reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
+mixture feed { temperature 800 K pressure 10 bar CO(g) 1 mol H2O(g) 1 mol }
+`
+
+// TestShiftClosedForm: water-gas shift from 1:1 CO/H2O. With extent x per
+// mol of CO, K = x²/(1−x)², so x = √K/(1+√K) (Δn = 0: no dependence on P).
+func TestShiftClosedForm(t *testing.T) {
+	n := mustLoad(t, shiftNet)
+	dH := (-393.522 + 0 - (-110.527) - (-241.826)) * 1000
+	dS := 213.795 + 130.680 - 197.653 - 188.834
+	for _, basis := range []Basis{BasisReactions, BasisElements} {
+		for _, T := range []float64{500, 800, 1100, 1500, 2500} {
+			c := solve(t, n, "feed", Options{T: T, Basis: basis})
+			K := math.Exp(-(dH - T*dS) / (thermo.R * T))
+			x := math.Sqrt(K) / (1 + math.Sqrt(K))
+			what := fmt.Sprintf("%s %g K", basis, T)
+			within(t, what+" CO2", amount(t, c, "CO2(g)"), x, 1e-9)
+			within(t, what+" H2", amount(t, c, "H2(g)"), x, 1e-9)
+			within(t, what+" CO", amount(t, c, "CO(g)"), 1-x, 1e-9)
+			within(t, what+" H2O", amount(t, c, "H2O(g)"), 1-x, 1e-9)
+			allReactionsAtEquilibrium(t, c)
+		}
+	}
+}
+
+// TestDissociationClosedForm: A(g) ⇌ 2 B(g) from 1 mol of A at total
+// pressure P: K = 4α²(P/p°)/(1−α²), α = √(K/(K + 4P/p°)). Data: N2O4 and
+// NO2, NBS82 (from memory; the test checks the closed form on the numbers
+// given, not the numbers).
+func TestDissociationClosedForm(t *testing.T) {
+	n := mustLoad(t, `
+species N2O4(g) { hf 9.16 kJ/mol s 304.29 J/mol/K }
+species NO2(g) { hf 33.18 kJ/mol s 240.06 J/mol/K }
+reaction split: N2O4(g) <-> 2 NO2(g)
+mixture feed { temperature 320 K pressure 1 bar N2O4(g) 1 mol }
+`)
+	dH := (2*33.18 - 9.16) * 1000
+	dS := 2*240.06 - 304.29
+	for _, T := range []float64{300, 350} {
+		for _, P := range []float64{0.01, 1, 10, 100} {
+			c := solve(t, n, "feed", Options{T: T, P: P * thermo.Bar})
+			K := math.Exp(-(dH - T*dS) / (thermo.R * T))
+			a := math.Sqrt(K / (K + 4*P))
+			what := fmt.Sprintf("%g K %g bar", T, P)
+			within(t, what+" NO2", amount(t, c, "NO2(g)"), 2*a, 1e-9)
+			within(t, what+" N2O4", amount(t, c, "N2O4(g)"), 1-a, 1e-9)
+			allReactionsAtEquilibrium(t, c)
+		}
+	}
+}
+
+const kilnNet = `
+species CaCO3(cr) "calcite" { hf -1206.92 kJ/mol s 92.9 J/mol/K }
+species CaO(cr) "lime" { hf -635.09 kJ/mol s 39.75 J/mol/K }
+species CO2(g) { hf -393.522 kJ/mol s 213.795 J/mol/K }
+species N2(g) { hf 0 kJ/mol s 191.609 J/mol/K }
+reaction calcination: CaCO3(cr) <-> CaO(cr) + CO2(g)
+mixture charge { temperature 1000 K pressure 1 bar CaCO3(cr) 1 mol N2(g) 1 mol }
+`
+
+// TestDecompositionClosedForm: CaCO3(cr) ⇌ CaO(cr) + CO2(g) with 1 mol of
+// N2 at 1 bar. While both solids are present p(CO2) = K·p°, so
+// n(CO2) = n(N2)·K/(P/p° − K); once that would exceed the 1 mol of
+// carbonate, the carbonate is gone (exactly 0) and n(CO2) = 1. Below the
+// range the lime is a trace that must still be exact.
+func TestDecompositionClosedForm(t *testing.T) {
+	n := mustLoad(t, kilnNet)
+	dH := (-635.09 - 393.522 + 1206.92) * 1000
+	dS := 39.75 + 213.795 - 92.9
+	K := func(T float64) float64 { return math.Exp(-(dH - T*dS) / (thermo.R * T)) }
+	for _, basis := range []Basis{BasisReactions, BasisElements} {
+		for _, T := range []float64{600, 800, 1000, 1080, 1200, 1500} {
+			c := solve(t, n, "charge", Options{T: T, Basis: basis})
+			k := K(T)
+			co2 := 1 * k / (1 - k)
+			what := fmt.Sprintf("%s %g K (K = %.4g)", basis, T, k)
+			if k < 1 && co2 < 1 {
+				// Both solids: lime and CO2 equal, to full relative precision.
+				rel(t, what+" CO2", amount(t, c, "CO2(g)"), co2, 1e-9)
+				rel(t, what+" CaO", amount(t, c, "CaO(cr)"), co2, 1e-9)
+				within(t, what+" CaCO3", amount(t, c, "CaCO3(cr)"), 1-co2, 1e-9)
+			} else {
+				if got := amount(t, c, "CaCO3(cr)"); got != 0 {
+					t.Errorf("%s: CaCO3 = %g, want exactly 0 above the two-solid range", what, got)
+				}
+				within(t, what+" CaO", amount(t, c, "CaO(cr)"), 1, 1e-12)
+				within(t, what+" CO2", amount(t, c, "CO2(g)"), 1, 1e-12)
+			}
+			within(t, what+" N2", amount(t, c, "N2(g)"), 1, 1e-12)
+			allReactionsAtEquilibrium(t, c)
+		}
+	}
+}
+
+// rel compares relative to want itself (for trace amounts).
+func rel(t testing.TB, what string, got, want, tol float64) {
+	t.Helper()
+	if d := math.Abs(got-want) / math.Abs(want); !(d <= tol) {
+		t.Errorf("%s = %.15g, want %.15g (relative error %.3g)", what, got, want, d)
+	}
+}
