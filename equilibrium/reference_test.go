@@ -162,3 +162,24 @@ mixture feed { temperature 900 K pressure 5 bar CH4(g) 1 mol H2O(g) 3 mol }
 		}
 	}
 }
+
+// TestPlantCarbonReactionsMatchJANAF: the example's graphite (a Shomate fit
+// to NIST-JANAF C-002) with its gases gives the Boudouard and cracking
+// constants that NIST-JANAF's log10 Kf give: log10 K(boudouard) =
+// log Kf(CO2) − 2 log Kf(CO), log10 K(cracking) = −log Kf(CH4) (JANAF
+// 1998 values from the reference data; ±0.003 for their rounding and the
+// fits).
+func TestPlantCarbonReactionsMatchJANAF(t *testing.T) {
+	n := loadPlantWith(t, "")
+	kf := map[float64][3]float64{ // CO2, CO, CH4
+		600: {34.404, 14.320, 1.993}, 700: {29.505, 12.948, 0.943}, 800: {25.829, 11.916, 0.138},
+		900: {22.969, 11.109, -0.500}, 1000: {20.679, 10.461, -1.018}, 1100: {18.805, 9.928, -1.447},
+		1200: {17.242, 9.481, -1.807},
+	}
+	bk := n.ReactionK(n.LookupReaction("boudouard"))
+	ck := n.ReactionK(n.LookupReaction("cracking"))
+	for T, v := range kf {
+		within(t, fmt.Sprintf("boudouard log10 K at %g K", T), bk.Row(T).Log10K, v[0]-2*v[1], 0.004)
+		within(t, fmt.Sprintf("cracking log10 K at %g K", T), ck.Row(T).Log10K, -v[2], 0.004)
+	}
+}

@@ -139,7 +139,7 @@ func TestApproachSummaryLine(t *testing.T) {
 	if code := run([]string{"approach", "--mixture", "shift-outlet", "examples/hydrogen-plant/reformer.hess"}, &stdout, &stderr); code != exitOK {
 		t.Fatalf("exit %d: %s", code, stderr.String())
 	}
-	if !strings.Contains(stdout.String(), "  1 reaction runs forward, 3 reverse, 0 at equilibrium\n") {
+	if !strings.Contains(stdout.String(), "  1 reaction runs forward, 3 reverse, 0 at equilibrium; 2 not in this mixture\n") {
 		t.Errorf("summary line missing:\n%s", stdout.String())
 	}
 }

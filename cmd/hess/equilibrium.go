@@ -167,10 +167,8 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		}
 		return renderText(stderr, networkReport(net, ds), useColor("auto", stderr)) == nil
 	}
-	if !report(diags) {
-		return nil, exitTrouble
-	}
 	if diags.HasErrors() {
+		report(diags)
 		fmt.Fprintf(stderr, "hess equilibrium: %s has errors; no output written\n", displayName(req.root))
 		return nil, exitFindings
 	}
@@ -217,11 +215,14 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		}
 	}
 	if len(bad) > 0 {
-		bad = uniqueDiagnostics(bad)
+		bad = append(diags, uniqueDiagnostics(bad)...)
 		bad.Sort()
 		report(bad)
 		fmt.Fprintf(stderr, "hess equilibrium: %s has feeds that cannot be brought to equilibrium; no output written\n", displayName(req.root))
 		return nil, exitFindings
+	}
+	if !report(diags) {
+		return nil, exitTrouble
 	}
 	status = exitOK
 	for _, c := range doc.Results {

@@ -43,7 +43,7 @@ func resultSummary(c *equilibrium.Composition) []string {
 		conv = fmt.Sprintf("NOT CONVERGED after %d iterations: these numbers are no equilibrium", c.Iterations)
 	}
 	lines := []string{
-		fmt.Sprintf("basis: %s; %s; element residual %.3g, stationarity %.3g", c.Basis, conv, c.ElementResidual, c.Stationarity),
+		fmt.Sprintf("basis: %s; %s; element residual %s, stationarity %s", c.Basis, conv, smallText(c.ElementResidual), smallText(c.Stationarity)),
 		fmt.Sprintf("feed: %s mol at %s", amountText(c.FeedMoles), kelvinText(c.FeedT)),
 	}
 	if finite(c.Heat) {
@@ -69,7 +69,7 @@ func presentText(p bool) string {
 // reactionText is log10(Q/K) or why it is missing.
 func reactionText(r equilibrium.ReactionBalance) string {
 	if finite(r.Log10QoverK) {
-		return strconv.FormatFloat(r.Log10QoverK, 'e', 2, 64)
+		return smallText(r.Log10QoverK)
 	}
 	return "n/a (a species is absent or ΔrG° unknown)"
 }
@@ -80,4 +80,17 @@ func molalityText(v float64) string {
 		return ""
 	}
 	return amountText(v)
+}
+
+// smallText writes a residual: three significant digits, and "< 1e-12"
+// for values at the rounding of double precision, which differ from one
+// machine to another.
+func smallText(v float64) string {
+	if finite(v) && math.Abs(v) < 1e-12 {
+		return "< 1e-12"
+	}
+	if !finite(v) {
+		return missingCell
+	}
+	return strconv.FormatFloat(v, 'e', 2, 64)
 }
