@@ -61,27 +61,73 @@ func adiabatic(net *network.Network, mx *network.Mixture, o Options) (*Compositi
 		return h - hFeed, c, nil, nil
 	}
 	scale := math.Max(math.Abs(hFeed), total*thermo.R*1000)
-	fLo, cLo, diags, err := eval(lo)
-	if cLo == nil || math.IsNaN(fLo) {
-		return finishNoRoot(cLo, diags, err, mx, lo)
+	// Bracket the root by walking from the feed's temperature towards it in
+	// steps of a quarter of the temperature (at least 50 K), so that the
+	// solves stay where the products have data; a step that fails is
+	// halved towards the last good one.
+	T0 := math.Min(math.Max(Tfeed, lo), hi)
+	f0, c0, diags, err := eval(T0)
+	if c0 == nil || math.IsNaN(f0) {
+		return finishNoRoot(c0, diags, err, mx, T0)
 	}
-	if fLo > 0 {
-		return nil, errAt("extrapolation", mx.NameSpan, "the products of mixture %s at %s K, the lowest temperature of its members' data, already hold %.6g kJ more than the feed: the adiabatic temperature lies below the data's range",
-			mx.Name, kelvin(lo), fLo/1000), nil
+	dir := 1.0
+	if f0 > 0 {
+		dir = -1
 	}
-	fHi, cHi, diags, err := eval(hi)
-	if cHi == nil || math.IsNaN(fHi) {
-		return finishNoRoot(cHi, diags, err, mx, hi)
+	limit := hi
+	if dir < 0 {
+		limit = lo
 	}
-	if fHi < 0 {
-		return nil, errAt("extrapolation", mx.NameSpan, "the products of mixture %s at %s K, the highest temperature of its members' data, still hold %.6g kJ less than the feed: the adiabatic temperature lies above the data's range",
-			mx.Name, kelvin(hi), -fHi/1000), nil
+	a, fa, ca := T0, f0, c0
+	b, fb, cb := a, fa, ca
+	for f0 != 0 {
+		if a == limit {
+			where, word := "highest", "less"
+			if dir < 0 {
+				where, word = "lowest", "more"
+			}
+			return nil, errAt("extrapolation", mx.NameSpan, "the products of mixture %s at %s K, the %s temperature of its members' data, still hold %.6g kJ %s than the feed: the adiabatic temperature lies beyond the data's range",
+				mx.Name, kelvin(a), where, math.Abs(fa)/1000, word), nil
+		}
+		step := math.Max(50, 0.25*a)
+		next := a + dir*step
+		if dir*(next-limit) > 0 {
+			next = limit
+		}
+		var fn float64
+		var cn *Composition
+		for tries := 0; ; tries++ {
+			fn, cn, diags, err = eval(next)
+			if cn != nil && !math.IsNaN(fn) {
+				break
+			}
+			if tries == 40 || math.Abs(next-a) < 1e-6 {
+				return finishNoRoot(cn, diags, err, mx, next)
+			}
+			limit = next
+			next = (a + next) / 2
+		}
+		if (fn > 0) == (dir > 0) || fn == 0 {
+			b, fb, cb = next, fn, cn
+			break
+		}
+		a, fa, ca = next, fn, cn
 	}
+	if f0 == 0 {
+		b, fb, cb = a, fa, ca
+	}
+	// Order the bracket as lo < hi with f(lo) ≤ 0 ≤ f(hi).
+	cLo, fLo, cHi, fHi := ca, fa, cb, fb
+	if dir < 0 {
+		cLo, fLo, cHi, fHi = cb, fb, ca, fa
+		a, b = b, a
+	}
+	lo, hi = a, b
 	best, fBest := cLo, fLo
 	if math.Abs(fHi) < math.Abs(fLo) {
 		best, fBest = cHi, fHi
 	}
-	a, b, fa, fb := lo, hi, fLo, fHi
+	a, b, fa, fb = lo, hi, fLo, fHi
 	side := 0
 	for it := 0; it < 200 && math.Abs(fBest) > 1e-12*scale && b-a > 1e-9*b; it++ {
 		t := (a*fb - b*fa) / (fb - fa)
