@@ -45,8 +45,9 @@ func adiabatic(net *network.Network, mx *network.Mixture, o Options) (*Compositi
 		return nil, errAt("missing-thermo", mx.NameSpan, "%s has no enthalpy data at the feed's %s K", sp.Key, kelvin(Tfeed)), nil
 	}
 	var last *Composition
+	rc := newRxCache(net)
 	eval := func(T float64) (float64, *Composition, lang.Diagnostics, error) {
-		c, diags, err := solveAt(net, mx, feed, total, T, P, o.Basis, last)
+		c, diags, err := solveAt(net, rc, mx, feed, total, T, P, o.Basis, last)
 		if c == nil {
 			return math.NaN(), nil, diags, err
 		}

@@ -59,8 +59,9 @@ type Composition struct {
 	Species   []SpeciesAmount
 	Reactions []ReactionBalance
 
-	sys *system
-	res gibbs.Result
+	sys   *system
+	res   gibbs.Result
+	cache *rxCache
 }
 
 // PhaseAmount is one phase of the result.
@@ -127,7 +128,7 @@ func Equilibrate(net *network.Network, mx *network.Mixture, o Options) (*Composi
 	if diags != nil {
 		return nil, diags, nil
 	}
-	c, diags, err := solveAt(net, mx, feed, total, T, P, o.Basis, o.Start)
+	c, diags, err := solveAt(net, cacheFor(net, o.Start), mx, feed, total, T, P, o.Basis, o.Start)
 	if c != nil {
 		c.heat(feed)
 	}
@@ -155,8 +156,8 @@ func conditions(mx *network.Mixture, o Options) (T, P float64, diags lang.Diagno
 }
 
 // solveAt solves the feed at T and P.
-func solveAt(net *network.Network, mx *network.Mixture, feed []feedItem, total, T, P float64, basis Basis, start *Composition) (*Composition, lang.Diagnostics, error) {
-	sys, diags := buildSystem(net, feed, mx.NameSpan, T, P, basis)
+func solveAt(net *network.Network, rc *rxCache, mx *network.Mixture, feed []feedItem, total, T, P float64, basis Basis, start *Composition) (*Composition, lang.Diagnostics, error) {
+	sys, diags := buildSystem(net, rc, feed, mx.NameSpan, T, P, basis)
 	if diags != nil {
 		return nil, diags, nil
 	}
@@ -169,11 +170,11 @@ func solveAt(net *network.Network, mx *network.Mixture, feed []feedItem, total, 
 		return nil, nil, fmt.Errorf("mixture %s at %s K: %w", mx.Name, kelvin(T), err)
 	}
 	c := &Composition{Mixture: mx, T: T, P: P, Basis: basis, Converged: res.Converged, Iterations: res.Iterations,
-		Stationarity: res.Stationarity, FeedMoles: total, AdjustedMu: sys.adjusted, sys: sys, res: res}
+		Stationarity: res.Stationarity, FeedMoles: total, AdjustedMu: sys.adjusted, sys: sys, res: res, cache: rc}
 	if mx.Temperature != nil {
 		c.FeedT = mx.Temperature.V
 	}
-	c.assemble(net)
+	c.assemble()
 	return c, nil, nil
 }
 
@@ -191,8 +192,8 @@ func sameSpecies(a, b *system) bool {
 
 // assemble fills the phases, species, reactions and the element balance
 // from the solver's result.
-func (c *Composition) assemble(net *network.Network) {
-	sys, res := c.sys, c.res
+func (c *Composition) assemble() {
+	sys, res, rc := c.sys, c.res, c.cache
 	for k, name := range sys.phaseName {
 		c.Phases = append(c.Phases, PhaseAmount{Name: name, Kind: sys.phaseKind[k], Present: res.PhasePresent[k], Amount: res.PhaseAmount[k]})
 	}
@@ -218,23 +219,22 @@ func (c *Composition) assemble(net *network.Network) {
 	for _, rx := range sys.reactions {
 		inBasis[rx] = true
 	}
-	for _, rx := range net.Reactions {
-		if !rx.Resolved {
+	for _, rx := range rc.net.Reactions {
+		it := rc.get(rx)
+		if !it.ok {
 			continue
 		}
 		rb := ReactionBalance{Reaction: rx, Log10QoverK: math.NaN(), InBasis: inBasis[rx]}
-		g := net.ReactionK(rx).DeltaG(c.T)
-		terms := rx.NetTerms()
-		ok := !math.IsNaN(g) && len(terms) > 0
+		g := it.deltaG(c.T)
+		ok := !math.IsNaN(g)
 		lnQ := 0.0
-		for _, t := range terms {
-			j, in := sys.index[t.Species]
+		for _, t := range it.terms {
+			j, in := sys.index[t.species]
 			if !in || !(res.N[j] > 0) {
 				ok = false
 				break
 			}
-			nu, _ := t.Nu.Float64()
-			lnQ += nu * res.LnActivity[j]
+			lnQ += t.nu * res.LnActivity[j]
 		}
 		if !ok {
 			if sys.reactionsBasis() && !inBasis[rx] {
@@ -258,6 +258,8 @@ func (c *Composition) assemble(net *network.Network) {
 }
 
 func (sys *system) reactionsBasis() bool { return sys.reactions != nil }
+
+var nan = math.NaN()
 
 // Sorted returns the species by amount, largest first (ties by name).
 func (c *Composition) Sorted() []SpeciesAmount {

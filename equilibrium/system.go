@@ -69,7 +69,7 @@ func usableSpecies(sp *network.Species) bool {
 
 // buildSystem assembles the problem at T (K) and P (Pa). Diagnostics name
 // feed members that cannot take part; the system is nil with them.
-func buildSystem(net *network.Network, feed []feedItem, at lang.Span, T, P float64, basis Basis) (*system, lang.Diagnostics) {
+func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Span, T, P float64, basis Basis) (*system, lang.Diagnostics) {
 	var diags lang.Diagnostics
 	report := func(code string, span lang.Span, format string, args ...any) {
 		diags = append(diags, lang.Diagnostic{Code: code, Severity: lang.Error, Subject: span, Message: fmt.Sprintf(format, args...)})
@@ -106,25 +106,22 @@ func buildSystem(net *network.Network, feed []feedItem, at lang.Span, T, P float
 		}
 	case BasisReactions:
 		for _, rx := range net.Reactions {
-			if !rx.Resolved {
-				continue
-			}
-			terms := rx.NetTerms()
-			ok := len(terms) > 0
-			for _, t := range terms {
-				if !usableSpecies(t.Species) {
+			it := rc.get(rx)
+			ok := it.ok
+			for _, t := range it.terms {
+				if !usableSpecies(t.species) {
 					ok = false
 				}
 			}
 			if !ok {
 				continue
 			}
-			g := net.ReactionK(rx).DeltaG(T)
+			g := it.deltaG(T)
 			if math.IsNaN(g) || math.IsInf(g, 0) {
 				continue
 			}
-			for _, t := range terms {
-				add(t.Species)
+			for _, t := range it.terms {
+				add(t.species)
 			}
 			sys.reactions = append(sys.reactions, rx)
 			dg = append(dg, g/(thermo.R*T))
@@ -161,10 +158,10 @@ func buildSystem(net *network.Network, feed []feedItem, at lang.Span, T, P float
 		return nil, diags
 	}
 	sys.phases(hasSolute)
-	if err := sys.conservation(net, basis); err != nil {
+	if err := sys.conservation(rc, basis); err != nil {
 		return nil, lang.Diagnostics{{Code: "equilibrium", Severity: lang.Error, Message: err.Error()}}
 	}
-	sys.mu0(T, dg)
+	sys.mu0(rc, T, dg)
 	n0 := make([]float64, len(sys.species))
 	for _, f := range feed {
 		n0[sys.index[f.species]] += f.amount
@@ -231,7 +228,7 @@ func (sys *system) phases(aqueous bool) {
 // conservation builds the element (and charge) rows, and the problem's
 // conservation matrix: those rows, or a basis of the left null space of the
 // reactions' stoichiometric matrix.
-func (sys *system) conservation(net *network.Network, basis Basis) error {
+func (sys *system) conservation(rc *rxCache, basis Basis) error {
 	s := len(sys.species)
 	var symbols []string
 	seen := map[string]bool{}
@@ -272,9 +269,9 @@ func (sys *system) conservation(net *network.Network, basis Basis) error {
 	}
 	N := mat.NewDense(s, max(len(sys.reactions), 1), nil)
 	for r, rx := range sys.reactions {
-		for _, t := range rx.NetTerms() {
-			nu, _ := t.Nu.Float64()
-			N.Set(sys.index[t.Species], r, N.At(sys.index[t.Species], r)+nu)
+		for _, t := range rc.get(rx).terms {
+			j := sys.index[t.species]
+			N.Set(j, r, N.At(j, r)+t.nu)
 		}
 	}
 	if len(sys.reactions) == 0 {
@@ -303,7 +300,7 @@ func (sys *system) conservation(net *network.Network, basis Basis) error {
 // Nᵀμ° = ΔrG°/RT: species with data are weighted 1, species without 10⁻⁸,
 // so that they take up the difference. Any two solutions differ by a
 // vector the conservation rows annul, which changes no amount.
-func (sys *system) mu0(T float64, dg []float64) {
+func (sys *system) mu0(rc *rxCache, T float64, dg []float64) {
 	s := len(sys.species)
 	mu := make([]float64, s)
 	known := make([]bool, s)
@@ -319,13 +316,12 @@ func (sys *system) mu0(T float64, dg []float64) {
 		need := false
 		for k, rx := range sys.reactions {
 			sum := 0.0
-			for _, t := range rx.NetTerms() {
-				nu, _ := t.Nu.Float64()
-				j := sys.index[t.Species]
+			for _, t := range rc.get(rx).terms {
+				j := sys.index[t.species]
 				if !known[j] {
 					need = true
 				}
-				sum += nu * mu[j]
+				sum += t.nu * mu[j]
 			}
 			res[k] = dg[k] - sum
 			if math.Abs(res[k]) > 1e-12*(1+math.Abs(dg[k])) {
@@ -345,10 +341,9 @@ func (sys *system) mu0(T float64, dg []float64) {
 				}
 			}
 			for k, rx := range sys.reactions {
-				for _, t := range rx.NetTerms() {
-					nu, _ := t.Nu.Float64()
-					j := sys.index[t.Species]
-					A.Set(k, j, A.At(k, j)+nu*d[j])
+				for _, t := range rc.get(rx).terms {
+					j := sys.index[t.species]
+					A.Set(k, j, A.At(k, j)+t.nu*d[j])
 				}
 			}
 			if z, ok := minNorm(A, res); ok {
