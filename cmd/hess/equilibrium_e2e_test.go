@@ -141,3 +141,25 @@ func roundingFree(s string) []byte {
 	tiny := regexp.MustCompile(`("(?:log10QoverK|elementResidual)": )-?[0-9.]+e-(?:1[3-9]|[2-9][0-9]|[1-9][0-9]{2})`)
 	return []byte(tiny.ReplaceAllString(s, "${1}0"))
 }
+
+// TestEquilibriumPlot draws a feed's composition against T through the
+// built binary, linear and log, and refuses --equilibrium without a
+// mixture.
+func TestEquilibriumPlot(t *testing.T) {
+	dir := t.TempDir()
+	for _, extra := range [][]string{nil, {"--log"}} {
+		out := filepath.Join(dir, "eq.svg")
+		args := append([]string{"plot", "--equilibrium", "--mixture", "feed-sc3", "--temperatures", "700 K to 1200 K by 100 K", "-o", out}, extra...)
+		r := runHess(t, append(args, "examples/hydrogen-plant/reformer.hess")...)
+		if r.code != 0 {
+			t.Fatalf("%v: exit %d\n%s", extra, r.code, r.stderr)
+		}
+		svg, err := os.ReadFile(out)
+		if err != nil || !bytes.Contains(svg, []byte("<svg")) || !bytes.Contains(svg, []byte("H2(g)")) {
+			t.Errorf("%v: no plot with an H2(g) line: %v", extra, err)
+		}
+	}
+	if r := runHess(t, "plot", "--equilibrium", "-o", filepath.Join(dir, "x.svg"), "examples/hydrogen-plant/reformer.hess"); r.code != exitTrouble {
+		t.Errorf("--equilibrium without --mixture: exit %d", r.code)
+	}
+}

@@ -31,17 +31,26 @@ const (
 )
 
 func runPlot(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png FILE",
+	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] -o OUT.svg|OUT.png FILE\n"+
+		"       hess plot --equilibrium --mixture NAME [--temperatures LIST] [--pressure P] [--elements] [--log] -o OUT.svg|OUT.png FILE",
 		"Draw a van 't Hoff plot: log10 K against 1000/T, one line per reaction (every\n"+
 			"reaction, or those named), over the span of the settings' temperatures or\n"+
 			"those of --temperatures. Parts computed from data outside their range are\n"+
 			"dashed; a marker shows each temperature where K = 1. The format follows the\n"+
 			"output's extension: .svg or .png. The file is written atomically.\n\n"+
+			"With --equilibrium, draw the equilibrium composition of the feed --mixture\n"+
+			"(see hess equilibrium) against T: each species' mole fraction in its phase\n"+
+			"(log10 of it with --log), at 60 temperatures over the same span.\n\n"+
 			cautionText, stderr)
 	temps := fs.String("temperatures", "", "span of temperatures to draw, e.g. \"600 K to 1200 K by 100 K\"")
 	var names nameList
 	fs.Var(&names, "reaction", "draw this reaction (repeatable; default: every reaction)")
 	out := fs.String("o", "", "write the plot to `FILE` (.svg or .png)")
+	eqPlot := fs.Bool("equilibrium", false, "draw a feed's equilibrium composition against T")
+	mixture := fs.String("mixture", "", "with --equilibrium: the feed mixture `NAME`")
+	logScale := fs.Bool("log", false, "with --equilibrium: draw log10 of the mole fractions")
+	pressure := fs.String("pressure", "", "with --equilibrium: pressure instead of the mixture's, e.g. \"25 bar\"")
+	elements := fs.Bool("elements", false, "with --equilibrium: let every species with data form")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -56,6 +65,10 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "hess plot: -o must name an .svg or .png file")
 		fs.Usage()
 		return exitTrouble
+	}
+	if *eqPlot {
+		return runEquilibriumPlot(equilibriumPlotRequest{root: files[0], mixture: *mixture, temps: *temps, pressure: *pressure,
+			elements: *elements, log: *logScale, out: *out, format: format}, stderr)
 	}
 	doc, status := tabulate("plot", files[0], *temps, names, stderr)
 	if doc == nil {
