@@ -24,10 +24,22 @@ func renderEquilibriumText(w io.Writer, doc *equilibriumDoc) error {
 			fmt.Fprintf(tw, "  %s\t%s\t%s\t\n", p.Name, presentText(p.Present), amountText(p.Amount))
 		}
 		tw.Flush()
+		solutes := false
+		for _, s := range c.Species {
+			solutes = solutes || finite(s.Molality)
+		}
 		tw = tabwriter.NewWriter(&b, 0, 0, 2, ' ', tabwriter.AlignRight)
-		fmt.Fprintf(tw, "  species\tphase\tamount [mol]\tmole fraction\tactivity\tmolality [mol/kg]\t\n")
+		head := "  species\tphase\tamount [mol]\tmole fraction\tactivity\t"
+		if solutes {
+			head += "molality [mol/kg]\t"
+		}
+		fmt.Fprintln(tw, head)
 		for _, s := range c.Sorted() {
-			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\t%s\t%s\t\n", s.Species.Key, s.Phase, amountText(s.Amount), amountText(s.MoleFraction), amountText(s.Activity), molalityText(s.Molality))
+			row := fmt.Sprintf("  %s\t%s\t%s\t%s\t%s\t", s.Species.Key, s.Phase, amountText(s.Amount), amountText(s.MoleFraction), amountText(s.Activity))
+			if solutes {
+				row += molalityText(s.Molality) + "\t"
+			}
+			fmt.Fprintln(tw, row)
 		}
 		tw.Flush()
 		if len(c.Reactions) > 0 {
@@ -40,6 +52,10 @@ func renderEquilibriumText(w io.Writer, doc *equilibriumDoc) error {
 		}
 	}
 	fmt.Fprintf(&b, "\n%s\n", equilibriumCaution)
-	_, err := io.WriteString(w, b.String())
+	lines := strings.Split(b.String(), "\n")
+	for i, l := range lines {
+		lines[i] = strings.TrimRight(l, " ")
+	}
+	_, err := io.WriteString(w, strings.Join(lines, "\n"))
 	return err
 }
