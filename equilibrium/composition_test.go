@@ -187,3 +187,72 @@ func rel(t testing.TB, what string, got, want, tol float64) {
 		t.Errorf("%s = %.15g, want %.15g (relative error %.3g)", what, got, want, d)
 	}
 }
+
+// TestTraceHydrogen: 1 mol H2 with 1 mol O2 at 500 K and 1 bar leaves
+// hydrogen at a mole fraction near 1e-23, which must come out to full
+// relative precision: x(H2) = x(H2O)/√(K·x(O2)·P/p°) for 2 H2 + O2 ⇌ 2 H2O,
+// with x(H2O) = 1/1.5 and x(O2) = 0.5/1.5 to within the trace itself.
+// Data: NIST-JANAF 1998 at 298.15 K (Cp = 0, so ΔrG° = ΔrH° − TΔrS°).
+func TestTraceHydrogen(t *testing.T) {
+	n := mustLoad(t, `
+species H2(g) { hf 0 kJ/mol s 130.680 J/mol/K }
+species O2(g) { hf 0 kJ/mol s 205.147 J/mol/K }
+species H2O(g) { hf -241.826 kJ/mol s 188.834 J/mol/K }
+reaction burn: 2 H2(g) + O2(g) <-> 2 H2O(g)
+mixture feed { temperature 500 K pressure 1 bar H2(g) 1 mol O2(g) 1 mol }
+`)
+	const T = 500.0
+	dH := 2 * -241826.0
+	dS := 2*188.834 - 2*130.680 - 205.147
+	K := math.Exp(-(dH - T*dS) / (thermo.R * T))
+	x := (1 / 1.5) / math.Sqrt(K*(0.5/1.5))
+	for _, basis := range []Basis{BasisReactions, BasisElements} {
+		c := solve(t, n, "feed", Options{Basis: basis})
+		rel(t, basis.String()+" trace H2", amount(t, c, "H2(g)"), 1.5*x, 1e-9)
+		for _, s := range c.Species {
+			if s.Species.Key == "H2(g)" {
+				rel(t, basis.String()+" trace H2 mole fraction", s.MoleFraction, x, 1e-9)
+			}
+		}
+	}
+	if !(x < 1e-20) {
+		t.Fatalf("the case must be a trace: x = %g", x)
+	}
+}
+
+// TestDissolutionWithCharge: silver chloride in 1 kg of water at 25 °C
+// (NBS82 ΔfG°, gf alone: data at 298.15 K only). Ideal dilute solutes with
+// the charge balanced: m(Ag+) = m(Cl−) = √Ksp, Ksp = exp(−ΔrG°/RT) with
+// ΔrG° = 55.668 kJ/mol (pKsp 9.753; CRC's measured Ksp 1.77e-10). Both
+// bases; the solid stays, and the heat is unknown (ΔfG° carries no
+// enthalpy).
+func TestDissolutionWithCharge(t *testing.T) {
+	n := mustLoad(t, `
+species H2O(l) { gf -237.129 kJ/mol }
+species Ag+(aq) { gf 77.107 kJ/mol }
+species Cl-(aq) { gf -131.228 kJ/mol }
+species AgCl(s) { gf -109.789 kJ/mol }
+reaction dissolve: AgCl(s) <-> Ag+(aq) + Cl-(aq)
+mixture slurry { temperature 298.15 K pressure 1 bar H2O(l) 1 kg AgCl(s) 0.001 mol }
+`)
+	Ksp := math.Exp(-55668 / (thermo.R * 298.15))
+	for _, basis := range []Basis{BasisReactions, BasisElements} {
+		c := solve(t, n, "slurry", Options{Basis: basis})
+		var ag, cl SpeciesAmount
+		for _, s := range c.Species {
+			switch s.Species.Key {
+			case "Ag+(aq)":
+				ag = s
+			case "Cl-(aq)":
+				cl = s
+			}
+		}
+		rel(t, basis.String()+" m(Ag+)", ag.Molality, math.Sqrt(Ksp), 1e-9)
+		rel(t, basis.String()+" m(Cl-)", cl.Molality, math.Sqrt(Ksp), 1e-9)
+		within(t, basis.String()+" AgCl left", amount(t, c, "AgCl(s)"), 0.001-ag.Amount, 1e-12)
+		within(t, basis.String()+" Ksp", ag.Activity*cl.Activity, Ksp, 1e-9*Ksp)
+		if !math.IsNaN(c.Heat) || c.HeatNote == "" {
+			t.Errorf("%s: heat %g (%q), want unknown", basis, c.Heat, c.HeatNote)
+		}
+	}
+}
