@@ -122,6 +122,10 @@ func parsePressure(text string) (float64, error) {
 	return p, nil
 }
 
+// maxEquilibriumResults bounds the solves of one run (mixtures ×
+// temperatures).
+const maxEquilibriumResults = 20000
+
 // equilibriumRequest is what to compute.
 type equilibriumRequest struct {
 	root      string
@@ -191,6 +195,11 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 			fmt.Fprintf(stderr, "hess equilibrium: %s has no feed: a mixture that gives its members as amounts, such as CH4(g) 1 mol\n", displayName(req.root))
 			return nil, exitTrouble
 		}
+	}
+	if n := len(mixtures) * max(len(req.temps), 1); n > maxEquilibriumResults {
+		fmt.Fprintf(stderr, "hess equilibrium: %d mixtures × %d temperatures make %d results (at most %d): name fewer mixtures or temperatures\n",
+			len(mixtures), max(len(req.temps), 1), n, maxEquilibriumResults)
+		return nil, exitTrouble
 	}
 	doc := &equilibriumDoc{Network: displayName(req.root), Pressure: net.StandardPressure(), net: net}
 	var bad lang.Diagnostics
