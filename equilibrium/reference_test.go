@@ -4,13 +4,11 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
-	"os"
 	"path/filepath"
 	"testing"
 
 	"hess/gibbs"
 	"hess/gibbs/gibbstest"
-	"hess/lang"
 	"hess/network"
 )
 
@@ -18,22 +16,7 @@ import (
 // statements appended to its root file.
 func loadPlantWith(t testing.TB, extra string) *network.Network {
 	t.Helper()
-	root, err := filepath.Abs(filepath.Join("..", "examples", "hydrogen-plant", "reformer.hess"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	src, err := os.ReadFile(root)
-	if err != nil {
-		t.Fatal(err)
-	}
-	src = append(src, extra...)
-	n := network.Load(root, network.Overlay{Files: map[string][]byte{root: src}, Base: network.Disk{}})
-	for _, d := range n.Diagnostics {
-		if d.Severity == lang.Error {
-			t.Fatalf("%d:%d: %s: %s", d.Subject.Start.Line, d.Subject.Start.Column, d.Code, d.Message)
-		}
-	}
-	return n
+	return loadExample(t, filepath.Join("hydrogen-plant", "reformer.hess"), extra)
 }
 
 // plantFeed is a steam–methane feed of 1 mol in all.

@@ -194,6 +194,11 @@ func renderPlot(doc *tableDoc, format string) ([]byte, error) {
 		p.Legend.YOffs = -p.Legend.YOffs
 	}
 
+	return plotBytes(p, format)
+}
+
+// plotBytes renders a plot at the plots' size in format ("svg" or "png").
+func plotBytes(p *plot.Plot, format string) ([]byte, error) {
 	w, err := p.WriterTo(plotWidth, plotHeight, format)
 	if err != nil {
 		return nil, fmt.Errorf("render %s: %w", format, err)

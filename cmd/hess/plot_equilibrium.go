@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"fmt"
 	"io"
 	"math"
@@ -149,13 +148,5 @@ func renderEquilibriumPlot(doc *equilibriumDoc, logScale bool, format string) ([
 		return nil, fmt.Errorf("no converged result to plot")
 	}
 	p.Legend.Top = true
-	w, err := p.WriterTo(plotWidth, plotHeight, format)
-	if err != nil {
-		return nil, fmt.Errorf("render %s: %w", format, err)
-	}
-	var buf bytes.Buffer
-	if _, err := w.WriteTo(&buf); err != nil {
-		return nil, fmt.Errorf("render %s: %w", format, err)
-	}
-	return buf.Bytes(), nil
+	return plotBytes(p, format)
 }
