@@ -256,3 +256,25 @@ mixture slurry { temperature 298.15 K pressure 1 bar H2O(l) 1 kg AgCl(s) 0.001 m
 		}
 	}
 }
+
+// TestSolutionPhase: two members of a declared solution phase converting
+// into each other (A ⇌ B, activity = mole fraction) end at x_B/x_A = K, and
+// the gas beside them keeps its own balance. Invented data for the closed
+// form (demo numbers).
+func TestSolutionPhase(t *testing.T) {
+	n := mustLoad(t, `
+phase melt { convention solution }
+species Ao(melt) { formula C2H6O hf -10 kJ/mol s 100 J/mol/K }
+species Bo(melt) { formula C2H6O hf -12 kJ/mol s 99 J/mol/K }
+species Ar(g) { hf 0 kJ/mol s 154.8 J/mol/K }
+reaction flip: Ao(melt) <-> Bo(melt)
+mixture feed { temperature 700 K pressure 1 bar Ao(melt) 1 mol Ar(g) 1 mol }
+`)
+	K := math.Exp(-(-2000 - 700*(-1.0)) / (thermo.R * 700))
+	for _, basis := range []Basis{BasisReactions, BasisElements} {
+		c := solve(t, n, "feed", Options{Basis: basis})
+		within(t, basis.String()+" B", amount(t, c, "Bo(melt)"), K/(1+K), 1e-9)
+		within(t, basis.String()+" A", amount(t, c, "Ao(melt)"), 1/(1+K), 1e-9)
+		within(t, basis.String()+" Ar", amount(t, c, "Ar(g)"), 1, 1e-12)
+	}
+}
