@@ -13,6 +13,11 @@ import (
 const (
 	maxHoverFeeds   = 32
 	maxHoverSpecies = 5000
+	// maxHoverWork bounds species × reactions of a network whose feeds are
+	// solved for hovers (the reactions basis's elimination grows with it):
+	// 1 000 species and 5 000 reactions take seconds, which a hover should
+	// not cost; hess equilibrium still solves them.
+	maxHoverWork = 1_000_000
 )
 
 // feedResults are the equilibrium compositions of one compiled network's
@@ -21,9 +26,10 @@ const (
 // hovers. They belong to the compiled network, so a network reused from the
 // cache keeps them.
 type feedResults struct {
-	mu     sync.Mutex
-	done   bool
-	byName map[string]feedResult
+	mu       sync.Mutex
+	done     bool
+	tooLarge bool
+	byName   map[string]feedResult
 }
 
 type feedResult struct {
@@ -43,51 +49,83 @@ func (f *feedResults) get(name string) (feedResult, bool) {
 	return r, ok
 }
 
-// solveFeeds solves the feeds of every root not yet solved. It stops early
-// (leaving the rest for the next cycle) when another cycle is waiting, so
-// that a solve never holds up the diagnostics of an edit by more than one
-// feed's solve.
+// solveFeeds starts solving, on a goroutine of its own, the feeds of every
+// root not yet solved, unless a solve is already running (the next cycle
+// starts what it left). The worker never waits for it, so an edit's
+// diagnostics never wait for a solve; one solve at a time keeps it to one
+// core.
 func (w *worker) solveFeeds(roots []*compiled) {
-	for _, r := range roots {
-		if r.feeds == nil {
-			continue
-		}
-		r.feeds.mu.Lock()
-		done := r.feeds.done
-		r.feeds.mu.Unlock()
-		if done {
-			continue
-		}
-		net := r.net
-		if len(net.Species) > maxHoverSpecies || net.Diagnostics.HasErrors() {
-			r.feeds.mu.Lock()
-			r.feeds.done = true
-			r.feeds.mu.Unlock()
-			continue
-		}
-		n := 0
-		for _, m := range net.Mixtures {
-			if !m.IsFeed() {
-				continue
-			}
-			if n++; n > maxHoverFeeds {
-				break
-			}
-			if _, ok := r.feeds.get(m.Name); ok {
-				continue
-			}
-			if len(w.wake) > 0 {
-				return
-			}
-			c, diags, err := equilibrium.Equilibrate(net, m, equilibrium.Options{})
-			r.feeds.mu.Lock()
-			r.feeds.byName[m.Name] = feedResult{comp: c, diags: diags, err: err}
-			r.feeds.mu.Unlock()
-		}
-		r.feeds.mu.Lock()
-		r.feeds.done = true
-		r.feeds.mu.Unlock()
+	if !w.solving.CompareAndSwap(false, true) {
+		return
 	}
+	pending := append([]*compiled(nil), roots...)
+	go func() {
+		defer w.solving.Store(false)
+		for _, r := range pending {
+			select {
+			case <-w.done:
+				return
+			default:
+			}
+			r.solveFeeds(w.done)
+		}
+	}()
+}
+
+// solveFeeds solves the compiled network's feeds at their own temperature
+// and pressure, stopping early when done closes.
+func (r *compiled) solveFeeds(done <-chan struct{}) {
+	f := r.feeds
+	if f == nil {
+		return
+	}
+	f.mu.Lock()
+	finished := f.done
+	f.mu.Unlock()
+	if finished {
+		return
+	}
+	net := r.net
+	if len(net.Species) > maxHoverSpecies || len(net.Species)*len(net.Reactions) > maxHoverWork || net.Diagnostics.HasErrors() {
+		f.mu.Lock()
+		f.done, f.tooLarge = true, !net.Diagnostics.HasErrors()
+		f.mu.Unlock()
+		return
+	}
+	n := 0
+	for _, m := range net.Mixtures {
+		if !m.IsFeed() {
+			continue
+		}
+		if n++; n > maxHoverFeeds {
+			break
+		}
+		if _, ok := f.get(m.Name); ok {
+			continue
+		}
+		select {
+		case <-done:
+			return
+		default:
+		}
+		c, diags, err := equilibrium.Equilibrate(net, m, equilibrium.Options{})
+		f.mu.Lock()
+		f.byName[m.Name] = feedResult{comp: c, diags: diags, err: err}
+		f.mu.Unlock()
+	}
+	f.mu.Lock()
+	f.done = true
+	f.mu.Unlock()
+}
+
+// large reports that the network is too large for hovers' solves.
+func (f *feedResults) large() bool {
+	if f == nil {
+		return false
+	}
+	f.mu.Lock()
+	defer f.mu.Unlock()
+	return f.tooLarge
 }
 
 // feedsOf is the feed results of a snapshot's network.

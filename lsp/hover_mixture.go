@@ -85,6 +85,10 @@ func feedHover(w *hoverText, m *network.Mixture, feeds *feedResults) {
 	}
 	r, ok := feeds.get(m.Name)
 	switch {
+	case !ok && feeds.large():
+		w.text("equilibrium: the network is too large to solve for a hover; run hess equilibrium")
+		w.line()
+		return
 	case !ok:
 		w.text("equilibrium: being computed (hover again)")
 		w.line()

@@ -95,3 +95,32 @@ mixture feed { temperature 800 K pressure 10 bar CO(g) 1 mol H2O(g) 1 mol }
 		}
 	}
 }
+
+// TestHoverFeedTooLarge: on a network past the hover's bound (species ×
+// reactions), the hover says so instead of solving.
+func TestHoverFeedTooLarge(t *testing.T) {
+	dir := t.TempDir()
+	uri := fileURI(dir, "unit.hess")
+	text := bigNetwork(2500) + "mixture feed { temperature 700 K pressure 20 bar c5i0(g) 1 mol H2(g) 2 mol }\n"
+	c := startServer(t, Options{})
+	var res InitializeResult
+	c.mustCall("initialize", map[string]any{"capabilities": map[string]any{}}, &res)
+	c.open(uri, text, 1)
+	c.waitDiagnostics(uri, atVersion(1))
+	line := uint32(strings.Count(text, "\n") - 1)
+	var got string
+	for i := 0; i < 200; i++ {
+		var h *Hover
+		c.mustCall("textDocument/hover", TextDocumentPositionParams{TextDocument: TextDocumentIdentifier{URI: uri}, Position: pos(line, 10)}, &h)
+		if h != nil {
+			got = h.Contents.Value
+		}
+		if !strings.Contains(got, "being computed") {
+			break
+		}
+		time.Sleep(5 * time.Millisecond)
+	}
+	if !strings.Contains(got, "too large to solve for a hover") {
+		t.Errorf("hover over a feed of a large network:\n%s", got)
+	}
+}

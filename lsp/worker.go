@@ -41,6 +41,7 @@ type worker struct {
 
 	cur      atomic.Pointer[snapshot]
 	compiles atomic.Int64 // networks compiled (not reused) so far
+	solving  atomic.Bool  // a goroutine solves feeds for hovers
 
 	// beforeCompile, when set (by tests), runs before each compile.
 	beforeCompile func(root string)
