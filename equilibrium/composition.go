@@ -157,9 +157,12 @@ func conditions(mx *network.Mixture, o Options) (T, P float64, diags lang.Diagno
 
 // solveAt solves the feed at T and P.
 func solveAt(net *network.Network, rc *rxCache, mx *network.Mixture, feed []feedItem, total, T, P float64, basis Basis, start *Composition) (*Composition, lang.Diagnostics, error) {
-	sys, diags := buildSystem(net, rc, feed, mx.NameSpan, T, P, basis)
-	if diags != nil {
-		return nil, diags, nil
+	sys, diags, err := buildSystem(net, rc, feed, mx.NameSpan, T, P, basis)
+	if diags != nil || err != nil {
+		if err != nil {
+			err = fmt.Errorf("mixture %s at %s K: %w", mx.Name, kelvin(T), err)
+		}
+		return nil, diags, err
 	}
 	opts := gibbs.Options{}
 	if start != nil && sameSpecies(start.sys, sys) {

@@ -68,8 +68,9 @@ func usableSpecies(sp *network.Species) bool {
 }
 
 // buildSystem assembles the problem at T (K) and P (Pa). Diagnostics name
-// feed members that cannot take part; the system is nil with them.
-func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Span, T, P float64, basis Basis) (*system, lang.Diagnostics) {
+// feed members that cannot take part; the system is nil with them. An
+// error is a failure to build the reactions basis.
+func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Span, T, P float64, basis Basis) (*system, lang.Diagnostics, error) {
 	var diags lang.Diagnostics
 	report := func(code string, span lang.Span, format string, args ...any) {
 		diags = append(diags, lang.Diagnostic{Code: code, Severity: lang.Error, Subject: span, Message: fmt.Sprintf(format, args...)})
@@ -84,7 +85,7 @@ func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Spa
 		}
 	}
 	if len(diags) > 0 {
-		return nil, diags
+		return nil, diags, nil
 	}
 	sys := &system{index: map[*network.Species]int{}, solvent: -1}
 	add := func(sp *network.Species) {
@@ -155,11 +156,11 @@ func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Spa
 		}
 	}
 	if len(diags) > 0 {
-		return nil, diags
+		return nil, diags, nil
 	}
 	sys.phases(hasSolute)
 	if err := sys.conservation(rc, basis); err != nil {
-		return nil, lang.Diagnostics{{Code: "equilibrium", Severity: lang.Error, Message: err.Error()}}
+		return nil, nil, err
 	}
 	sys.mu0(rc, T, dg)
 	n0 := make([]float64, len(sys.species))
@@ -169,7 +170,7 @@ func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Spa
 	sys.problem.N0 = n0
 	sys.problem.PRatio = P / net.StandardPressure()
 	sys.problem.SolventMolarMass = network.WaterMolarMass
-	return sys, nil
+	return sys, nil, nil
 }
 
 // dropSolutes removes the aqueous solutes that are not fed.
