@@ -1,6 +1,12 @@
 package equilibrium
 
-import "hess/network"
+import (
+	"slices"
+
+	"gonum.org/v1/gonum/mat"
+
+	"hess/network"
+)
 
 // rxCache holds, per reaction of one network, its ΔrG° evaluation and its
 // net terms as floats, so that a sweep or an adiabatic search builds them
@@ -9,6 +15,12 @@ import "hess/network"
 type rxCache struct {
 	net   *network.Network
 	items map[*network.Reaction]*rxItem
+
+	// The last reactions basis built, for the species and reactions it was
+	// built from: a sweep whose reactions stay the same builds it once.
+	basisSpecies   []*network.Species
+	basisReactions []*network.Reaction
+	basis          *mat.Dense
 }
 
 type rxItem struct {
@@ -57,4 +69,20 @@ func (it *rxItem) deltaG(T float64) float64 {
 		return nan
 	}
 	return it.k.DeltaG(T)
+}
+
+// reactionsBasis returns the conservation matrix built last time for the
+// same species and reactions, or nil.
+func (rc *rxCache) reactionsBasis(species []*network.Species, reactions []*network.Reaction) *mat.Dense {
+	if rc.basis != nil && slices.Equal(rc.basisSpecies, species) && slices.Equal(rc.basisReactions, reactions) {
+		return rc.basis
+	}
+	return nil
+}
+
+// keepBasis remembers a conservation matrix (which the solver only reads).
+func (rc *rxCache) keepBasis(species []*network.Species, reactions []*network.Reaction, B *mat.Dense) {
+	rc.basisSpecies = slices.Clone(species)
+	rc.basisReactions = slices.Clone(reactions)
+	rc.basis = B
 }

@@ -268,6 +268,10 @@ func (sys *system) conservation(rc *rxCache, basis Basis) error {
 		sys.problem.B = B
 		return nil
 	}
+	if B := rc.reactionsBasis(sys.species, sys.reactions); B != nil {
+		sys.problem.B = B
+		return nil
+	}
 	N := mat.NewDense(s, max(len(sys.reactions), 1), nil)
 	for r, rx := range sys.reactions {
 		for _, t := range rc.get(rx).terms {
@@ -288,6 +292,7 @@ func (sys *system) conservation(rc *rxCache, basis Basis) error {
 	} else if B, err = gibbs.ReactionsConservation(N); err != nil {
 		return fmt.Errorf("reactions basis: %w", err)
 	}
+	rc.keepBasis(sys.species, sys.reactions, B)
 	sys.problem.B = B
 	return nil
 }
