@@ -169,6 +169,15 @@ func solveAt(net *network.Network, rc *rxCache, mx *network.Mixture, feed []feed
 		opts.Start = &start.res
 	}
 	res, err := gibbs.Solve(sys.problem, opts)
+	if err == nil && !res.Converged {
+		// A pure phase that must vanish while a one-species gas phase
+		// grows (a carbonate just above its decomposition temperature)
+		// converges slowly: retry from cold with a larger budget, bounded
+		// by the system's size.
+		if r2, err2 := gibbs.Solve(sys.problem, gibbs.Options{MaxIterations: retryIterations(len(sys.species))}); err2 == nil && r2.Converged {
+			res = r2
+		}
+	}
 	if err != nil {
 		return nil, nil, fmt.Errorf("mixture %s at %s K: %w", mx.Name, kelvin(T), err)
 	}
@@ -179,6 +188,13 @@ func solveAt(net *network.Network, rc *rxCache, mx *network.Mixture, feed []feed
 	}
 	c.assemble()
 	return c, nil, nil
+}
+
+// retryIterations is the iteration budget of the second try: 40 000 for
+// small systems, falling with size so that a retry costs at most about as
+// much as 500 iterations on 2 000 species.
+func retryIterations(species int) int {
+	return max(2000, min(40000, 1_000_000/max(species, 1)))
 }
 
 func sameSpecies(a, b *system) bool {
