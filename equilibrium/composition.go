@@ -173,9 +173,14 @@ func solveAt(net *network.Network, rc *rxCache, mx *network.Mixture, feed []feed
 		// A pure phase that must vanish while a one-species gas phase
 		// grows (a carbonate just above its decomposition temperature)
 		// converges slowly: retry from cold with a larger budget, bounded
-		// by the system's size.
-		if r2, err2 := gibbs.Solve(sys.problem, gibbs.Options{MaxIterations: retryIterations(len(sys.species))}); err2 == nil && r2.Converged {
+		// by the system's size. A start that wandered off is abandoned by
+		// the solver for the feed's own phases; restarting from where it
+		// ended often gets through.
+		budget := retryIterations(len(sys.species))
+		if r2, err2 := gibbs.Solve(sys.problem, gibbs.Options{MaxIterations: budget}); err2 == nil && r2.Converged {
 			res = r2
+		} else if r3, err3 := gibbs.Solve(sys.problem, gibbs.Options{MaxIterations: budget, Start: &res}); err3 == nil && r3.Converged {
+			res = r3
 		}
 	}
 	if err != nil {

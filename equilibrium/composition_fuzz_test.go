@@ -100,3 +100,36 @@ func majorPresent(c *Composition, r ReactionBalance) bool {
 	}
 	return true
 }
+
+// TestSolverInputsFromFuzz: feeds that once made gonum's simplex panic
+// inside the forced-zero search (a large carbonate charge with a little
+// steam, carbon or methane) are solved without an error, and the first one,
+// which once wandered off, converges through the retry from where the
+// first start ended.
+func TestSolverInputsFromFuzz(t *testing.T) {
+	n := loadText(t, fuzzNet)
+	mx := n.LookupMixture("feed")
+	for i, tc := range []struct {
+		T, P  float64
+		basis Basis
+		feed  [5]float64
+		conv  bool
+	}{
+		{1695.6, 6.7, BasisElements, [5]float64{0.6473222960062746, 0, 0, 0, 43.61920234756224}, true},
+		{2365.4306328542539, 71.98966494318114, BasisElements, [5]float64{0, 0.017450491916089713, 0, 0.0029376422232457807, 50.44294575482296}, false},
+		{2126.1899335526059, 0.0085283497040448096, BasisReactions, [5]float64{1.4718236413410232e-06, 8.191604448602734e-06, 0, 0, 0.1794813904418293}, false},
+		{888.12957446285372, 0.0103587545393779, BasisElements, [5]float64{0, 0, 4.3636912283867976e-05, 0, 0.29973583993308855}, false},
+	} {
+		for k := range mx.Members {
+			mx.Members[k].Amount.V = tc.feed[k]
+		}
+		c, diags, err := Equilibrate(n, mx, Options{T: tc.T, P: tc.P * 1e5, Basis: tc.basis})
+		if err != nil || len(diags) > 0 {
+			t.Errorf("case %d: %v %v", i, err, diags)
+			continue
+		}
+		if tc.conv && !c.Converged {
+			t.Errorf("case %d: not converged", i)
+		}
+	}
+}
