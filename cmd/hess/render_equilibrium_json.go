@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/json"
 	"io"
 
 	"hess/thermo"
@@ -78,13 +76,5 @@ func renderEquilibriumJSON(w io.Writer, doc *equilibriumDoc) error {
 		}
 		out.Results = append(out.Results, r)
 	}
-	var buf bytes.Buffer
-	enc := json.NewEncoder(&buf)
-	enc.SetEscapeHTML(false)
-	enc.SetIndent("", "  ")
-	if err := enc.Encode(out); err != nil {
-		return err
-	}
-	_, err := w.Write(buf.Bytes())
-	return err
+	return writeIndentedJSON(w, out, "JSON equilibrium")
 }
