@@ -278,3 +278,40 @@ mixture feed { temperature 700 K pressure 1 bar Ao(melt) 1 mol Ar(g) 1 mol }
 		within(t, basis.String()+" Ar", amount(t, c, "Ar(g)"), 1, 1e-12)
 	}
 }
+
+// TestReactionDataGivesMu: a species without data of its own takes part
+// through a reaction that carries its own ΔrH° and ΔrS°: its μ° is fitted
+// so that the reaction's ΔrG° holds (the least-squares rule), and the
+// isomerisation A ⇌ B ends at n_B/n_A = K = exp(−(ΔrH° − TΔrS°)/RT). A
+// second reaction to a third isomer with species data on both sides keeps
+// its own K. Invented data for the closed form (demo numbers).
+func TestReactionDataGivesMu(t *testing.T) {
+	n := mustLoad(t, `
+species Ao(g) { formula C2H6O hf -10 kJ/mol s 250 J/mol/K }
+species Bo(g) { formula C2H6O }
+species Co(g) { formula C2H6O hf -9 kJ/mol s 252 J/mol/K }
+reaction ab: Ao(g) <-> Bo(g) { dh -3 kJ/mol ds -2 J/mol/K }
+reaction ac: Ao(g) <-> Co(g)
+mixture feed { temperature 600 K pressure 1 bar Ao(g) 1 mol }
+`)
+	const T = 600.0
+	Kab := math.Exp(-(-3000 - T*(-2)) / (thermo.R * T))
+	Kac := math.Exp(-(1000 - T*2) / (thermo.R * T))
+	c := solve(t, n, "feed", Options{})
+	if !c.AdjustedMu {
+		t.Error("μ° of Bo(g) must be fitted to the reaction's data")
+	}
+	a := 1 / (1 + Kab + Kac)
+	within(t, "A", amount(t, c, "Ao(g)"), a, 1e-9)
+	within(t, "B", amount(t, c, "Bo(g)"), a*Kab, 1e-9)
+	within(t, "C", amount(t, c, "Co(g)"), a*Kac, 1e-9)
+	allReactionsAtEquilibrium(t, c)
+	// The elements basis knows no data for Bo(g) and leaves it out.
+	e := solve(t, n, "feed", Options{Basis: BasisElements})
+	for _, s := range e.Species {
+		if s.Species.Key == "Bo(g)" {
+			t.Errorf("elements basis: Bo(g) has no data at %g K and must not take part", T)
+		}
+	}
+	within(t, "elements basis C/A", amount(t, e, "Co(g)")/amount(t, e, "Ao(g)"), Kac, 1e-9)
+}
