@@ -1,6 +1,7 @@
 package gibbs
 
 import (
+	"fmt"
 	"math"
 
 	"gonum.org/v1/gonum/mat"
@@ -137,7 +138,7 @@ func (lpp *reachLP) rounds(possible []bool, point []float64, span *colSpan, fixe
 		if !any {
 			break
 		}
-		f, x, err := lp.Simplex(c, lpp.A, lpp.b, 1e-12, nil)
+		f, x, err := simplex(c, lpp.A, lpp.b)
 		if err != nil {
 			return found, false
 		}
@@ -237,4 +238,17 @@ func norm(v []float64) float64 {
 		s += x * x
 	}
 	return math.Sqrt(s)
+}
+
+// simplex is gonum's lp.Simplex with its panics (it panics, rather than
+// returning an error, on some nearly singular bases it builds itself)
+// turned into errors, so that the caller falls back to marking nothing
+// zero.
+func simplex(c []float64, A *mat.Dense, b []float64) (f float64, x []float64, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			f, x, err = 0, nil, fmt.Errorf("lp: %v", r)
+		}
+	}()
+	return lp.Simplex(c, A, b, 1e-12, nil)
 }

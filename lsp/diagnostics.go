@@ -11,7 +11,8 @@ import (
 // snapshot is what the last compile cycle knows, for answering requests:
 // the network each file belongs to.
 type snapshot struct {
-	nets map[string]*network.Network // by clean path of every file
+	nets  map[string]*network.Network // by clean path of every file
+	feeds map[*network.Network]*feedResults
 
 	mu    sync.Mutex
 	lines map[string]*lines // line indexes of compiled sources, by path

@@ -39,7 +39,7 @@ func (s *server) hover(ctx context.Context, req *jsonrpc2.Request) (any, error) 
 	case network.SymbolInclude:
 		includeHover(w, sym)
 	case network.SymbolMixture:
-		mixtureHover(w, t.net, sym)
+		mixtureHover(w, t.net, sym, t.snap.feedsOf(t.net))
 	default:
 		return nil, nil
 	}

@@ -12,7 +12,7 @@ import (
 // mixtureHover describes a mixture: its temperature and pressure, then per
 // reaction the numbers `hess approach` prints (Q, K, ΔrG, direction, the
 // temperature at which K would equal Q) and the summary line.
-func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
+func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol, feeds *feedResults) {
 	m := net.LookupMixture(sym.Name)
 	if m == nil {
 		w.text("mixture ")
@@ -20,6 +20,16 @@ func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
 		w.line()
 		return
 	}
+	if m.GivesAmounts() {
+		// A feed in mol is for equilibrium, not for quotients.
+		w.text("mixture ")
+		w.name(m.Name)
+		w.text(": a feed of %d species", len(m.Members))
+		w.line()
+		feedHover(w, m, feeds)
+		return
+	}
+	defer feedHover(w, m, feeds)
 	a := equilibrium.Approach(net, m)
 	w.text("mixture ")
 	w.name(m.Name)
@@ -77,4 +87,57 @@ func mixtureHover(w *hoverText, net *network.Network, sym network.Symbol) {
 	}
 	w.text("%s", s)
 	w.line()
+}
+
+// hoverSpecies is how many species a feed's hover lists.
+const hoverSpecies = 8
+
+// feedHover adds a feed's equilibrium composition at its own temperature
+// and pressure (reactions basis), as the worker solved it.
+func feedHover(w *hoverText, m *network.Mixture, feeds *feedResults) {
+	if !m.IsFeed() {
+		return
+	}
+	r, ok := feeds.get(m.Name)
+	switch {
+	case !ok && feeds.large():
+		w.text("equilibrium: the network is too large to solve for a hover; run hess equilibrium")
+		w.line()
+		return
+	case !ok:
+		w.text("equilibrium: being computed (hover again)")
+		w.line()
+		return
+	case r.err != nil:
+		w.text("equilibrium: the solver failed: %v", r.err)
+		w.line()
+		return
+	case r.comp == nil:
+		w.text("equilibrium: none")
+		if len(r.diags) > 0 {
+			w.text(": %s", r.diags[0].Message)
+		}
+		w.line()
+		return
+	}
+	c := r.comp
+	w.text("equilibrium at %s K, %s bar (reactions basis)", number(c.T, 6), number(c.P/1e5, 6))
+	if !c.Converged {
+		w.text(": NOT CONVERGED, the numbers are no equilibrium")
+	}
+	w.line()
+	for i, s := range c.Sorted() {
+		if i == hoverSpecies {
+			w.text("and %d more", len(c.Species)-hoverSpecies)
+			w.line()
+			break
+		}
+		w.name(s.Species.Key)
+		w.text(": %s mol, mole fraction %s", number(s.Amount, 5), number(s.MoleFraction, 4))
+		w.line()
+	}
+	if !math.IsNaN(c.Heat) {
+		w.text("heat from the feed at its temperature: %s kJ (%s kJ per mol of feed)", number(c.Heat/1000, 5), number(c.HeatPerMolFeed()/1000, 5))
+		w.line()
+	}
 }

@@ -40,6 +40,7 @@ type worker struct {
 
 	cur      atomic.Pointer[snapshot]
 	compiles atomic.Int64 // networks compiled (not reused) so far
+	solving  atomic.Bool  // a goroutine solves feeds for hovers
 
 	// beforeCompile, when set (by tests), runs before each compile.
 	beforeCompile func(root string)
@@ -47,8 +48,9 @@ type worker struct {
 
 // compiled is one root's network and the inputs it was compiled from.
 type compiled struct {
-	net *network.Network
-	key string
+	net   *network.Network
+	key   string
+	feeds *feedResults // equilibrium of its feeds, for hovers
 }
 
 // published is what a document's client last received.
@@ -175,7 +177,10 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 	// statements.
 	w.parsed.Retain(func(path string) bool { return owners[cleanPath(path)] != "" })
 
-	snap := &snapshot{nets: map[string]*network.Network{}, lines: map[string]*lines{}}
+	snap := &snapshot{nets: map[string]*network.Network{}, lines: map[string]*lines{}, feeds: map[*network.Network]*feedResults{}}
+	for _, r := range roots {
+		snap.feeds[r.net] = r.feeds
+	}
 	for p, root := range owners {
 		for _, r := range roots {
 			if cleanPath(r.net.Root) == root {
@@ -192,6 +197,7 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 	diags := collect(roots, snap, uriOf, w.s.encoding())
 	w.cur.Store(snap)
 	w.publish(ctx, conn, diags, open, uriOf, force)
+	w.solveFeeds(roots)
 }
 
 // chooseRoots compiles the networks whose diagnostics are published: each
@@ -328,7 +334,7 @@ func (w *worker) compile(path string, open map[string]document, src network.Sour
 		w.beforeCompile(path)
 	}
 	net := network.Load(path, src, network.Options{Caches: w.parsed, IncludePaths: w.s.includePaths()})
-	c = &compiled{net: net, key: inputKey(net, open)}
+	c = &compiled{net: net, key: inputKey(net, open), feeds: &feedResults{byName: map[string]feedResult{}}}
 	w.cache[path] = c
 	return c
 }

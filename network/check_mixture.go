@@ -23,8 +23,10 @@ convention needs: a gas a bare mole fraction (normalised over the mixture's
 gases) or a partial pressure such as 0.5 bar; a solute a molality such as
 0.01 mol/kg; a member of a solution phase a bare mole fraction from 0 to 1;
 a pure phase no number at all, which marks it present with activity 1.
-Amounts must be above zero (a species that is absent is left out, since a
-zero activity makes Q zero or infinite), a species is listed once, and a
+A feed gives amounts instead, in any phase: mol, kmol, g or kg (a mass
+through the formula's molar mass); they must not be negative nor all zero.
+Other amounts must be above zero (a species that is absent is left out,
+since a zero activity makes Q zero or infinite), a species is listed once, and a
 species needs its state tag: after a number the next word is read as its
 unit, so CO2 0.1 instead of CO2(g) 0.1 is reported here.`,
 }
@@ -47,8 +49,8 @@ var mixtureIncompleteCheck = &Check{
 	Doc: `a mixture lacks its temperature, its pressure or its members
 A mixture is evaluated at its own temperature, so it must give one. Gas mole
 fractions need the total pressure (pressure 25 bar) to become partial
-pressures; gases given as partial pressures do not. A mixture must list at
-least one species.`,
+pressures; gases given as partial pressures do not. A feed (amounts in mol)
+needs its pressure too. A mixture must list at least one species.`,
 }
 
 // runMixtureIncomplete is the Run of mixtureIncompleteCheck (set in init: it refers to the check).
@@ -67,7 +69,8 @@ var mixtureFractionsCheck = &Check{
 Gas mole fractions are normalised to sum to 1, so they must not all be
 zero. A mixture gives its gases either all as mole fractions or all as
 partial pressures, never both (the fractions would have no defined share of
-the pressure). Partial pressures may not sum to more than the mixture's
+the pressure). A feed gives every member as an amount (1 mol): amounts
+beside fractions, pressures or molalities have no common basis. Partial pressures may not sum to more than the mixture's
 total pressure, and the mole fractions of one solution phase may not sum to
 more than 1.`,
 }
@@ -96,8 +99,8 @@ equilibrium; the message names the species it lacks. Only hess approach
 reports it: a reaction need not appear in every mixture.`,
 	Run: func(p *Pass) {
 		for _, m := range p.Net.Mixtures {
-			if !m.Usable() {
-				continue
+			if !m.Usable() || m.GivesAmounts() {
+				continue // a feed is for hess equilibrium, not for quotients
 			}
 			var parts []string
 			for _, rx := range p.Net.Reactions {

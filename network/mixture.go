@@ -20,6 +20,7 @@ const (
 	AmountMolality                          // a solute molality, mol/kg
 	AmountSolution                          // a solution member's mole fraction
 	AmountPresent                           // a pure phase marked present (activity 1)
+	AmountMoles                             // an amount of substance, mol (a feed; any phase)
 )
 
 // mixture reads a mixture block: its temperature and pressure in SI, and
@@ -116,7 +117,7 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 		mm.Amount = &Value{V: v, Span: q.Span()}
 		if q.Unit != nil {
 			mm.Unit = q.Unit.Text
-			u, err := thermo.ParseUnit(q.Unit.Text)
+			u, err := parseAmountUnit(q.Unit.Text)
 			if err != nil {
 				c.unitNotUnit(q)
 				return mm, false
@@ -134,6 +135,9 @@ func (c *compiler) mixMember(mx *Mixture, m *lang.MixMember, seen map[*Species]l
 func (c *compiler) memberKind(mm *MixMember, m *lang.MixMember, unit thermo.Unit) bool {
 	sp, q := mm.Species, m.Amount
 	name := sp.Key
+	if q != nil && q.Unit != nil && (unit.Dim == dimAmountOfSubstance || unit.Dim == dimMassOnly) {
+		return c.feedAmount(mm, q, unit)
+	}
 	switch sp.Activity() {
 	case thermo.ActivityGas:
 		switch {

@@ -57,7 +57,7 @@ func (m *Mixture) TotalPressure() float64 {
 // the ideal model).
 // It is NaN when the member's amount is unusable.
 func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
-	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) {
+	if mm == nil || (mm.Amount == nil && mm.Kind != AmountPresent) || m.mixesMoles() {
 		return math.NaN()
 	}
 	switch mm.Kind {
@@ -79,6 +79,8 @@ func (m *Mixture) Activity(mm *MixMember, p0 float64) float64 {
 			return s.WaterActivity
 		}
 		return 1
+	case AmountMoles:
+		return m.moleActivity(mm, p0)
 	}
 	return math.NaN()
 }

@@ -34,6 +34,9 @@ func mixtureIncomplete(m *Mixture) []mixtureProblem {
 	if _, n := m.gasFractionSum(); n > 0 && !m.wroteP {
 		add("mixture %s gives gas mole fractions but no total pressure (such as pressure 25 bar)", m.Name)
 	}
+	if moles, _ := m.hasMoles(); moles > 0 && !m.wroteP {
+		add("mixture %s gives amounts but no pressure (such as pressure 25 bar): a feed is at a temperature and a pressure", m.Name)
+	}
 	if len(m.Members) == 0 && m.Valid {
 		add("mixture %s lists no species", m.Name)
 	}
@@ -75,6 +78,23 @@ func mixtureProblems(m *Mixture) []mixtureProblem {
 		out = append(out, mixtureProblem{mixtureFractionsCheck, m.Pressure.Span,
 			fmt.Sprintf("the partial pressures of mixture %s sum to %s bar, above its pressure %s bar", m.Name,
 				barText(partials), barText(m.Pressure.V))})
+	}
+	if moles, others := m.hasMoles(); moles > 0 && others > 0 {
+		out = append(out, mixtureProblem{mixtureFractionsCheck, m.NameSpan,
+			fmt.Sprintf("mixture %s gives %d species as amounts (mol) and %d otherwise: a feed gives every member as an amount, such as 1 mol", m.Name, moles, others)})
+	} else if moles > 0 {
+		total, invalid := 0.0, false
+		for _, mm := range m.Members {
+			if mm.Kind == AmountMoles {
+				total += mm.Amount.V
+			} else {
+				invalid = true
+			}
+		}
+		if !(total > 0) && !invalid {
+			out = append(out, mixtureProblem{mixtureAmountCheck, m.NameSpan,
+				fmt.Sprintf("the amounts of mixture %s sum to 0 mol: a feed needs something to feed", m.Name)})
+		}
 	}
 	solution := map[string]float64{}
 	for _, mm := range m.Members {

@@ -82,7 +82,12 @@ func approachDocument(root, name string, opts network.Options, stderr io.Writer)
 		fmt.Fprintf(stderr, "hess approach: %s has errors; no output written\n", displayName(root))
 		return nil, exitFindings
 	}
-	mixtures := net.Mixtures
+	var mixtures []*network.Mixture
+	for _, m := range net.Mixtures {
+		if !m.GivesAmounts() { // feeds are for hess equilibrium
+			mixtures = append(mixtures, m)
+		}
+	}
 	if name != "" {
 		m := net.LookupMixture(name)
 		if m == nil {

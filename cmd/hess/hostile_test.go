@@ -295,3 +295,46 @@ func TestHostilePlotSize(t *testing.T) {
 	expectRun(t, runBounded(t, dir, "", "", "plot", "--size", "100cmx100cm", "--dpi", "1200", "-o", "huge.png", net),
 		exitTrouble, "would have 2232 million pixels")
 }
+
+// Hostile feeds: each ends quickly, in bounded memory, with numbers or a
+// clear refusal, never a crash.
+func TestHostileFeeds(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	const gases = `species CO(g) { hf -110.527 kJ/mol s 197.653 J/mol/K }
+species H2O(g) { hf -241.826 kJ/mol s 188.834 J/mol/K }
+species CO2(g) { hf -393.522 kJ/mol s 213.795 J/mol/K }
+species H2(g) { hf 0 kJ/mol s 130.680 J/mol/K }
+reaction shift: CO(g) + H2O(g) <-> CO2(g) + H2(g)
+`
+	for _, tc := range []struct {
+		name, src string
+		args      []string
+		code      int
+		want      []string
+	}{
+		{"amounts near the float limit", gases + "mixture feed { temperature 800 K pressure 1 bar CO(g) 1e300 mol H2O(g) 1e-300 mol }\n",
+			nil, exitOK, []string{"feed at 800 K"}},
+		{"extreme temperature and pressure", gases + "mixture feed { temperature 800 K pressure 1 bar CO(g) 1 mol H2O(g) 1 mol }\n",
+			[]string{"--temperatures", "9000 K", "--pressure", "1e9 Pa"}, exitOK, []string{"feed at 9000 K"}},
+		{"sweep past the result cap", gases + "mixture feed { temperature 800 K pressure 1 bar CO(g) 1 mol H2O(g) 1 mol }\n" +
+			"mixture feed2 { temperature 800 K pressure 1 bar CO(g) 1 mol H2O(g) 1 mol }\nmixture feed3 { temperature 800 K pressure 1 bar CO(g) 1 mol }\n",
+			[]string{"--temperatures", "300 K to 1299.9 K by 0.1 K"}, exitTrouble, []string{"at most 20000"}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			dir := t.TempDir()
+			writeFile(t, filepath.Join(dir, "net.hess"), tc.src, 0o644)
+			args := append(append([]string{"equilibrium"}, tc.args...), "net.hess")
+			r := runBounded(t, dir, "", "", args...)
+			if r.code != tc.code {
+				t.Errorf("exit %d, want %d\n%s%s", r.code, tc.code, r.stdout, r.stderr)
+			}
+			for _, w := range tc.want {
+				if !strings.Contains(r.stdout+r.stderr, w) {
+					t.Errorf("want %q in\n%s%s", w, r.stdout, r.stderr)
+				}
+			}
+		})
+	}
+}

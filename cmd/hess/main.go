@@ -35,6 +35,7 @@ func commands() []command {
 		{"check", "compile networks and report diagnostics", runCheck},
 		{"table", "print K(T) tables of a network's reactions", runTable},
 		{"approach", "show how far each mixture is from equilibrium", runApproach},
+		{"equilibrium", "bring each feed to chemical equilibrium", runEquilibrium},
 		{"plot", "draw a van 't Hoff plot of a network's reactions", runPlot},
 		{"fmt", "print files in the canonical layout", runFmt},
 		{"watch", "check again (and rebuild a table) whenever the files change", runWatch},

@@ -23,7 +23,8 @@ import (
 const plotSamples = 240
 
 func runPlot(args []string, stdout, stderr io.Writer) int {
-	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] [--size WxH] [--dpi N] -o OUT.svg|OUT.png [--include-path DIR]... FILE",
+	fs := newFlags("plot", "plot [--reaction NAME]... [--temperatures LIST] [--size WxH] [--dpi N] -o OUT.svg|OUT.png [--include-path DIR]... FILE\n"+
+		"       hess plot --equilibrium --mixture NAME [--temperatures LIST] [--pressure P] [--elements] [--log] [--size WxH] [--dpi N] -o OUT.svg|OUT.png FILE",
 		"Draw a van 't Hoff plot: log10 K against 1000 K/T, one line per reaction\n"+
 			"(every reaction, or those named), over the span of the settings'\n"+
 			"temperatures or those of --temperatures, with ticks at round temperatures.\n"+
@@ -32,6 +33,9 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 			"range are dashed; a dot shows each temperature where K = 1. The legend\n"+
 			"stands beside the plot. The format follows the output's extension: .svg or\n"+
 			".png. The file is written atomically.\n\n"+
+			"With --equilibrium, draw the equilibrium composition of the feed --mixture\n"+
+			"(see hess equilibrium) against T: each species' mole fraction in its phase\n"+
+			"(log10 of it with --log), at 60 temperatures over the same span.\n\n"+
 			cautionText, stderr)
 	temps := fs.String("temperatures", "", "span of temperatures to draw, e.g. \"600 K to 1200 K by 100 K\"")
 	var names nameList
@@ -40,6 +44,11 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 	out := fs.String("o", "", "write the plot to `FILE` (.svg or .png)")
 	sizeText := fs.String("size", "16cmx11cm", "the plot's `WxH` on the page, in cm, mm, in or pt (\"16cmx10cm\", \"6.5x4in\")")
 	dpi := fs.Int("dpi", defaultPlotDPI, "PNG resolution in dots per inch (30 to 1200); the PNG is WxH times this")
+	eqPlot := fs.Bool("equilibrium", false, "draw a feed's equilibrium composition against T")
+	mixture := fs.String("mixture", "", "with --equilibrium: the feed mixture `NAME`")
+	logScale := fs.Bool("log", false, "with --equilibrium: draw log10 of the mole fractions")
+	pressure := fs.String("pressure", "", "with --equilibrium: pressure instead of the mixture's, e.g. \"25 bar\"")
+	elements := fs.Bool("elements", false, "with --equilibrium: let every species with data form")
 	files, status, ok := parseFlags(fs, args, stdout)
 	if !ok {
 		return status
@@ -70,6 +79,10 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 			fmt.Fprintf(stderr, "hess plot: %v\n", err)
 			return exitTrouble
 		}
+	}
+	if *eqPlot {
+		return runEquilibriumPlot(equilibriumPlotRequest{root: files[0], mixture: *mixture, temps: *temps, pressure: *pressure,
+			elements: *elements, log: *logScale, out: *out, format: format, size: size, includes: *includes}, stderr)
 	}
 	doc, status := tabulate("plot", files[0], *temps, names, *includes, stderr)
 	if doc == nil {
