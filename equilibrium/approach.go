@@ -108,7 +108,7 @@ func (a AbsentReaction) Reason() string {
 	if !a.Reaction.Resolved {
 		return "some species of the reaction are undeclared"
 	}
-	return "the mixture lacks " + speciesList(a.Lacking)
+	return "the mixture lacks " + SpeciesList(a.Lacking)
 }
 
 // Reason says why a reaction has no direction in the mixture ("" where it
@@ -117,11 +117,12 @@ func (r ReactionApproach) Reason(T float64) string {
 	if r.Direction != DirectionUnknown {
 		return ""
 	}
-	return "K cannot be computed at " + strconv.FormatFloat(math.Round(T*100)/100, 'f', -1, 64) + " K (no data for " + speciesList(r.Missing) + ")"
+	return "K cannot be computed at " + strconv.FormatFloat(math.Round(T*100)/100, 'f', -1, 64) + " K (no data for " + SpeciesList(r.Missing) + ")"
 }
 
-// speciesList names species, separated by commas.
-func speciesList(sps []*network.Species) string {
+// SpeciesList names species by key, separated by commas ("some species"
+// for none), as messages and reports write them.
+func SpeciesList(sps []*network.Species) string {
 	if len(sps) == 0 {
 		return "some species"
 	}

@@ -9,7 +9,6 @@ import (
 	"unicode/utf8"
 
 	"hess/equilibrium"
-	"hess/network"
 )
 
 // approachColumn is one column of the text, CSV and Markdown approach
@@ -104,17 +103,6 @@ func approachNotes(a *equilibrium.MixtureApproach) []string {
 		notes = append(notes, approachConvention)
 	}
 	return notes
-}
-
-func speciesNames(sps []*network.Species) string {
-	if len(sps) == 0 {
-		return "some species"
-	}
-	names := make([]string, len(sps))
-	for i, sp := range sps {
-		names[i] = sp.Key
-	}
-	return strings.Join(names, ", ")
 }
 
 // renderApproachText writes each mixture for a person: a heading, the
