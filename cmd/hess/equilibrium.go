@@ -143,6 +143,9 @@ type equilibriumDoc struct {
 	Network  string
 	Pressure float64 // p°, Pa
 	Results  []*equilibrium.Composition
+	// Aqueous are the results of aqueous feeds (equilibrium.IsAqueousFeed),
+	// written after the others.
+	Aqueous []*aqueousRun
 
 	net *network.Network
 }
@@ -179,7 +182,7 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 	}
 	if len(req.names) == 0 {
 		for _, m := range net.Mixtures {
-			if m.IsFeed() {
+			if m.IsFeed() || equilibrium.IsAqueousFeed(net, m) {
 				mixtures = append(mixtures, m)
 			}
 		}
@@ -194,11 +197,23 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		return nil, exitTrouble
 	}
 	doc := &equilibriumDoc{Network: displayName(req.root), Pressure: net.StandardPressure(), net: net}
-	var bad lang.Diagnostics
+	var bad, warnings lang.Diagnostics
 	for _, m := range mixtures {
 		temps := req.temps
 		if temps == nil || req.adiabatic {
 			temps = []float64{0}
+		}
+		if equilibrium.IsAqueousFeed(net, m) || m.HasFixed() {
+			for _, T := range temps {
+				run, ds := equilibrateAqueous(net, m, req, T)
+				if ds.HasErrors() {
+					bad = append(bad, ds...)
+					break
+				}
+				warnings = append(warnings, ds...)
+				doc.Aqueous = append(doc.Aqueous, run)
+			}
+			continue
 		}
 		var prev *equilibrium.Composition
 		for _, T := range temps {
@@ -222,6 +237,10 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		fmt.Fprintf(stderr, "hess equilibrium: %s has feeds that cannot be brought to equilibrium; no output written\n", displayName(req.root))
 		return nil, exitFindings
 	}
+	if len(warnings) > 0 {
+		diags = append(append(lang.Diagnostics{}, diags...), warnings...)
+		diags.Sort()
+	}
 	if !report(diags) {
 		return nil, exitTrouble
 	}
@@ -230,6 +249,13 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		if !c.Converged {
 			fmt.Fprintf(stderr, "hess equilibrium: mixture %s at %s did not converge (element residual %.3g, stationarity %.3g); its numbers are not an equilibrium\n",
 				c.Mixture.Name, kelvinText(c.T), c.ElementResidual, c.Stationarity)
+			status = exitFindings
+		}
+	}
+	for _, r := range doc.Aqueous {
+		if !r.Converged {
+			fmt.Fprintf(stderr, "hess equilibrium: mixture %s at %s did not converge (element residual %.3g); its numbers are not an equilibrium\n",
+				r.Mixture.Name, kelvinText(r.T), r.ElementResidual)
 			status = exitFindings
 		}
 	}
