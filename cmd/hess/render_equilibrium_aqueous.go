@@ -172,3 +172,31 @@ func gammaText(v float64) string {
 	}
 	return fixed(v, 6)
 }
+
+// writeAqueousMarkdown writes one aqueous result as a Markdown section.
+func writeAqueousMarkdown(b *strings.Builder, r *aqueousRun, p0 float64) {
+	fmt.Fprintf(b, "\n## %s\n\n", mdEscape(aqueousHeading(r)))
+	for _, l := range aqueousSummary(r) {
+		fmt.Fprintf(b, "- %s\n", mdEscape(l))
+	}
+	b.WriteString("\n| species | phase | amount [mol] | mole fraction | activity | molality [mol/kg] | activity coefficient |\n|---|---|---:|---:|---:|---:|---:|\n")
+	for _, s := range aqueousRows(r, p0) {
+		fmt.Fprintf(b, "| %s | %s | %s | %s | %s | %s | %s |\n", mdEscape(s.Name), mdEscape(s.Phase), amountText(s.Amount),
+			amountText(s.MoleFraction), amountText(s.Activity), molalityText(s.Molality), gammaText(s.ActivityCoefficient))
+	}
+	if len(r.Minerals) > 0 {
+		b.WriteString("\n| mineral | present | amount [mol] | saturation index log10(Q/K) |\n|---|---|---:|---:|\n")
+		for _, m := range r.Minerals {
+			fmt.Fprintf(b, "| %s | %s | %s | %s |\n", mdEscape(m.Species.Key), presentText(m.Present), amountText(m.Amount), siText(m.SI))
+		}
+	}
+	if fixedGases(r) {
+		b.WriteString("\n| fixed gas | pressure [bar] | taken in [mol] |\n|---|---:|---:|\n")
+		for _, g := range r.Gases {
+			if g.Fixed {
+				fmt.Fprintf(b, "| %s | %s | %s |\n", mdEscape(g.Species.Key), sigText(barOf(g.Pressure)), amountText(g.Taken))
+			}
+		}
+		b.WriteString("\nTaken in: drawn from the gas's reservoir into the system; negative where the system gives it off.\n")
+	}
+}
