@@ -192,6 +192,16 @@ func SolveAqueous(n *network.Network, sys AqueousSystem) (*AqueousResult, error)
 	if err != nil {
 		return nil, fmt.Errorf("%w: %v", ErrAqueous, err)
 	}
+	if !res.Converged {
+		// As Equilibrate does: from cold with a larger budget, then from
+		// where the first try ended.
+		budget := retryIterations(len(kept))
+		if r2, err2 := gibbs.Solve(prob, gibbs.Options{MaxIterations: budget}); err2 == nil && r2.Converged {
+			res = r2
+		} else if r3, err3 := gibbs.Solve(prob, gibbs.Options{MaxIterations: budget, Start: &res}); err3 == nil && r3.Converged {
+			res = r3
+		}
+	}
 	return aqueousResult(kept, prob, res, sys, P, p0, model, params, skipped), nil
 }
 

@@ -56,7 +56,7 @@ type Composition struct {
 	// Extrapolated are the species whose data, which state no range, were
 	// carried beyond their default span (298.15 K ± 100 K) to T.
 	Extrapolated []*network.Species
-	Phases     []PhaseAmount
+	Phases       []PhaseAmount
 	// Species are in the order of the calculation (feed first); sort them
 	// for display.
 	Species   []SpeciesAmount

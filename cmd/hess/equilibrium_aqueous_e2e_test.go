@@ -67,7 +67,7 @@ func TestEquilibriumAqueousEndToEnd(t *testing.T) {
 			}
 			if s.Phase == "aq" && s.Name != "H2O(l)" {
 				solutes++
-				if s.Molality == nil || s.Gamma == nil || math.Abs(*s.Gamma**s.Molality / *s.Activity-1) > 1e-6 {
+				if s.Molality == nil || s.Gamma == nil || math.Abs(*s.Gamma**s.Molality / *s.Activity - 1) > 1e-6 {
 					t.Errorf("%s: %s: molality, γ and activity disagree", res.Mixture, s.Name)
 				}
 			}
