@@ -24,6 +24,12 @@ const equilibriumHelp = "Bring each feed of the network (every mixture that give
 	"with data at T may form, constrained only by element and charge balance.\n" +
 	"Phases: one ideal gas, pure condensed phases (present or absent), ideal\n" +
 	"solutions, and dilute ideal aqueous solutes in H2O(l).\n\n" +
+	"A feed with water as solvent (H2O(l) 1 kg, solutes and minerals in mol) in a\n" +
+	"network with aq species, or open to a gas held fixed (CO2(g) 0.0004 bar\n" +
+	"fixed), is solved as a solution: the network's activity model, pH, ionic\n" +
+	"strength, molality and activity coefficient per solute, each mineral's\n" +
+	"saturation index and what each fixed gas exchanged (element basis; no\n" +
+	"--adiabatic).\n\n" +
 	"--adiabatic holds the enthalpy instead of the temperature: the result is at\n" +
 	"the temperature where the products have the feed's enthalpy at its own\n" +
 	"temperature (adiabatic reaction or flame temperature). Each result gives the\n" +
