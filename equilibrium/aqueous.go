@@ -8,6 +8,7 @@ import (
 	"hess/aqueous"
 	"hess/gibbs"
 	"hess/network"
+	"hess/thermo"
 )
 
 // WaterMolarMass is M_w of H2O in kg/mol (CIAAW 2021 conventional atomic
@@ -114,6 +115,9 @@ func (r *AqueousResult) Mineral(sp *network.Species) (MineralSaturation, bool) {
 // ErrAqueous wraps every error about an aqueous system that cannot be set up.
 var ErrAqueous = errors.New("aqueous equilibrium")
 
+// ErrNoSolvent also wraps the error of a system without water.
+var ErrNoSolvent = errors.New("no solvent")
+
 // SolveAqueous finds the equilibrium of an aqueous system by minimising its
 // Gibbs energy (package gibbs) over water, the solutes, the pure phases and
 // a gas phase, with element and charge balances, the fixed gases held at
@@ -188,13 +192,53 @@ func SolveAqueous(n *network.Network, sys AqueousSystem) (*AqueousResult, error)
 	if err != nil {
 		return nil, fmt.Errorf("%w: %v", ErrAqueous, err)
 	}
+	if !res.Converged {
+		// As Equilibrate does: from cold with a larger budget, then from
+		// where the first try ended.
+		budget := retryIterations(len(kept))
+		if r2, err2 := gibbs.Solve(prob, gibbs.Options{MaxIterations: budget}); err2 == nil && r2.Converged {
+			res = r2
+		} else if r3, err3 := gibbs.Solve(prob, gibbs.Options{MaxIterations: budget, Start: &res}); err3 == nil && r3.Converged {
+			res = r3
+		}
+	}
 	return aqueousResult(kept, prob, res, sys, P, p0, model, params, skipped), nil
 }
 
-// AqueousFromMixture reads a mixture as an aqueous system: 1 kg of the
-// water it lists, each solute's molality as mol in that kilogram, each
-// pure phase it lists present (1 mol, an excess for most demos), its fixed
-// gases at their partial pressures and its temperature and pressure.
+// IsAqueousFeed reports whether a feed goes to SolveAqueous rather than to
+// Equilibrate: it is open to a gas held at a fixed partial pressure, or it
+// lists water, H2O(l), in a network that declares aq solutes. Such a feed
+// is a solution with the network's activity model, its pH and its
+// minerals' saturation; any other feed keeps ideal dilute solutes.
+func IsAqueousFeed(n *network.Network, m *network.Mixture) bool {
+	if !m.IsFeed() {
+		return false
+	}
+	if m.HasFixed() {
+		return true
+	}
+	water := false
+	for _, mm := range m.Members {
+		water = water || mm.Species.IsWater()
+	}
+	if !water {
+		return false
+	}
+	for _, sp := range n.Species {
+		if sp.Activity() == thermo.ActivitySolute {
+			return true
+		}
+	}
+	return false
+}
+
+// AqueousFromMixture reads a mixture as an aqueous system. Water given as
+// an amount (H2O(l) 1 kg, or in mol) is that much water; listed without a
+// number it is 1 kg. Amounts in mol (or a mass) are fed as they are:
+// solutes, minerals, gases. A solute given as a molality is that many mol
+// in 1 kg; a pure phase listed without a number is present, 1 mol (an
+// excess for most demos). Fixed gases are held at their partial pressures;
+// the temperature and pressure are the mixture's.
 func AqueousFromMixture(n *network.Network, m *network.Mixture) (AqueousSystem, error) {
 	if !m.Usable() {
 		return AqueousSystem{}, fmt.Errorf("%w: mixture %s has mistakes", ErrAqueous, m.Name)
@@ -203,14 +247,22 @@ func AqueousFromMixture(n *network.Network, m *network.Mixture) (AqueousSystem, 
 	if m.Pressure != nil {
 		sys.P = m.Pressure.V
 	}
+	water, molalities := false, false
 	for i := range m.Members {
 		mm := &m.Members[i]
 		switch {
+		case mm.Species.IsWater() && mm.Kind == network.AmountMoles:
+			water = true
+			sys.WaterKg += mm.Amount.V * WaterMolarMass
 		case mm.Species.IsWater():
-			sys.WaterKg = 1
+			water = true
+			sys.WaterKg += 1
 		case mm.Fixed && mm.Kind == network.AmountPartialPressure:
 			sys.Fixed[mm.Species] = mm.Amount.V
+		case mm.Kind == network.AmountMoles:
+			sys.Feed[mm.Species] += mm.Amount.V
 		case mm.Kind == network.AmountMolality:
+			molalities = true
 			sys.Feed[mm.Species] += mm.Amount.V // mol in 1 kg
 		case mm.Kind == network.AmountPresent:
 			sys.Feed[mm.Species] += 1
@@ -218,8 +270,11 @@ func AqueousFromMixture(n *network.Network, m *network.Mixture) (AqueousSystem, 
 			return AqueousSystem{}, fmt.Errorf("%w: mixture %s: %s is neither water, a solute, a pure phase nor a fixed gas", ErrAqueous, m.Name, mm.Species.Key)
 		}
 	}
-	if sys.WaterKg == 0 {
-		return AqueousSystem{}, fmt.Errorf("%w: mixture %s lists no H2O(l)", ErrAqueous, m.Name)
+	if !water {
+		return AqueousSystem{}, fmt.Errorf("%w: %w: mixture %s lists no H2O(l): a solution needs water as its solvent, such as H2O(l) 1 kg", ErrAqueous, ErrNoSolvent, m.Name)
+	}
+	if molalities && sys.WaterKg != 1 {
+		return AqueousSystem{}, fmt.Errorf("%w: mixture %s gives molalities beside %g kg of water: give the solutes in mol", ErrAqueous, m.Name, sys.WaterKg)
 	}
 	return sys, nil
 }

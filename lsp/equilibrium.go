@@ -94,7 +94,7 @@ func (r *compiled) solveFeeds(done <-chan struct{}) {
 	}
 	n := 0
 	for _, m := range net.Mixtures {
-		if !m.IsFeed() {
+		if !m.IsFeed() || m.HasFixed() { // a solution open to a reservoir: hess equilibrium
 			continue
 		}
 		if n++; n > maxHoverFeeds {

@@ -98,6 +98,11 @@ func feedHover(w *hoverText, m *network.Mixture, feeds *feedResults) {
 	if !m.IsFeed() {
 		return
 	}
+	if m.HasFixed() {
+		w.text("equilibrium: a solution open to a fixed gas; hess equilibrium gives its pH and speciation")
+		w.line()
+		return
+	}
 	r, ok := feeds.get(m.Name)
 	switch {
 	case !ok && feeds.large():

@@ -132,3 +132,27 @@ func TestHoverFeedTooLarge(t *testing.T) {
 		t.Errorf("hover over a feed of a large network:\n%s", got)
 	}
 }
+
+// TestHoverFeedOpenToGas: a feed open to a gas held fixed is a solution
+// that hess equilibrium solves with the network's activity model; the
+// hover says so instead of offering the ideal feed path, which refuses it.
+func TestHoverFeedOpenToGas(t *testing.T) {
+	dir := t.TempDir()
+	uri := fileURI(dir, "pond.hess")
+	text := `species H2O(l) { gf -237.129 kJ/mol }
+species H+(aq) { gf 0 kJ/mol }
+species CO2(g) { gf -394.359 kJ/mol }
+species CaCO3(cr) { gf -1128.79 kJ/mol }
+mixture pond { temperature 298.15 K pressure 1 atm H2O(l) 1 kg CaCO3(cr) 0.01 mol CO2(g) 0.0004 atm fixed }
+`
+	c := startServer(t, Options{})
+	var res InitializeResult
+	c.mustCall("initialize", map[string]any{"capabilities": map[string]any{}}, &res)
+	c.open(uri, text, 1)
+	c.waitDiagnostics(uri, atVersion(1))
+	var h *Hover
+	c.mustCall("textDocument/hover", TextDocumentPositionParams{TextDocument: TextDocumentIdentifier{URI: uri}, Position: pos(4, 10)}, &h)
+	if h == nil || !strings.Contains(h.Contents.Value, "hess equilibrium gives its pH") || strings.Contains(h.Contents.Value, "no feed") {
+		t.Errorf("hover over a feed open to a fixed gas:\n%+v", h)
+	}
+}

@@ -58,29 +58,38 @@ func (c *compiler) feedAmount(mm *MixMember, q *lang.Quantity, unit thermo.Unit)
 // IsFeed reports whether the mixture can be fed to an equilibrium
 // calculation: every member gives an amount in mol (or a mass), or every
 // member is a gas given as a mole fraction or a partial pressure (a feed
-// of 1 mol in all).
+// of 1 mol in all). Beside amounts, gases held at a fixed partial pressure
+// are reservoirs the feed is open to, not part of it (an aqueous feed).
 func (m *Mixture) IsFeed() bool {
 	if m == nil || len(m.Members) == 0 {
 		return false
 	}
-	moles, gas := 0, 0
+	moles, gas, fixed := 0, 0, 0
 	for _, mm := range m.Members {
-		switch mm.Kind {
-		case AmountMoles:
+		switch {
+		case mm.Kind == AmountMoles:
 			moles++
-		case AmountFraction, AmountPartialPressure:
+		case mm.Fixed && mm.Kind == AmountPartialPressure:
+			fixed++
+			gas++
+		case mm.Kind == AmountFraction, mm.Kind == AmountPartialPressure:
 			gas++
 		}
 	}
-	return moles == len(m.Members) || gas == len(m.Members)
+	return moles == len(m.Members) || gas == len(m.Members) || (moles > 0 && moles+fixed == len(m.Members))
 }
 
+// HasFixed reports whether the mixture holds a member at a fixed partial
+// pressure (open to a reservoir).
+func (m *Mixture) HasFixed() bool { return m.hasFixed() }
+
 // FeedAmounts returns the amount of each member in mol when the mixture is
-// a feed (nil otherwise): amounts as given, or for a gas mixture its mole
+// a feed of amounts or of gases alone (nil otherwise, and for a feed open
+// to a fixed reservoir, which only an aqueous equilibrium reads): amounts as given, or for a gas mixture its mole
 // fractions (or partial pressures) scaled to 1 mol in all. The order is the
 // members' order.
 func (m *Mixture) FeedAmounts() []float64 {
-	if !m.IsFeed() {
+	if !m.IsFeed() || m.hasFixed() {
 		return nil
 	}
 	out := make([]float64, len(m.Members))
@@ -111,6 +120,10 @@ func (m *Mixture) hasMoles() (moles, others int) {
 			moles++
 		case AmountInvalid:
 			// reported where it was read
+		case AmountPartialPressure:
+			if !mm.Fixed { // a fixed gas is a reservoir, not a member fed
+				others++
+			}
 		default:
 			others++
 		}

@@ -24,6 +24,12 @@ const equilibriumHelp = "Bring each feed of the network (every mixture that give
 	"with data at T may form, constrained only by element and charge balance.\n" +
 	"Phases: one ideal gas, pure condensed phases (present or absent), ideal\n" +
 	"solutions, and dilute ideal aqueous solutes in H2O(l).\n\n" +
+	"A feed with water as solvent (H2O(l) 1 kg, solutes and minerals in mol) in a\n" +
+	"network with aq species, or open to a gas held fixed (CO2(g) 0.0004 bar\n" +
+	"fixed), is solved as a solution: the network's activity model, pH, ionic\n" +
+	"strength, molality and activity coefficient per solute, each mineral's\n" +
+	"saturation index and what each fixed gas exchanged (element basis; no\n" +
+	"--adiabatic).\n\n" +
 	"--adiabatic holds the enthalpy instead of the temperature: the result is at\n" +
 	"the temperature where the products have the feed's enthalpy at its own\n" +
 	"temperature (adiabatic reaction or flame temperature). Each result gives the\n" +
@@ -143,6 +149,9 @@ type equilibriumDoc struct {
 	Network  string
 	Pressure float64 // p°, Pa
 	Results  []*equilibrium.Composition
+	// Aqueous are the results of aqueous feeds (equilibrium.IsAqueousFeed),
+	// written after the others.
+	Aqueous []*aqueousRun
 
 	net *network.Network
 }
@@ -179,7 +188,7 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 	}
 	if len(req.names) == 0 {
 		for _, m := range net.Mixtures {
-			if m.IsFeed() {
+			if m.IsFeed() || equilibrium.IsAqueousFeed(net, m) {
 				mixtures = append(mixtures, m)
 			}
 		}
@@ -194,11 +203,23 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		return nil, exitTrouble
 	}
 	doc := &equilibriumDoc{Network: displayName(req.root), Pressure: net.StandardPressure(), net: net}
-	var bad lang.Diagnostics
+	var bad, warnings lang.Diagnostics
 	for _, m := range mixtures {
 		temps := req.temps
 		if temps == nil || req.adiabatic {
 			temps = []float64{0}
+		}
+		if equilibrium.IsAqueousFeed(net, m) || m.HasFixed() {
+			for _, T := range temps {
+				run, ds := equilibrateAqueous(net, m, req, T)
+				if ds.HasErrors() {
+					bad = append(bad, ds...)
+					break
+				}
+				warnings = append(warnings, ds...)
+				doc.Aqueous = append(doc.Aqueous, run)
+			}
+			continue
 		}
 		var prev *equilibrium.Composition
 		for _, T := range temps {
@@ -222,6 +243,10 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		fmt.Fprintf(stderr, "hess equilibrium: %s has feeds that cannot be brought to equilibrium; no output written\n", displayName(req.root))
 		return nil, exitFindings
 	}
+	if len(warnings) > 0 {
+		diags = append(append(lang.Diagnostics{}, diags...), warnings...)
+		diags.Sort()
+	}
 	if !report(diags) {
 		return nil, exitTrouble
 	}
@@ -230,6 +255,13 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		if !c.Converged {
 			fmt.Fprintf(stderr, "hess equilibrium: mixture %s at %s did not converge (element residual %.3g, stationarity %.3g); its numbers are not an equilibrium\n",
 				c.Mixture.Name, kelvinText(c.T), c.ElementResidual, c.Stationarity)
+			status = exitFindings
+		}
+	}
+	for _, r := range doc.Aqueous {
+		if !r.Converged {
+			fmt.Fprintf(stderr, "hess equilibrium: mixture %s at %s did not converge (element residual %.3g); its numbers are not an equilibrium\n",
+				r.Mixture.Name, kelvinText(r.T), r.ElementResidual)
 			status = exitFindings
 		}
 	}

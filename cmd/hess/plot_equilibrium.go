@@ -92,6 +92,9 @@ func runEquilibriumPlot(r equilibriumPlotRequest, stderr io.Writer) int {
 // against T, one line per species that is present somewhere in the span;
 // results that did not converge are left out.
 func renderEquilibriumPlot(doc *equilibriumDoc, logScale bool, format string, size plotSize) ([]byte, error) {
+	if len(doc.Results) == 0 && len(doc.Aqueous) > 0 {
+		return nil, fmt.Errorf("no results to plot: aqueous feeds (%s) are not plotted; hess equilibrium shows them", doc.Aqueous[0].Mixture.Name)
+	}
 	if len(doc.Results) == 0 {
 		return nil, fmt.Errorf("no results to plot")
 	}

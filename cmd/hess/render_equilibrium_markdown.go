@@ -32,6 +32,9 @@ func renderEquilibriumMarkdown(w io.Writer, doc *equilibriumDoc) error {
 			}
 		}
 	}
+	for _, r := range doc.Aqueous {
+		writeAqueousMarkdown(&b, r, doc.Pressure)
+	}
 	fmt.Fprintf(&b, "\n%s\n", equilibriumCaution)
 	_, err := io.WriteString(w, b.String())
 	return err

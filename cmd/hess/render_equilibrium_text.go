@@ -51,6 +51,9 @@ func renderEquilibriumText(w io.Writer, doc *equilibriumDoc) error {
 			tw.Flush()
 		}
 	}
+	for _, r := range doc.Aqueous {
+		writeAqueousText(&b, r, doc.Pressure)
+	}
 	fmt.Fprintf(&b, "\n%s\n", equilibriumCaution)
 	lines := strings.Split(b.String(), "\n")
 	for i, l := range lines {
