@@ -107,13 +107,13 @@ func (s *KSet) at(c *ReactionK, T float64) (point, bool) {
 // as such a coupled reaction in turn) and add up to c's own equation: then
 // ΔrG° from c's species is its parts' sum, up to rounding.
 func (c *ReactionK) addsUpFromSpecies() bool {
-	if !c.partsOK || !c.absOK || !c.own.empty() {
+	if !c.partsOK || !c.absOK || c.own.has() {
 		return false
 	}
 	sum := map[*Species]*big.Rat{}
 	for i, ct := range c.rx.Combo {
 		p := c.parts[i]
-		if !p.own.empty() || !p.absOK || (p.partsOK && !p.flat) {
+		if p.own.has() || !p.absOK || (p.partsOK && !p.flat) {
 			return false
 		}
 		for _, t := range p.terms {

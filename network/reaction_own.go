@@ -277,8 +277,3 @@ func (f *LogKFit) Sigma(T float64) float64 {
 	}
 	return math.Sqrt(math.Max(v, 0))
 }
-
-// empty reports whether the reaction has no own data at all.
-func (o *ownK) empty() bool {
-	return len(o.rx.LogK) == 0 && o.fit == nil && !o.linOK && o.rx.Dg == nil
-}
