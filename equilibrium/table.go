@@ -43,7 +43,52 @@ func ReactionTable(n *network.Network, rx *network.Reaction, temps []float64) *T
 	if rx == nil {
 		return nil
 	}
-	k := n.ReactionK(rx)
+	return tableFor(n.ReactionK(rx), rx, temps)
+}
+
+// A Tabulator computes the tables of many reactions of one network at the
+// same temperatures, sharing the parts of coupled reactions between them
+// (network.KSet): a chain of coupled reactions costs in proportion to its
+// length. Not safe for concurrent use; each goroutine takes its own.
+type Tabulator struct {
+	ks    *network.KSet
+	temps []float64
+}
+
+// NewTabulator returns a Tabulator for n's reactions at temps (K).
+func NewTabulator(n *network.Network, temps []float64) *Tabulator {
+	return &Tabulator{ks: n.NewKSet(temps), temps: temps}
+}
+
+// Table is rx's table, as ReactionTable gives it at the Tabulator's
+// temperatures.
+func (tb *Tabulator) Table(rx *network.Reaction) *Table {
+	if rx == nil {
+		return nil
+	}
+	return tableFor(tb.ks.K(rx), rx, tb.temps)
+}
+
+// Rows are rx's rows at the Tabulator's temperatures, as its Table has
+// them, without the search for crossovers.
+func (tb *Tabulator) Rows(rx *network.Reaction) []network.TableRow {
+	if rx == nil {
+		return nil
+	}
+	return rowsOf(tb.ks.K(rx), tb.temps)
+}
+
+// rowsOf evaluates k at temps.
+func rowsOf(k *network.ReactionK, temps []float64) []network.TableRow {
+	rows := make([]network.TableRow, 0, len(temps))
+	for _, T := range temps {
+		rows = append(rows, k.Row(T))
+	}
+	return rows
+}
+
+// tableFor is the table of rx, whose calculation is k.
+func tableFor(k *network.ReactionK, rx *network.Reaction, temps []float64) *Table {
 	terms := k.Terms()
 	t := &Table{
 		Reaction:         rx,
@@ -61,10 +106,7 @@ func ReactionTable(n *network.Network, rx *network.Reaction, temps []float64) *T
 		}
 	}
 	t.Crossovers = crossovers(k)
-	t.Rows = make([]network.TableRow, 0, len(temps))
-	for _, T := range temps {
-		t.Rows = append(t.Rows, k.Row(T))
-	}
+	t.Rows = rowsOf(k, temps)
 	return t
 }
 
@@ -74,7 +116,10 @@ func crossovers(k *network.ReactionK) []thermo.Crossover {
 	if !(lo < hi) || math.IsInf(hi, 0) {
 		return nil
 	}
-	if r, ok := k.Species(); ok && k.SpanSource() == network.BasisSpecies {
+	if r, ok := k.Species(); ok && k.SumsSpecies() {
+		// The species' sum, also for a coupled reaction whose parts add up
+		// to it: evaluating the parts one by one at every step would grow
+		// with the square of a chain's length.
 		return thermo.ScanCrossovers(r.SummedDeltaG(), r.DeltaG, lo, hi)
 	}
 	return thermo.Crossovers(k.DeltaG, lo, hi)

@@ -206,19 +206,45 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 // assumed to be included still; if its includer no longer reads it, it is
 // compiled as a root of its own in a second round.
 func (w *worker) chooseRoots(docs []document, open map[string]document, src network.Source) []*compiled {
-	nets := map[string]*compiled{}
-	tried := map[string]bool{}
-	compileRoot := func(path string) {
-		tried[path] = true
-		if c := w.compile(path, open, src); c != nil {
-			nets[path] = c
-		}
+	rc := &rootChoice{w: w, open: open, src: src, nets: map[string]*compiled{}, tried: map[string]bool{},
+		chosen: map[string]bool{}, covered: map[string]bool{}}
+	rc.compileFirstRound(docs)
+	rc.pick()
+	for rc.compileMissing(docs) {
+		rc.pick()
 	}
-	// Documents that no other open document includes are compiled first,
-	// and a document that a network compiled in this round already reads
-	// is not compiled again as a root, unless it reaches that network's
-	// root in turn: a chain of n open documents costs one compile, not n.
-	graph := w.openIncludes(docs, open)
+	return withoutIncluded(rc.roots)
+}
+
+// rootChoice is one choice of roots in progress: the networks compiled so
+// far, and those chosen for publishing with the files they cover.
+type rootChoice struct {
+	w     *worker
+	open  map[string]document
+	src   network.Source
+	nets  map[string]*compiled // compiled networks by root path
+	tried map[string]bool      // paths compiled as roots, whether or not they loaded
+
+	roots   []*compiled     // chosen, in the order chosen
+	chosen  map[string]bool // root paths chosen
+	covered map[string]bool // files of the chosen networks
+}
+
+// compileRoot compiles path as a root, keeping the network when it loads.
+func (rc *rootChoice) compileRoot(path string) {
+	rc.tried[path] = true
+	if c := rc.w.compile(path, rc.open, rc.src); c != nil {
+		rc.nets[path] = c
+	}
+}
+
+// compileFirstRound compiles first the documents that no other open
+// document includes; a document that a network compiled in this round
+// already reads is not compiled again as a root, unless it reaches that
+// network's root in turn: a chain of n open documents costs one compile,
+// not n. A document whose owner last time is still open is left to it.
+func (rc *rootChoice) compileFirstRound(docs []document) {
+	graph := rc.w.openIncludes(docs, rc.open)
 	ordered := append([]document(nil), docs...)
 	sort.SliceStable(ordered, func(i, j int) bool {
 		return !graph.included[ordered[i].path] && graph.included[ordered[j].path]
@@ -226,8 +252,8 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 	coveredBy := map[string]string{}
 	reachers := map[string]map[string]bool{} // root -> open documents that include it
 	for _, d := range ordered {
-		if owner := w.owners[d.path]; owner != "" && owner != d.path {
-			if _, ok := open[owner]; ok {
+		if owner := rc.w.owners[d.path]; owner != "" && owner != d.path {
+			if _, ok := rc.open[owner]; ok {
 				continue
 			}
 		}
@@ -239,8 +265,8 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 				continue
 			}
 		}
-		compileRoot(d.path)
-		if c := nets[d.path]; c != nil {
+		rc.compileRoot(d.path)
+		if c := rc.nets[d.path]; c != nil {
 			for _, f := range c.net.Files {
 				if _, ok := coveredBy[f.ID]; !ok {
 					coveredBy[f.ID] = d.path
@@ -248,54 +274,56 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 			}
 		}
 	}
-	var roots []*compiled
-	chosen := map[string]bool{}
-	covered := map[string]bool{}
-	pick := func() {
-		var cands []string
-		for p := range nets {
-			if !chosen[p] {
-				cands = append(cands, p)
-			}
-		}
-		// Larger networks first, so that a network is chosen before the
-		// networks of the files it includes.
-		sort.Slice(cands, func(i, j int) bool {
-			a, b := len(nets[cands[i]].net.Files), len(nets[cands[j]].net.Files)
-			if a != b {
-				return a > b
-			}
-			return cands[i] < cands[j]
-		})
-		for _, p := range cands {
-			if covered[p] {
-				continue
-			}
-			chosen[p] = true
-			roots = append(roots, nets[p])
-			for _, f := range nets[p].net.Files {
-				covered[cleanPath(f.Path)] = true
-			}
+}
+
+// pick chooses, among the networks compiled and not yet chosen, each one
+// whose root no chosen network covers, larger networks first, so that a
+// network is chosen before the networks of the files it includes.
+func (rc *rootChoice) pick() {
+	var cands []string
+	for p := range rc.nets {
+		if !rc.chosen[p] {
+			cands = append(cands, p)
 		}
 	}
-	pick()
-	for {
-		var missing []string
-		for _, d := range docs {
-			if !covered[d.path] && !tried[d.path] {
-				missing = append(missing, d.path)
-			}
+	sort.Slice(cands, func(i, j int) bool {
+		a, b := len(rc.nets[cands[i]].net.Files), len(rc.nets[cands[j]].net.Files)
+		if a != b {
+			return a > b
 		}
-		if len(missing) == 0 {
-			break
+		return cands[i] < cands[j]
+	})
+	for _, p := range cands {
+		if rc.covered[p] {
+			continue
 		}
-		for _, p := range missing {
-			compileRoot(p)
+		rc.chosen[p] = true
+		rc.roots = append(rc.roots, rc.nets[p])
+		for _, f := range rc.nets[p].net.Files {
+			rc.covered[cleanPath(f.Path)] = true
 		}
-		pick()
 	}
-	// A root chosen early may be included by one chosen later: the later
-	// one's diagnostics cover it (unless the two include each other).
+}
+
+// compileMissing compiles as roots the open documents that no chosen
+// network covers and that were not tried yet; false when there are none.
+func (rc *rootChoice) compileMissing(docs []document) bool {
+	var missing []string
+	for _, d := range docs {
+		if !rc.covered[d.path] && !rc.tried[d.path] {
+			missing = append(missing, d.path)
+		}
+	}
+	for _, p := range missing {
+		rc.compileRoot(p)
+	}
+	return len(missing) > 0
+}
+
+// withoutIncluded drops a root chosen early that a root chosen later
+// includes: the later one's diagnostics cover it (unless the two include
+// each other).
+func withoutIncluded(roots []*compiled) []*compiled {
 	reads := func(c *compiled, path string) bool { return c.net.File(path) != nil }
 	var out []*compiled
 	for _, x := range roots {

@@ -78,7 +78,21 @@ type ReactionK struct {
 	// order of its combination; partsOK is false when a part is undefined
 	// or leads back to a reaction being summed.
 	parts   []*ReactionK
+	weights []float64 // the parts' weights
 	partsOK bool
+	// cyclic is true when building the calculation met a reaction being
+	// summed above it: then it depends on where it was reached from and
+	// is never shared (see KSet).
+	cyclic bool
+	// flat is true when the reaction's ΔrG° comes from parts that all
+	// take theirs from species and add up to its own equation: the sum of
+	// its species' models then gives the same value (see SumsSpecies).
+	flat bool
+
+	// set is the KSet that shares this calculation, nil for one built
+	// alone; grid holds its points at the set's grid temperatures.
+	set  *KSet
+	grid []gridPoint
 
 	// The last point computed, so that a part shared by several coupled
 	// reactions is evaluated once per temperature.
@@ -94,16 +108,27 @@ type ReactionK struct {
 // ReactionK prepares the evaluation of rx, which must not be nil. An
 // unresolved reaction gives rows that are not Valid.
 func (n *Network) ReactionK(rx *Reaction) *ReactionK {
+	return n.reactionK(rx, nil)
+}
+
+// reactionK builds the calculation of rx, sharing the parts of a coupled
+// reaction through s when s is not nil.
+func (n *Network) reactionK(rx *Reaction, s *KSet) *ReactionK {
 	if len(rx.Combo) == 0 {
-		return n.calcWithin(rx, nil, nil) // no parts to expand
+		return n.calcWithin(rx, nil, nil, nil) // no parts to expand
 	}
-	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*ReactionK{})
+	return n.calcWithin(rx, map[*Reaction]bool{}, map[*Reaction]*ReactionK{}, s)
 }
 
 // calcWithin builds the calculation of rx; path holds the coupled reactions
-// being expanded above it, memo the calculations already built.
-func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Reaction]*ReactionK) *ReactionK {
+// being expanded above it, memo the calculations already built for this
+// reaction, s (when not nil) the parts shared with other reactions.
+func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Reaction]*ReactionK, s *KSet) *ReactionK {
 	if c, ok := memo[rx]; ok {
+		return c
+	}
+	part := len(path) > 0 // reached as a part of a coupled reaction
+	if c := s.shared(rx); c != nil && part {
 		return c
 	}
 	c := &ReactionK{net: n, rx: rx, terms: rx.NetTerms(), p0: n.StandardPressure(), own: newOwnK(rx, n.ownDataShift(rx))}
@@ -113,15 +138,31 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		for _, ct := range rx.Combo {
 			if ct.Reaction == nil || ct.Weight == nil || path[ct.Reaction] {
 				c.partsOK = false
+				c.cyclic = c.cyclic || (ct.Reaction != nil && path[ct.Reaction])
 				break
 			}
-			c.parts = append(c.parts, n.calcWithin(ct.Reaction, path, memo))
+			p := n.calcWithin(ct.Reaction, path, memo, s)
+			c.cyclic = c.cyclic || p.cyclic
+			c.parts = append(c.parts, p)
+			c.weights = append(c.weights, ratFloat(ct.Weight))
 		}
 		delete(path, rx)
 	}
 	if memo != nil {
 		memo[rx] = c
 	}
+	n.sumSpecies(c)
+	c.flat = c.addsUpFromSpecies()
+	if part && !c.cyclic {
+		s.share(rx, c)
+	}
+	return c
+}
+
+// sumSpecies fills in the reaction's sums over its species: Δn, their
+// models and their gf.
+func (n *Network) sumSpecies(c *ReactionK) {
+	rx := c.rx
 	c.dn = deltaGasMoles(c.terms)
 	c.absOK, c.formOK = rx.Resolved && len(c.terms) > 0, rx.Resolved && len(c.terms) > 0
 	c.coverage = make([][][2]float64, 0, len(c.terms))
@@ -152,7 +193,6 @@ func (n *Network) calcWithin(rx *Reaction, path map[*Reaction]bool, memo map[*Re
 		}
 		c.form.Terms = append(c.form.Terms, thermo.Term{Nu: nu, Model: g, IsGas: a == thermo.ActivityGas, Activity: a, Sigma: sp.Sigma()})
 	}
-	return c
 }
 
 // point is a reaction's ΔrH°, ΔrS°, ΔrG° and σ(log10 K) at one temperature.
@@ -221,6 +261,11 @@ func (c *ReactionK) SpeciesRow(T float64) TableRow {
 func (c *ReactionK) at(T float64) point {
 	if c.hasLast && c.lastT == T {
 		return c.last
+	}
+	if c.set != nil {
+		if p, ok := c.set.at(c, T); ok {
+			return p
+		}
 	}
 	p := c.eval(T)
 	c.lastT, c.last, c.hasLast = T, p, true
@@ -311,9 +356,9 @@ func (c *ReactionK) fromCombination(T float64) point {
 	}
 	sum := point{basis: BasisCombination}
 	variance, anyStated := 0.0, false
-	for i, ct := range c.rx.Combo {
-		w, _ := ct.Weight.Float64()
-		p := c.parts[i].at(T)
+	for i, part := range c.parts {
+		w := c.weights[i]
+		p := part.at(T)
 		if !p.ok() {
 			return noPoint
 		}

@@ -296,6 +296,43 @@ func TestHostilePlotSize(t *testing.T) {
 		exitTrouble, "would have 2232 million pixels")
 }
 
+// chainNetwork is n coupled reactions, each the one before it: A(g) to
+// B(g) with the given entropy of B (J/mol/K), the first from the species.
+func chainNetwork(n int, sB string) string {
+	var b strings.Builder
+	b.WriteString("settings { temperatures 300 K, 350 K }\n")
+	b.WriteString("species A(g) { formula CO hf 0 kJ/mol s 100 J/mol/K }\n")
+	fmt.Fprintf(&b, "species B(g) { formula CO hf -10 kJ/mol s %s J/mol/K }\n", sB)
+	b.WriteString("reaction c0: A(g) <-> B(g)\n")
+	for i := 1; i <= n; i++ {
+		fmt.Fprintf(&b, "reaction c%d: A(g) <-> B(g) = c%d\n", i, i-1)
+	}
+	return b.String()
+}
+
+// A chain of 5 000 coupled reactions, each the one before it: tables and
+// a plot of its far end cost in proportion to its length (they grew with
+// its square, 58 s for the table), and a plot of every reaction is
+// refused as more lines than can be told apart.
+func TestHostileCoupledChain(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the built binary")
+	}
+	dir := t.TempDir()
+	// ΔrS° = 0: ΔrG° keeps its sign; ΔrS° = -40 J/mol/K: K = 1 at 250 K,
+	// inside the data's span, so every table searches a crossover.
+	writeFile(t, filepath.Join(dir, "flat.hess"), chainNetwork(5000, "100"), 0o644)
+	writeFile(t, filepath.Join(dir, "cross.hess"), chainNetwork(5000, "60"), 0o644)
+	for _, net := range []string{"flat.hess", "cross.hess"} {
+		t.Run(net, func(t *testing.T) {
+			expectRun(t, runBounded(t, dir, "", "", "table", net), exitOK, "c5000: A(g) <-> B(g)")
+			expectRun(t, runBounded(t, dir, "", "", "plot", "--reaction", "c5000", "--reaction", "c2500", "-o", "far.svg", net), exitOK)
+			expectRun(t, runBounded(t, dir, "", "", "plot", "-o", "all.svg", net), exitTrouble,
+				"5001 reactions are more lines than one plot tells apart (at most 56")
+		})
+	}
+}
+
 // Hostile feeds: each ends quickly, in bounded memory, with numbers or a
 // clear refusal, never a crash.
 func TestHostileFeeds(t *testing.T) {

@@ -88,6 +88,11 @@ func runPlot(args []string, stdout, stderr io.Writer) int {
 	if doc == nil {
 		return status
 	}
+	if n := len(doc.reactions); n > maxPlotLines {
+		fmt.Fprintf(stderr, "hess plot: %d reactions are more lines than one plot tells apart (at most %d: %d colours × %d markers); choose those to draw with --reaction\n",
+			n, maxPlotLines, len(okabeIto), len(reactionGlyphs))
+		return exitTrouble
+	}
 	data, err := renderPlot(doc, format, size)
 	if err != nil {
 		fmt.Fprintf(stderr, "hess plot: %v\n", err)
@@ -151,10 +156,11 @@ func renderPlot(doc *tableDoc, format string, size plotSize) ([]byte, error) {
 	leg.Padding = vg.Points(2)
 	var marks plotter.XYs
 	drawn, extrapolated := 0, false
+	sampled := equilibrium.NewTabulator(doc.net, temps)
 	for i, t := range doc.tables() {
 		rx := t.Reaction
 		// The reaction's table, densely sampled.
-		dense := tableAt(doc, t.Table, temps)
+		dense := sampled.Rows(rx)
 		st := reactionStyle(i)
 		segs := segments(dense)
 		if len(segs) == 0 {
@@ -214,11 +220,6 @@ func renderPlot(doc *tableDoc, format string, size plotSize) ([]byte, error) {
 	p.X.Tick.Marker = newTemperatureTicks(p.X.Tick.Label, axisW)
 	title := fmt.Sprintf("%s: van 't Hoff plot (p° = %s)", path.Base(doc.Network), pressureText(doc.Pressure))
 	return drawPlot(p, &leg, title, format, size)
-}
-
-// tableAt recomputes a reaction's table at the plot's sample temperatures.
-func tableAt(doc *tableDoc, t *equilibrium.Table, temps []float64) []network.TableRow {
-	return equilibrium.ReactionTable(doc.net, t.Reaction, temps).Rows
 }
 
 // segment is a run of samples drawn as one line: all inside the data's

@@ -90,6 +90,14 @@ type lineStyle struct {
 	glyph draw.GlyphStyle
 }
 
+// maxPlotLines is how many reactions one plot draws: each pair of the 8
+// colours and 7 markers once (8 and 7 share no factor, so reactionStyle
+// repeats a pair only after 56). More lines could not be told apart, and
+// their drawing grows past what one picture should take (5 000 lines took
+// 0.9 GB).
+var maxPlotLines = len(okabeIto) * len(reactionGlyphs)
+
+// reactionStyle is the look of the i-th reaction drawn.
 func reactionStyle(i int) lineStyle {
 	c := okabeIto[i%len(okabeIto)]
 	return lineStyle{

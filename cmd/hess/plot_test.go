@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"fmt"
 	"image"
 	"image/color"
 	"image/png"
@@ -102,5 +103,44 @@ func TestPlotNothingToDraw(t *testing.T) {
 	}
 	if _, err := os.Stat(out); err == nil {
 		t.Error("a plot file was written")
+	}
+}
+
+// A plot of more reactions than its colours and markers tell apart is
+// refused before anything is drawn, and says how to choose; as many as
+// they tell apart are drawn.
+func TestPlotLineLimit(t *testing.T) {
+	dir := t.TempDir()
+	for _, n := range []int{maxPlotLines, maxPlotLines + 1} {
+		var b strings.Builder
+		b.WriteString("settings { temperatures 300 K, 400 K }\n")
+		b.WriteString("species A(g) { formula CO hf 0 kJ/mol s 100 J/mol/K }\n")
+		b.WriteString("species B(g) { formula CO hf -10 kJ/mol s 90 J/mol/K }\n")
+		b.WriteString("reaction r1: A(g) <-> B(g)\n")
+		for i := 2; i <= n; i++ {
+			fmt.Fprintf(&b, "reaction r%d: A(g) <-> B(g) = r%d\n", i, i-1)
+		}
+		net := filepath.Join(dir, fmt.Sprintf("n%d.hess", n))
+		if err := os.WriteFile(net, []byte(b.String()), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		out := filepath.Join(dir, fmt.Sprintf("n%d.svg", n))
+		var stdout, stderr bytes.Buffer
+		code := run([]string{"plot", "-o", out, net}, &stdout, &stderr)
+		_, statErr := os.Stat(out)
+		if n == maxPlotLines {
+			if code != exitOK || statErr != nil {
+				t.Errorf("%d reactions: exit %d, plot written: %v; stderr: %.500s", n, code, statErr == nil, stderr.String())
+			}
+			continue
+		}
+		want := "57 reactions are more lines than one plot tells apart (at most 56: 8 colours × 7 markers); choose those to draw with --reaction"
+		if code != exitTrouble || !strings.Contains(stderr.String(), want) || statErr == nil {
+			t.Errorf("%d reactions: exit %d, plot written: %v; stderr lacks %q: %.500s", n, code, statErr == nil, want, stderr.String())
+		}
+		code = run([]string{"plot", "--reaction", "r57", "--reaction", "r1", "-o", out, net}, &stdout, &stderr)
+		if code != exitOK {
+			t.Errorf("two named of %d: exit %d", n, code)
+		}
 	}
 }

@@ -149,17 +149,24 @@ const tableBatch = 128
 func (doc *tableDoc) each(fn func(tableEntry) error) error {
 	batch := make([]tableEntry, 0, tableBatch)
 	workers := max(1, runtime.GOMAXPROCS(0))
+	// One tabulator per worker, kept over the batches: each shares the
+	// parts of coupled reactions among the reactions it computes.
+	tabs := make([]*equilibrium.Tabulator, workers)
+	for w := range tabs {
+		tabs[w] = equilibrium.NewTabulator(doc.net, doc.Temps)
+	}
 	for start := 0; start < len(doc.reactions); start += tableBatch {
 		rxs := doc.reactions[start:min(start+tableBatch, len(doc.reactions))]
 		batch = batch[:len(rxs)]
 		var next atomic.Int64
 		var wg sync.WaitGroup
-		for range min(workers, len(rxs)) {
+		for w := range min(workers, len(rxs)) {
 			wg.Add(1)
 			go func() {
+				tab := tabs[w]
 				defer wg.Done()
 				for i := int(next.Add(1)) - 1; i < len(rxs); i = int(next.Add(1)) - 1 {
-					e := tableEntry{Table: equilibrium.ReactionTable(doc.net, rxs[i], doc.Temps)}
+					e := tableEntry{Table: tab.Table(rxs[i])}
 					if doc.fitReverse {
 						e.Reverse = reverseRate(doc.net, rxs[i], doc.Temps)
 					}
