@@ -81,45 +81,79 @@ func usableSpecies(sp *network.Species) bool {
 // feed members that cannot take part; the system is nil with them. An
 // error is a failure to build the reactions basis.
 func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Span, T, P float64, basis Basis) (*system, lang.Diagnostics, error) {
-	var diags lang.Diagnostics
-	report := func(code lang.Code, span lang.Span, format string, args ...any) {
-		diags = append(diags, lang.Diagnostic{Code: code, Severity: lang.Error, Subject: span, Message: fmt.Sprintf(format, args...)})
+	if diags := feedDiagnostics(feed, T); len(diags) > 0 {
+		return nil, diags, nil
 	}
+	sys := &system{index: map[*network.Species]int{}, solvent: -1}
+	for _, f := range feed {
+		sys.add(f.species)
+	}
+	dg := sys.addBasis(net, rc, T, basis)
+	sys, hasSolute, diags := sys.addSolvent(net, feed, at, basis)
+	if len(diags) > 0 {
+		return nil, diags, nil
+	}
+	sys.phases(hasSolute)
+	if err := sys.conservation(rc, basis); err != nil {
+		return nil, nil, err
+	}
+	sys.mu0(rc, T, dg)
+	n0 := make([]float64, len(sys.species))
+	for _, f := range feed {
+		n0[sys.index[f.species]] += f.amount
+	}
+	sys.problem.N0 = n0
+	sys.problem.PRatio = P / net.StandardPressure()
+	sys.problem.SolventMolarMass = network.WaterMolarMass
+	for _, sp := range sys.species {
+		if _, extra := sp.EvaluableAt(T); extra {
+			sys.extrapolated = append(sys.extrapolated, sp)
+		}
+	}
+	return sys, nil, nil
+}
+
+// errorAt is an error diagnostic at span with a formatted message.
+func errorAt(code lang.Code, span lang.Span, format string, args ...any) lang.Diagnostic {
+	return lang.Diagnostic{Code: code, Severity: lang.Error, Subject: span, Message: fmt.Sprintf(format, args...)}
+}
+
+// feedDiagnostics names the feed members that cannot take part in an
+// equilibrium at T: no formula or phase, or no data there.
+func feedDiagnostics(feed []feedItem, T float64) lang.Diagnostics {
+	var diags lang.Diagnostics
 	for _, f := range feed {
 		sp := f.species
 		switch {
 		case !usableSpecies(sp):
-			report("mixture-amount", f.span, "%s has no formula or no known phase, so it cannot take part in an equilibrium", sp.Key)
+			diags = append(diags, errorAt("mixture-amount", f.span, "%s has no formula or no known phase, so it cannot take part in an equilibrium", sp.Key))
 		case !evaluable(sp, T):
-			report("missing-thermo", f.span, "%s has no data at %s K%s, so the feed cannot be brought to equilibrium there", sp.Key, kelvin(T), spanText(sp))
+			diags = append(diags, errorAt("missing-thermo", f.span, "%s has no data at %s K%s, so the feed cannot be brought to equilibrium there", sp.Key, kelvin(T), spanText(sp)))
 		}
 	}
-	if len(diags) > 0 {
-		return nil, diags, nil
+	return diags
+}
+
+// add takes a species into the system once, in order of first arrival.
+func (sys *system) add(sp *network.Species) {
+	if _, ok := sys.index[sp]; !ok {
+		sys.index[sp] = len(sys.species)
+		sys.species = append(sys.species, sp)
 	}
-	sys := &system{index: map[*network.Species]int{}, solvent: -1}
-	add := func(sp *network.Species) {
-		if _, ok := sys.index[sp]; !ok {
-			sys.index[sp] = len(sys.species)
-			sys.species = append(sys.species, sp)
-		}
-	}
-	for _, f := range feed {
-		add(f.species)
-	}
-	defer func() {
-		for _, sp := range sys.species {
-			if _, extra := sp.EvaluableAt(T); extra {
-				sys.extrapolated = append(sys.extrapolated, sp)
-			}
-		}
-	}()
-	var dg []float64 // ΔrG°/RT of the basis reactions
+}
+
+// addBasis takes in the species the basis reaches at T: with the elements
+// basis every usable species with data there; with the reactions basis the
+// species of every reaction whose terms are usable and whose ΔrG° is
+// finite at T, with the reaction itself. It returns ΔrG°/RT of the basis
+// reactions (none with the elements basis).
+func (sys *system) addBasis(net *network.Network, rc *rxCache, T float64, basis Basis) []float64 {
+	var dg []float64
 	switch basis {
 	case BasisElements:
 		for _, sp := range net.Species {
 			if usableSpecies(sp) && evaluable(sp, T) {
-				add(sp)
+				sys.add(sp)
 			}
 		}
 	case BasisReactions:
@@ -139,13 +173,21 @@ func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Spa
 				continue
 			}
 			for _, t := range it.terms {
-				add(t.species)
+				sys.add(t.species)
 			}
 			sys.reactions = append(sys.reactions, rx)
 			dg = append(dg, g/(thermo.R*T))
 		}
 	}
-	// Aqueous solutes need water as their solvent.
+	return dg
+}
+
+// addSolvent takes in water when the system holds aqueous solutes, which
+// need it as their solvent. Without usable water the elements basis leaves
+// the solutes that are not fed out (the system returned is then a new one),
+// and diagnostics name the fed solutes, or at at when only the reactions
+// brought solutes in. It reports whether the system still holds solutes.
+func (sys *system) addSolvent(net *network.Network, feed []feedItem, at lang.Span, basis Basis) (*system, bool, lang.Diagnostics) {
 	water := net.LookupSpecies(waterKey)
 	hasSolute := false
 	for _, sp := range sys.species {
@@ -153,41 +195,28 @@ func buildSystem(net *network.Network, rc *rxCache, feed []feedItem, at lang.Spa
 			hasSolute = true
 		}
 	}
-	if hasSolute {
-		if water == nil || !usableSpecies(water) {
-			if basis == BasisElements {
-				// Leave the solutes out: without water they have no phase.
-				sys = dropSolutes(sys, feed)
-				hasSolute = false
-			}
-			for _, f := range feed {
-				if f.species.Activity() == thermo.ActivitySolute {
-					report("missing-thermo", f.span, "%s is a solute, and the network has no %s with data to dissolve it in", f.species.Key, waterKey)
-				}
-			}
-			if hasSolute && len(diags) == 0 {
-				report("missing-thermo", at, "the reactions bring aqueous solutes in, and the network has no %s to dissolve them in", waterKey)
-			}
-		} else {
-			add(water)
+	if !hasSolute {
+		return sys, false, nil
+	}
+	if water != nil && usableSpecies(water) {
+		sys.add(water)
+		return sys, true, nil
+	}
+	if basis == BasisElements {
+		// Leave the solutes out: without water they have no phase.
+		sys = dropSolutes(sys, feed)
+		hasSolute = false
+	}
+	var diags lang.Diagnostics
+	for _, f := range feed {
+		if f.species.Activity() == thermo.ActivitySolute {
+			diags = append(diags, errorAt("missing-thermo", f.span, "%s is a solute, and the network has no %s with data to dissolve it in", f.species.Key, waterKey))
 		}
 	}
-	if len(diags) > 0 {
-		return nil, diags, nil
+	if hasSolute && len(diags) == 0 {
+		diags = append(diags, errorAt("missing-thermo", at, "the reactions bring aqueous solutes in, and the network has no %s to dissolve them in", waterKey))
 	}
-	sys.phases(hasSolute)
-	if err := sys.conservation(rc, basis); err != nil {
-		return nil, nil, err
-	}
-	sys.mu0(rc, T, dg)
-	n0 := make([]float64, len(sys.species))
-	for _, f := range feed {
-		n0[sys.index[f.species]] += f.amount
-	}
-	sys.problem.N0 = n0
-	sys.problem.PRatio = P / net.StandardPressure()
-	sys.problem.SolventMolarMass = network.WaterMolarMass
-	return sys, nil, nil
+	return sys, hasSolute, diags
 }
 
 // dropSolutes removes the aqueous solutes that are not fed.

@@ -177,6 +177,38 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		fmt.Fprintf(stderr, "hess equilibrium: %s has errors; no output written\n", displayName(req.root))
 		return nil, exitFindings
 	}
+	mixtures, status := equilibriumMixtures(net, req, stderr)
+	if mixtures == nil {
+		return nil, status
+	}
+	doc := &equilibriumDoc{Network: displayName(req.root), Pressure: net.StandardPressure(), net: net}
+	bad, warnings, err := equilibrateMixtures(doc, mixtures, req)
+	if err != nil {
+		fmt.Fprintf(stderr, "hess equilibrium: %v\n", err)
+		return nil, exitTrouble
+	}
+	if len(bad) > 0 {
+		bad = append(diags, uniqueDiagnostics(bad)...)
+		bad.Sort()
+		report(bad)
+		fmt.Fprintf(stderr, "hess equilibrium: %s has feeds that cannot be brought to equilibrium; no output written\n", displayName(req.root))
+		return nil, exitFindings
+	}
+	if len(warnings) > 0 {
+		diags = append(append(lang.Diagnostics{}, diags...), warnings...)
+		diags.Sort()
+	}
+	if !report(diags) {
+		return nil, exitTrouble
+	}
+	return doc, convergenceStatus(doc, stderr)
+}
+
+// equilibriumMixtures picks the mixtures to bring to equilibrium: those the
+// request names, or else every feed of the network, bounded by
+// maxEquilibriumResults results in all. It returns nil and the exit status,
+// with a message on stderr, when there is nothing to compute.
+func equilibriumMixtures(net *network.Network, req equilibriumRequest, stderr io.Writer) ([]*network.Mixture, int) {
 	var mixtures []*network.Mixture
 	for _, name := range req.names {
 		m := net.LookupMixture(name)
@@ -202,8 +234,17 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 			len(mixtures), max(len(req.temps), 1), n, maxEquilibriumResults)
 		return nil, exitTrouble
 	}
-	doc := &equilibriumDoc{Network: displayName(req.root), Pressure: net.StandardPressure(), net: net}
-	var bad, warnings lang.Diagnostics
+	return mixtures, exitOK
+}
+
+// equilibrateMixtures computes each mixture at each requested temperature
+// (once when none is given or the search is adiabatic) into doc, each result
+// of a gas feed warm-started from the one before. A mixture whose
+// diagnostics hold an error stops at that temperature; its errors come back
+// in bad, and the diagnostics of aqueous results that went through come back
+// in warnings. An error is a failure of the solver itself.
+func equilibrateMixtures(doc *equilibriumDoc, mixtures []*network.Mixture, req equilibriumRequest) (bad, warnings lang.Diagnostics, err error) {
+	net := doc.net
 	for _, m := range mixtures {
 		temps := req.temps
 		if temps == nil || req.adiabatic {
@@ -225,8 +266,7 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 		for _, T := range temps {
 			c, ds, err := equilibrium.Equilibrate(net, m, equilibrium.Options{T: T, P: req.pressure, Basis: req.basis, Adiabatic: req.adiabatic, Start: prev})
 			if err != nil {
-				fmt.Fprintf(stderr, "hess equilibrium: %v\n", err)
-				return nil, exitTrouble
+				return nil, nil, err
 			}
 			if len(ds) > 0 {
 				bad = append(bad, ds...)
@@ -236,21 +276,13 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 			doc.Results = append(doc.Results, c)
 		}
 	}
-	if len(bad) > 0 {
-		bad = append(diags, uniqueDiagnostics(bad)...)
-		bad.Sort()
-		report(bad)
-		fmt.Fprintf(stderr, "hess equilibrium: %s has feeds that cannot be brought to equilibrium; no output written\n", displayName(req.root))
-		return nil, exitFindings
-	}
-	if len(warnings) > 0 {
-		diags = append(append(lang.Diagnostics{}, diags...), warnings...)
-		diags.Sort()
-	}
-	if !report(diags) {
-		return nil, exitTrouble
-	}
-	status = exitOK
+	return bad, warnings, nil
+}
+
+// convergenceStatus says on stderr which results of doc did not converge
+// and returns the exit status: exitFindings when any did, else exitOK.
+func convergenceStatus(doc *equilibriumDoc, stderr io.Writer) int {
+	status := exitOK
 	for _, c := range doc.Results {
 		if !c.Converged {
 			fmt.Fprintf(stderr, "hess equilibrium: mixture %s at %s did not converge (element residual %.3g, stationarity %.3g); its numbers are not an equilibrium\n",
@@ -265,7 +297,7 @@ func equilibriumDocument(req equilibriumRequest, stderr io.Writer) (*equilibrium
 			status = exitFindings
 		}
 	}
-	return doc, status
+	return status
 }
 
 // uniqueDiagnostics drops repeats (the same feed refused at several
