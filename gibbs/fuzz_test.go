@@ -39,18 +39,7 @@ func FuzzSolve(f *testing.F) {
 		if !(T >= 200 && T <= 6000) || !(lnP >= -10 && lnP <= 10) {
 			return
 		}
-		sp := make([]Species, 7)
-		for j, d := range fuzzSpecies {
-			sp[j] = Species{Name: chonNames[j], Mu0: d.h/T - d.s}
-		}
-		sp[6].Phase = 1
-		p := Problem{
-			Phases:  []Phase{{Name: "g", Kind: IdealGas}, {Name: "C(gr)", Kind: Pure}},
-			Species: sp,
-			B:       dense([][]float64{{1, 0, 1, 1, 0, 0, 1}, {4, 2, 0, 0, 2, 0, 0}, {0, 1, 1, 2, 0, 2, 0}}),
-			N0:      feed,
-			PRatio:  math.Exp(lnP),
-		}
+		p := graphiteProblem(T, feed, math.Exp(lnP))
 		switch basis % 4 {
 		case 1:
 			B, err := ReactionsConservation(dense(chonReactions()[:7]))
@@ -96,4 +85,21 @@ func FuzzSolve(f *testing.F) {
 			t.Fatalf("converged with residual %g, stationarity %g", r.ElementResidual, r.Stationarity)
 		}
 	})
+}
+
+// graphiteProblem is the C–H–O gas over graphite of the fuzz and random tests
+// at T (K): fuzzSpecies' μ°/RT, element rows C, H, O, the feed and P/p°.
+func graphiteProblem(T float64, feed []float64, pRatio float64) Problem {
+	sp := make([]Species, 7)
+	for j, d := range fuzzSpecies {
+		sp[j] = Species{Name: chonNames[j], Mu0: d.h/T - d.s}
+	}
+	sp[6].Phase = 1
+	return Problem{
+		Phases:  []Phase{{Name: "g", Kind: IdealGas}, {Name: "C(gr)", Kind: Pure}},
+		Species: sp,
+		B:       dense([][]float64{{1, 0, 1, 1, 0, 0, 1}, {4, 2, 0, 0, 2, 0, 0}, {0, 1, 1, 2, 0, 2, 0}}),
+		N0:      feed,
+		PRatio:  pRatio,
+	}
 }

@@ -23,18 +23,7 @@ func TestRandomFeedsConverge(t *testing.T) {
 			}
 		}
 		T := 300 + 3000*rng.Float64()
-		sp := make([]Species, 7)
-		for j, d := range fuzzSpecies {
-			sp[j] = Species{Name: chonNames[j], Mu0: d.h/T - d.s}
-		}
-		sp[6].Phase = 1
-		p := Problem{
-			Phases:  []Phase{{Name: "g", Kind: IdealGas}, {Name: "C(gr)", Kind: Pure}},
-			Species: sp,
-			B:       dense([][]float64{{1, 0, 1, 1, 0, 0, 1}, {4, 2, 0, 0, 2, 0, 0}, {0, 1, 1, 2, 0, 2, 0}}),
-			N0:      feed,
-			PRatio:  math.Exp(-5 + 10*rng.Float64()),
-		}
+		p := graphiteProblem(T, feed, math.Exp(-5+10*rng.Float64()))
 		r, err := Solve(p, Options{})
 		if err != nil {
 			continue
