@@ -51,6 +51,8 @@ func (c *compiler) mixture(m *lang.Mixture) {
 			if ok && !(v.V > 0) {
 				c.report(implausibleValueCheck, it.Temperature.Span(), "mixture temperature %s is not above 0 K", quantityText(it.Temperature))
 				ok = false
+			} else if ok && !c.temperatureInRange(v.V, it.Temperature) {
+				ok = false
 			}
 			if !ok {
 				mx.Valid = false

@@ -78,3 +78,15 @@ func TestConversionOverflowReported(t *testing.T) {
 	}
 	t.Errorf("no out-of-range diagnostic: %v", net.Diagnostics)
 }
+
+// A mixture's temperature keeps to the same bounds as a temperature list.
+func TestMixtureTemperatureBounds(t *testing.T) {
+	src := "species H2(g) { hf 0 kJ/mol s 130.68 J/mol/K }\nmixture m { temperature 1e308 K pressure 1 bar H2(g) 1 mol }\n"
+	net := Load("/hostile/mix.hess", Overlay{Files: map[string][]byte{"/hostile/mix.hess": []byte(src)}}, Options{})
+	for _, d := range net.Diagnostics {
+		if strings.Contains(d.Message, "temperature 1e308 K is above 1000000 K") {
+			return
+		}
+	}
+	t.Errorf("no bound on the mixture's temperature: %v", net.Diagnostics)
+}
