@@ -46,29 +46,52 @@ func commands() []command {
 }
 
 func main() {
-	tuneGC()
+	tuneGC(os.Args[1:])
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
-// tuneGC sets how often memory is collected, unless GOGC or GOMEMLIMIT
-// say otherwise. Nearly all a compile allocates stays live until the end,
-// so collecting less often (GOGC 400) saves time and little memory; the
-// soft limit of 1 GiB makes the collector work harder before the heap
-// outgrows it, as a table of a large network would with garbage.
-func tuneGC() {
+// memoryLimit is the soft limit on the heap that every command keeps to
+// unless GOMEMLIMIT says otherwise: the runtime collects harder as the heap
+// nears it.
+const memoryLimit = 1 << 30
+
+// tuneGC sets how memory is collected for the command args name, unless
+// GOGC or GOMEMLIMIT say otherwise.
+//
+// A command that compiles a network once and exits (check, table, plot,
+// ...) keeps nearly all it allocates live until the end: a collection
+// would mark the whole syntax tree and model to free little, and its write
+// barriers slow the compile while it runs. Such commands run with the
+// collector off below the soft limit (GOGC off, 1 GiB): the heap is then
+// what the compile allocated, a few per cent above what it keeps, and the
+// runtime collects only if a network grows near the limit.
+//
+// The long-running commands (watch, lsp) compile again and again, and
+// each compile's network is garbage once the next one is published: they
+// collect at Go's default pace (GOGC 100) under the same soft limit, so
+// their memory stays near twice one network.
+func tuneGC(args []string) {
 	if os.Getenv("GOGC") == "" {
-		debug.SetGCPercent(400)
+		percent := -1
+		if len(args) > 0 && longRunning(args[0]) {
+			percent = 100
+		}
+		debug.SetGCPercent(percent)
 	}
 	if os.Getenv("GOMEMLIMIT") == "" {
-		debug.SetMemoryLimit(1 << 30)
+		debug.SetMemoryLimit(memoryLimit)
 	}
 }
 
-// streamingGC is tuneGC for the part of a command that streams output
-// computed from a compiled network (a table): what it allocates is garbage
-// once written, so it collects at Go's default pace (GOGC 100), which keeps
-// the heap near the network's own size instead of letting garbage grow to
-// four times it. GOGC, when set, still decides.
+// longRunning reports whether the command cmd runs until stopped,
+// compiling again on every change.
+func longRunning(cmd string) bool { return cmd == "watch" || cmd == "lsp" }
+
+// streamingGC is tuneGC for what a command does with a network once it is
+// compiled (a table streamed, feeds solved, a plot drawn): what that
+// allocates is garbage once used, so it collects at Go's default pace
+// (GOGC 100), which keeps the heap near the network's own size instead of
+// letting garbage grow until the soft limit. GOGC, when set, still decides.
 func streamingGC() {
 	if os.Getenv("GOGC") == "" {
 		debug.SetGCPercent(100)

@@ -6,9 +6,10 @@ import (
 	"testing"
 )
 
-// TestTuneGC: without GOGC and GOMEMLIMIT in the environment the collector
-// runs at 400 % with a 1 GiB soft limit; either variable, when set, is left
-// to the runtime.
+// TestTuneGC: without GOGC and GOMEMLIMIT in the environment a one-shot
+// command runs with the collector off below a 1 GiB soft limit and the
+// long-running ones (watch, lsp) at 100 % under the same limit; either
+// variable, when set, is left to the runtime.
 func TestTuneGC(t *testing.T) {
 	percent := debug.SetGCPercent(100)
 	limit := debug.SetMemoryLimit(math.MaxInt64)
@@ -19,17 +20,29 @@ func TestTuneGC(t *testing.T) {
 
 	t.Setenv("GOGC", "")
 	t.Setenv("GOMEMLIMIT", "")
-	tuneGC()
-	if p := debug.SetGCPercent(100); p != 400 {
-		t.Errorf("GC percent %d, want 400", p)
-	}
-	if l := debug.SetMemoryLimit(math.MaxInt64); l != 1<<30 {
-		t.Errorf("memory limit %d, want 1 GiB", l)
+	for _, tc := range []struct {
+		args    []string
+		percent int
+	}{
+		{[]string{"check", "x.hess"}, -1},
+		{[]string{"table", "x.hess"}, -1},
+		{nil, -1},
+		{[]string{"watch", "x.hess"}, 100},
+		{[]string{"lsp"}, 100},
+	} {
+		debug.SetGCPercent(50)
+		tuneGC(tc.args)
+		if p := debug.SetGCPercent(100); p != tc.percent {
+			t.Errorf("%v: GC percent %d, want %d", tc.args, p, tc.percent)
+		}
+		if l := debug.SetMemoryLimit(math.MaxInt64); l != 1<<30 {
+			t.Errorf("%v: memory limit %d, want 1 GiB", tc.args, l)
+		}
 	}
 
 	t.Setenv("GOGC", "50")
 	t.Setenv("GOMEMLIMIT", "2GiB")
-	tuneGC()
+	tuneGC([]string{"check"})
 	if p := debug.SetGCPercent(100); p != 100 {
 		t.Errorf("GC percent %d with GOGC set, want it left at 100", p)
 	}

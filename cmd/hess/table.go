@@ -58,7 +58,6 @@ func runTable(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintf(stderr, "hess table: %v\n", err)
 		return exitTrouble
 	}
-	streamingGC()
 	// The table is written as it is computed, a batch of reactions at a
 	// time: to stdout directly, to -o through a temporary file that
 	// replaces the target once complete.
@@ -273,6 +272,7 @@ func compileRoot(cmd, root string, opts network.Options, stderr io.Writer) (*net
 		return nil, exitTrouble
 	}
 	net := network.Load(root, network.Disk{}, opts)
+	streamingGC()
 	if len(net.Files) == 0 {
 		fmt.Fprintf(stderr, "hess %s: %s\n", cmd, unreadableRoot(root, net))
 		return nil, exitTrouble
