@@ -94,6 +94,37 @@ func (rx *Reaction) smallNetTerms() (out []NetTerm, ok bool) {
 	return out, true
 }
 
+// netSpecies appends to buf the species of the reaction's net equation,
+// those of NetTerms in its order, without allocating while every
+// coefficient is a small whole number and the species fit buf: checks ask
+// it of every reaction.
+func (rx *Reaction) netSpecies(buf []*Species) []*Species {
+	var cbuf [12]speciesCount
+	cs := cbuf[:0]
+	for side, terms := range [2][]Term{rx.Left, rx.Right} {
+		sign := int64(2*side - 1)
+		for _, t := range terms {
+			if t.Species == nil || t.Coef == nil {
+				continue
+			}
+			n, isInt := smallInt(t.Coef)
+			if !isInt {
+				for _, nt := range rx.NetTerms() {
+					buf = append(buf, nt.Species)
+				}
+				return buf
+			}
+			cs = addSpeciesCount(cs, t.Species, sign*n)
+		}
+	}
+	for _, c := range cs {
+		if c.n != 0 {
+			buf = append(buf, c.sp)
+		}
+	}
+	return buf
+}
+
 // QuotientActivity is the activity convention the species carries in an
 // equilibrium expression. A species without a known phase counts as one
 // with an activity of its own (neither gas, solute nor pure), so its

@@ -13,7 +13,7 @@ it carries. Usually a species was written on the wrong side or a state tag
 was left out. A reaction's own data (dg, logk, …) are not used for it.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
-			if !rx.Resolved || len(rx.Left)+len(rx.Right) == 0 || len(rx.NetTerms()) > 0 {
+			if !rx.Resolved || len(rx.Left)+len(rx.Right) == 0 || rx.facts().key != "" {
 				continue
 			}
 			msg := "the sides of %s cancel: it changes nothing, so ΔrG° = 0 and K = 1 at every temperature"

@@ -24,8 +24,8 @@ the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 			}
 			var with bool
 			var without []string
-			for _, t := range rx.NetTerms() {
-				sp := t.Species
+			var buf [12]*Species
+			for _, sp := range rx.netSpecies(buf[:0]) {
 				switch {
 				case len(sp.Ranges) > 0 || sp.Cp != nil:
 					with = true

@@ -186,7 +186,7 @@ statement) are reported there, once: the species is left out of this
 message, and a reaction whose own data did not compile is not reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
-		known := map[*Species]bool{}
+		known := newGivesG(p.Net)
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) || dataBroken(rx) {
 				continue
@@ -326,24 +326,27 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 			if m == nil || !covers(m, thermo.T298) {
 				continue
 			}
-			var related []lang.Related
-			for _, r := range sp.Ranges {
-				if thermo.T298 >= r.Tmin-thermo.JoinTolerance && thermo.T298 <= r.Tmax+thermo.JoinTolerance {
-					related = append(related, lang.Related{Span: r.Header, Message: fmt.Sprintf("%s range %s to %s", r.Kind, kelvin(r.Tmin), kelvin(r.Tmax))})
-					break
+			// The range that answers at 298.15 K, named beside each
+			// disagreement; worked out only for a species that has one.
+			related := func() []lang.Related {
+				for _, r := range sp.Ranges {
+					if thermo.T298 >= r.Tmin-thermo.JoinTolerance && thermo.T298 <= r.Tmax+thermo.JoinTolerance {
+						return []lang.Related{{Span: r.Header, Message: fmt.Sprintf("%s range %s to %s", r.Kind, kelvin(r.Tmin), kelvin(r.Tmax))}}
+					}
 				}
+				return nil
 			}
 			T := thermo.T298
 			if v := sp.Hf; v != nil {
 				if d := m.H(T) - v.V; math.Abs(d) > tol {
-					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related(), Message: fmt.Sprintf(
 						"the polynomial of %s gives H° = %.3f kJ/mol at 298.15 K, hf says %.3f kJ/mol (%s kJ/mol apart, tolerance %s kJ/mol)",
 						sp.Key, m.H(T)/1000, v.V/1000, short(math.Abs(d)/1000), short(tol/1000))})
 				}
 			}
 			if v := sp.S; v != nil {
 				if d := m.S(T) - v.V; T*math.Abs(d) > tol {
-					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related(), Message: fmt.Sprintf(
 						"the polynomial of %s gives S° = %.3f J/mol/K at 298.15 K, s says %.3f J/mol/K (T·ΔS° = %s kJ/mol, tolerance %s kJ/mol)",
 						sp.Key, m.S(T), v.V, short(T*math.Abs(d)/1000), short(tol/1000))})
 				}
@@ -351,7 +354,7 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 			if v := sp.Cp; v != nil {
 				cp := m.Cp(T)
 				if d := cp - v.V; math.Abs(d) > cpJumpFraction*math.Abs(cp) {
-					p.Report(lang.Diagnostic{Subject: v.Span, Related: related, Message: fmt.Sprintf(
+					p.Report(lang.Diagnostic{Subject: v.Span, Related: related(), Message: fmt.Sprintf(
 						"the polynomial of %s gives Cp° = %.3f J/mol/K at 298.15 K, cp says %.3f J/mol/K (%.1f %% apart, more than 1 %%)",
 						sp.Key, cp, v.V, 100*math.Abs(d)/math.Abs(cp))})
 				}

@@ -2,9 +2,11 @@ package network
 
 import (
 	"fmt"
+	"strings"
 
 	"hess/chem"
 	"hess/lang"
+	"hess/thermo"
 )
 
 // compiler turns the parsed files of a network into its model. The
@@ -15,12 +17,33 @@ type compiler struct {
 	out  *lang.Diagnostics   // where report writes; nil for net.Diagnostics
 	refs map[string]*Species // species by reference as written, when caching
 	near *nearIndexes        // near-miss names, shared by the workers
+	// units are units as written that parsed, when caching: a network
+	// writes the same few units thousands of times. At most maxUnitCache.
+	units map[string]thermo.Unit
+}
+
+// maxUnitCache bounds a worker's cache of parsed units: a file may write a
+// different unit on every line.
+const maxUnitCache = 64
+
+// parseUnit is thermo.ParseUnit through the compiler's cache when it keeps
+// one.
+func (c *compiler) parseUnit(text string) (thermo.Unit, error) {
+	if u, ok := c.units[text]; ok {
+		return u, nil
+	}
+	u, err := thermo.ParseUnit(text)
+	if err == nil && c.units != nil && len(c.units) < maxUnitCache {
+		// A copy of the key: text lies in the source (see lookup).
+		c.units[strings.Clone(text)] = u
+	}
+	return u, err
 }
 
 // worker returns a compiler for one worker of a parallel pass, reporting
 // into out.
 func (c *compiler) worker(out *lang.Diagnostics) *compiler {
-	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near}
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near, units: map[string]thermo.Unit{}}
 }
 
 func (c *compiler) report(check *Check, span lang.Span, format string, args ...any) *lang.Diagnostic {

@@ -216,8 +216,12 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) bool {
 		c.report(implausibleValueCheck, p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
 		return false
 	}
-	sp.Ranges = append(sp.Ranges, &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
-		Header: keywordSpan(&p.Node).Join(p.To.Span())})
+	r := &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
+		Header: keywordSpan(&p.Node).Join(p.To.Span())}
+	// Built once here, so that the model, the checks and every evaluation
+	// share one (parallel checks read it, never build it).
+	r.m = r.buildModel()
+	sp.Ranges = append(sp.Ranges, r)
 	return true
 }
 

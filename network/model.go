@@ -140,6 +140,8 @@ type PolyRange struct {
 	Coeffs     []float64
 	Span       lang.Span
 	Header     lang.Span // the keyword and the bounds, "shomate 298 K to 1200 K"
+
+	m thermo.Model // the range as a model, built once by the compiler; see model
 }
 
 // Species is one declared species.

@@ -40,6 +40,9 @@ var errHexNumber = errors.New("hexadecimal numbers are not part of the language"
 
 // parseNumber reads a number token: a decimal, scientific, or p/q fraction.
 func parseNumber(text string) (float64, error) {
+	if v, ok := fastFloat(text); ok {
+		return v, nil
+	}
 	if p, q, ok := strings.Cut(text, "/"); ok {
 		num, err1 := strconv.ParseFloat(p, 64)
 		den, err2 := strconv.ParseFloat(q, 64)
@@ -126,7 +129,7 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 		c.report(missingUnitCheck, q.Value.Span(), "%s needs a unit of %s, such as %s", what, kind.name, kind.example)
 		return nil, false
 	}
-	u, err := thermo.ParseUnit(q.Unit.Text)
+	u, err := c.parseUnit(q.Unit.Text)
 	if err != nil {
 		c.report(unitMismatchCheck, q.Unit.Span(), "%s takes %s (such as %s): %s",
 			what, kind.name, kind.example, unitErrorMessage(err, kind.dim))

@@ -38,7 +38,7 @@ func (c *ReactionK) okAt(T float64) bool {
 // on both sides (so none cancels out). False means the full calculation
 // must decide. known caches each species' answer across calls with the
 // same temps.
-func speciesGiveDeltaG(rx *Reaction, temps []float64, known map[*Species]bool) bool {
+func speciesGiveDeltaG(rx *Reaction, temps []float64, known *givesG) bool {
 	if len(rx.Left)+len(rx.Right) == 0 {
 		return false
 	}
@@ -54,17 +54,39 @@ func speciesGiveDeltaG(rx *Reaction, temps []float64, known map[*Species]bool) b
 			if t.Species == nil || t.Coef == nil || t.Coef.Sign() == 0 {
 				return false
 			}
-			ok, seen := known[t.Species]
-			if !seen {
-				ok = modelGivesG(t.Species.Model(), temps)
-				known[t.Species] = ok
-			}
-			if !ok {
+			if !known.of(t.Species, temps) {
 				return false
 			}
 		}
 	}
 	return true
+}
+
+// givesG caches modelGivesG for the species of one network at one list of
+// temperatures, by declaration index.
+type givesG struct {
+	species []*Species // the network's, in declaration order
+	answer  []int8     // by index: 0 not yet asked, 1 gives G°, -1 does not
+}
+
+func newGivesG(n *Network) *givesG {
+	return &givesG{species: n.Species, answer: make([]int8, len(n.Species))}
+}
+
+// of is modelGivesG(sp.Model(), temps), worked out once per species of the
+// network (a species from elsewhere is worked out every time).
+func (g *givesG) of(sp *Species, temps []float64) bool {
+	i := sp.index
+	if i < 0 || i >= len(g.species) || g.species[i] != sp {
+		return modelGivesG(sp.Model(), temps)
+	}
+	if g.answer[i] == 0 {
+		g.answer[i] = -1
+		if modelGivesG(sp.Model(), temps) {
+			g.answer[i] = 1
+		}
+	}
+	return g.answer[i] > 0
 }
 
 // modelGivesG reports whether m holds beyond 298.15 K and gives a finite

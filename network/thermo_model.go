@@ -88,8 +88,7 @@ func (s *Species) buildModel() thermo.Model {
 // sortedRanges returns the ranges in the order thermo.Piecewise keeps them:
 // by lower bound, ties in source order.
 func sortedRanges(rs []*PolyRange) []*PolyRange {
-	out := slices.Clone(rs)
-	slices.SortStableFunc(out, func(a, b *PolyRange) int {
+	byTmin := func(a, b *PolyRange) int {
 		switch {
 		case a.Tmin < b.Tmin:
 			return -1
@@ -97,12 +96,27 @@ func sortedRanges(rs []*PolyRange) []*PolyRange {
 			return 1
 		}
 		return 0
-	})
+	}
+	if slices.IsSortedFunc(rs, byTmin) {
+		// Ranges are nearly always written in order; callers only read.
+		return rs
+	}
+	out := slices.Clone(rs)
+	slices.SortStableFunc(out, byTmin)
 	return out
 }
 
-// model is the range as a thermo model, or nil when its numbers are unusable.
+// model is the range as a thermo model, or nil when its numbers are
+// unusable: the one the compiler built, else built now.
 func (r *PolyRange) model() thermo.Model {
+	if r.m != nil {
+		return r.m
+	}
+	return r.buildModel()
+}
+
+// buildModel is model built from the range's numbers.
+func (r *PolyRange) buildModel() thermo.Model {
 	if !(r.Tmin > 0) || !(r.Tmax > r.Tmin) || math.IsInf(r.Tmax, 0) {
 		return nil
 	}
@@ -204,7 +218,19 @@ func isGibbsOnly(m thermo.Model) bool {
 // covers reports whether the model's data (not an extrapolation) hold at T:
 // inside one of a piecewise model's ranges, inside a range-less model's
 // span, or at 298.15 K for gf alone.
-func covers(m thermo.Model, T float64) bool { return coveredBy(coverage(m), T) }
+func covers(m thermo.Model, T float64) bool {
+	if pw, ok := m.(*thermo.Piecewise); ok {
+		// As coverage, without building the list: checks ask this of
+		// every species at every temperature.
+		for _, b := range pw.Bounds() {
+			if T >= b[0]-thermo.JoinTolerance && T <= b[1]+thermo.JoinTolerance {
+				return true
+			}
+		}
+		return false
+	}
+	return coveredBy(coverage(m), T)
+}
 
 // coverage lists the spans of temperature where a model's data hold.
 func coverage(m thermo.Model) [][2]float64 {

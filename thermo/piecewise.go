@@ -71,6 +71,10 @@ func checkRange(lo, hi float64) error {
 // Pieces returns the ranges in order of their lower bound.
 func (p *Piecewise) Pieces() []Model { return slices.Clone(p.pieces) }
 
+// Bounds returns each range's Tmin and Tmax, in order of the lower bound.
+// The slice is the model's own: callers must not change it.
+func (p *Piecewise) Bounds() [][2]float64 { return p.bounds }
+
 // piece chooses the range that answers at T.
 func (p *Piecewise) piece(T float64) Model { return p.pieces[p.pieceIndex(T)] }
 
