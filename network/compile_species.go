@@ -200,8 +200,8 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) bool {
 		c.report(syntaxCheck, keywordSpan(&p.Node), "%s takes %d coefficients (%s), found %d", p.Kind, want, names, len(p.Coeffs))
 		return false
 	}
-	from, ok1 := c.quantity(p.From, temperatureKind, "range start", false)
-	to, ok2 := c.quantity(p.To, temperatureKind, "range end", false)
+	from, _, ok1 := c.quantitySI(p.From, temperatureKind, "range start", false)
+	to, _, ok2 := c.quantitySI(p.To, temperatureKind, "range end", false)
 	coeffs := make([]float64, 0, want)
 	ok3 := true
 	for _, num := range p.Coeffs {
@@ -212,11 +212,11 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) bool {
 	if !ok1 || !ok2 || !ok3 {
 		return false
 	}
-	if from.V <= 0 || to.V <= from.V {
+	if from <= 0 || to <= from {
 		c.report(implausibleValueCheck, p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
 		return false
 	}
-	r := &PolyRange{Kind: p.Kind, Tmin: from.V, Tmax: to.V, Coeffs: coeffs, Span: p.Span(),
+	r := &PolyRange{Kind: p.Kind, Tmin: from, Tmax: to, Coeffs: coeffs, Span: p.Span(),
 		Header: keywordSpan(&p.Node).Join(p.To.Span())}
 	// Built once here, so that the model, the checks and every evaluation
 	// share one (parallel checks read it, never build it).

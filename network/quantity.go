@@ -106,34 +106,43 @@ func (c *compiler) number(num *lang.Num) (float64, bool) {
 // the property in messages. A temperature difference (a step) passes
 // difference=true so that °C converts by scale only.
 func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, difference bool) (*Value, bool) {
-	if q == nil || q.Value == nil {
-		return nil, false
-	}
-	v, ok := c.number(q.Value)
+	v, sigma, ok := c.quantitySI(q, kind, what, difference)
 	if !ok {
 		return nil, false
 	}
-	var sigma float64
+	return &Value{V: v, Sigma: sigma, Span: q.Span(), Stated: q.Sigma != nil}, true
+}
+
+// quantitySI is quantity's value and uncertainty in SI, for a caller that
+// keeps only the numbers (a range's bounds).
+func (c *compiler) quantitySI(q *lang.Quantity, kind quantityKind, what string, difference bool) (v, sigma float64, ok bool) {
+	if q == nil || q.Value == nil {
+		return 0, 0, false
+	}
+	x, ok := c.number(q.Value)
+	if !ok {
+		return 0, 0, false
+	}
 	if q.Sigma != nil {
 		s, ok := c.number(q.Sigma)
 		if !ok {
-			return nil, false
+			return 0, 0, false
 		}
 		if s < 0 {
 			c.report(syntaxCheck, q.Sigma.Span(), "an uncertainty cannot be negative, found %s", q.Sigma.Text)
-			return nil, false
+			return 0, 0, false
 		}
 		sigma = s
 	}
 	if q.Unit == nil {
 		c.report(missingUnitCheck, q.Value.Span(), "%s needs a unit of %s, such as %s", what, kind.name, kind.example)
-		return nil, false
+		return 0, 0, false
 	}
 	u, err := c.parseUnit(q.Unit.Text)
 	if err != nil {
 		c.report(unitMismatchCheck, q.Unit.Span(), "%s takes %s (such as %s): %s",
 			what, kind.name, kind.example, unitErrorMessage(err, kind.dim))
-		return nil, false
+		return 0, 0, false
 	}
 	if u.Dim != kind.dim {
 		msg := fmt.Sprintf("%s takes %s (such as %s), found %s (%s)",
@@ -142,19 +151,19 @@ func (c *compiler) quantity(q *lang.Quantity, kind quantityKind, what string, di
 			msg += "; " + suggest.DidYouMean(fix)
 		}
 		c.report(unitMismatchCheck, q.Unit.Span(), "%s", msg)
-		return nil, false
+		return 0, 0, false
 	}
-	out := &Value{Sigma: sigma * u.Scale, Span: q.Span(), Stated: q.Sigma != nil}
+	sigma *= u.Scale
 	if difference {
-		out.V = v * u.Scale
+		v = x * u.Scale
 	} else {
-		out.V = u.ToSI(v)
+		v = u.ToSI(x)
 	}
-	if math.IsInf(out.V, 0) || math.IsInf(out.Sigma, 0) || math.IsNaN(out.V) {
+	if math.IsInf(v, 0) || math.IsInf(sigma, 0) || math.IsNaN(v) {
 		c.report(syntaxCheck, q.Span(), "%s %s %s is out of range once converted to SI units", what, q.Value.Text, q.Unit.Text)
-		return nil, false
+		return 0, 0, false
 	}
-	return out, true
+	return v, sigma, true
 }
 
 // quantityText prints a quantity as written, for messages.
