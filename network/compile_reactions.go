@@ -143,7 +143,7 @@ func (c *compiler) lookup(ref string) *Species {
 func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	for _, t := range terms {
-		term := Term{Coef: sharedRat(1), Span: t.Span()}
+		term := Term{Coef: sharedRat(1)}
 		n, small := int64(1), true
 		if t.Coef != nil {
 			n, small = smallCoef(t.Coef.Text)

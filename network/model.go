@@ -183,11 +183,13 @@ type Species struct {
 
 // Term is one species with its exact coefficient on one side of a reaction.
 // Coef may be shared with other terms (small whole numbers are): never
-// change it in place.
+// change it in place. Where a term was written is in the reaction's
+// syntax tree (Reaction.Equation spans them all): a network holds
+// hundreds of thousands of terms, which checks walk again and again, so
+// a term keeps only these two words.
 type Term struct {
 	Coef    *big.Rat
 	Species *Species // nil when undefined
-	Span    lang.Span
 }
 
 // ComboTerm is one weighted reaction of a coupled reaction's combination.

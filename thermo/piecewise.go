@@ -115,10 +115,9 @@ func (p *Piecewise) G(T float64) float64 { return p.piece(T).G(T) }
 
 // Range spans from the lowest Tmin to the highest Tmax of the ranges.
 func (p *Piecewise) Range() (Tmin, Tmax float64) {
-	Tmin, Tmax = p.pieces[0].Range()
-	for _, m := range p.pieces[1:] {
-		_, hi := m.Range()
-		Tmax = math.Max(Tmax, hi)
+	Tmin, Tmax = p.bounds[0][0], p.bounds[0][1]
+	for _, b := range p.bounds[1:] {
+		Tmax = math.Max(Tmax, b[1])
 	}
 	return Tmin, Tmax
 }
