@@ -146,14 +146,30 @@ type PolyRange struct {
 
 // Species is one declared species.
 type Species struct {
+	// The fields a reaction's compile and the checks read for every term
+	// come first, so that they share a cache line or two: a large network
+	// reads them hundreds of thousands of times, in no useful order.
+
 	Key        string // canonical reference, e.g. SO4^2-(aq)
-	Parts      lang.RefParts
-	Span       lang.Span // the reference in its declaration
-	Label      string
-	Formula    chem.Formula
-	HasFormula bool // the formula parsed
+	HasFormula bool   // the formula parsed
+	Used       bool   // appears in some reaction
+	// BrokenData reports that a thermodynamic value of the species (hf,
+	// gf, s, cp or a polynomial range) was written but did not compile.
+	// Its error is reported where it was written; checks that would miss
+	// that value (missing-thermo) stay quiet rather than report the
+	// consequence.
+	BrokenData bool
+	built      bool
 	Charge     int
-	Phase      *Phase // nil when untagged or the tag is unknown
+	Phase      *Phase       // nil when untagged or the tag is unknown
+	index      int          // declaration order in the network
+	ints       speciesInts  // the formula in small integers
+	model      thermo.Model // built once the species is compiled; see Model
+
+	Parts   lang.RefParts
+	Span    lang.Span // the reference in its declaration
+	Label   string
+	Formula chem.Formula
 
 	Hf, Gf, S, Cp *Value
 	// Size is the ion-size parameter å in m (SI); Setschenow a neutral
@@ -162,19 +178,6 @@ type Species struct {
 	Ranges           []*PolyRange
 	Source, Note     string
 
-	Used bool // appears in some reaction
-
-	// BrokenData reports that a thermodynamic value of the species (hf,
-	// gf, s, cp or a polynomial range) was written but did not compile.
-	// Its error is reported where it was written; checks that would miss
-	// that value (missing-thermo) stay quiet rather than report the
-	// consequence.
-	BrokenData bool
-
-	index int          // declaration order in the network
-	ints  speciesInts  // the formula in small integers
-	model thermo.Model // built once the species is compiled; see Model
-	built bool
 	// derivedS is S° worked out from hf and gf (see DerivedS); p0 the
 	// network's standard pressure, which that derivation uses.
 	derivedS *Value
@@ -218,27 +221,28 @@ type Rate struct {
 
 // Reaction is one reaction of the network.
 type Reaction struct {
-	Name       string
-	NameSpan   lang.Span
-	Span       lang.Span // the whole statement
-	Equation   lang.Span // from the first term to the last
-	Left       []Term
-	Right      []Term
-	TwoWay     bool
+	// The fields checks read of every reaction come first (see Species).
+
+	Name  string
+	Left  []Term
+	Right []Term
+	// Resolved reports that every species of the equation is declared.
+	Resolved bool
+	TwoWay   bool
+	// BrokenData reports that some of the reaction's own data (dg, dh, ds,
+	// logk) was written but did not compile; see Species.BrokenData.
+	BrokenData bool
+	stoich     stoichFacts // worked out by the compiler once resolved
 	Combo      []ComboTerm
 	Dg, Dh, Ds *Value
 	LogK       []LogK
 	Rate       *Rate
 	Reverse    *Rate
-	Source     string
 
-	// Resolved reports that every species of the equation is declared.
-	Resolved bool
-	// BrokenData reports that some of the reaction's own data (dg, dh, ds,
-	// logk) was written but did not compile; see Species.BrokenData.
-	BrokenData bool
-
-	stoich stoichFacts // worked out by the compiler once resolved
+	NameSpan lang.Span
+	Span     lang.Span // the whole statement
+	Equation lang.Span // from the first term to the last
+	Source   string
 }
 
 // Mixture is a named composition at a temperature and pressure.
