@@ -22,13 +22,18 @@ func (s *Species) Model() thermo.Model {
 }
 
 // buildModels builds every species' model once the network is compiled, so
-// that Model is a plain read afterwards (safe for concurrent readers).
+// that Model is a plain read afterwards (safe for concurrent readers). Each
+// species' model depends only on the species and the settings, so the
+// species are built in parallel.
 func buildModels(n *Network) {
-	for _, sp := range n.Species {
-		sp.p0, _ = n.DataPressure(sp.Span.File)
-		sp.model = n.pressureShiftedModel(sp, sp.buildModel())
-		sp.built = true
-	}
+	parallel(len(n.Species), 256, func() func(i int) {
+		return func(i int) {
+			sp := n.Species[i]
+			sp.p0, _ = n.DataPressure(sp.Span.File)
+			sp.model = n.pressureShiftedModel(sp, sp.buildModel())
+			sp.built = true
+		}
+	})
 }
 
 func (s *Species) buildModel() thermo.Model {
