@@ -145,40 +145,67 @@ const tableBatch = 128
 
 // each computes the document's tables in order and hands each to fn as
 // soon as its batch is ready; it stops at fn's first error and returns it.
+// While fn takes one batch (a renderer formatting numbers), the next batch
+// is computed, so rendering and computing overlap; at most two batches are
+// held at once.
 func (doc *tableDoc) each(fn func(tableEntry) error) error {
-	batch := make([]tableEntry, 0, tableBatch)
 	workers := max(1, runtime.GOMAXPROCS(0))
 	// One tabulator per worker, kept over the batches: each shares the
-	// parts of coupled reactions among the reactions it computes.
+	// parts of coupled reactions among the reactions it computes. Only one
+	// batch is computed at a time, so no tabulator is used by two
+	// goroutines at once.
 	tabs := make([]*equilibrium.Tabulator, workers)
 	for w := range tabs {
 		tabs[w] = equilibrium.NewTabulator(doc.net, doc.Temps)
 	}
-	for start := 0; start < len(doc.reactions); start += tableBatch {
+	// compute starts computing the batch of reactions from start and
+	// returns where its tables will be once the channel is closed.
+	compute := func(start int) (<-chan struct{}, []tableEntry) {
 		rxs := doc.reactions[start:min(start+tableBatch, len(doc.reactions))]
-		batch = batch[:len(rxs)]
-		var next atomic.Int64
-		var wg sync.WaitGroup
-		for w := range min(workers, len(rxs)) {
-			wg.Add(1)
-			go func() {
-				tab := tabs[w]
-				defer wg.Done()
-				for i := int(next.Add(1)) - 1; i < len(rxs); i = int(next.Add(1)) - 1 {
-					e := tableEntry{Table: tab.Table(rxs[i])}
-					if doc.fitReverse {
-						e.Reverse = reverseRate(doc.net, rxs[i], doc.Temps)
+		batch := make([]tableEntry, len(rxs))
+		done := make(chan struct{})
+		go func() {
+			defer close(done)
+			var next atomic.Int64
+			var wg sync.WaitGroup
+			for w := range min(workers, len(rxs)) {
+				wg.Add(1)
+				go func() {
+					tab := tabs[w]
+					defer wg.Done()
+					for i := int(next.Add(1)) - 1; i < len(rxs); i = int(next.Add(1)) - 1 {
+						e := tableEntry{Table: tab.Table(rxs[i])}
+						if doc.fitReverse {
+							e.Reverse = reverseRate(doc.net, rxs[i], doc.Temps)
+						}
+						batch[i] = e
 					}
-					batch[i] = e
-				}
-			}()
+				}()
+			}
+			wg.Wait()
+		}()
+		return done, batch
+	}
+	if len(doc.reactions) == 0 {
+		return nil
+	}
+	done, batch := compute(0)
+	for start := 0; start < len(doc.reactions); start += tableBatch {
+		<-done
+		cur := batch
+		if next := start + tableBatch; next < len(doc.reactions) {
+			done, batch = compute(next)
+		} else {
+			done = nil
 		}
-		wg.Wait()
-		for i := range batch {
-			if err := fn(batch[i]); err != nil {
+		for i := range cur {
+			if err := fn(cur[i]); err != nil {
+				if done != nil {
+					<-done // the next batch uses the tabulators: let it end
+				}
 				return err
 			}
-			batch[i] = tableEntry{}
+			cur[i] = tableEntry{}
 		}
 	}
 	return nil

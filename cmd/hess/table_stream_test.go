@@ -3,10 +3,12 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"errors"
 	"io"
 	"path/filepath"
 	"runtime"
 	"testing"
+	"time"
 
 	"hess/network"
 	"hess/synth"
@@ -113,5 +115,58 @@ func TestTableJSONStreamedAsEncoded(t *testing.T) {
 				t.Errorf("%d reactions: streamed JSON differs from the encoded document", len(doc.reactions))
 			}
 		}
+	}
+}
+
+// TestTableEachStopsAtError checks that each, which computes the next
+// batch while the caller takes one, returns the caller's first error at
+// once and leaves nothing computing behind.
+func TestTableEachStopsAtError(t *testing.T) {
+	root := streamedNetwork(t)
+	net := network.Load(root, network.Disk{}, network.Options{})
+	doc, err := newTableDoc(net, root, net.Settings.Temperatures, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(doc.reactions) <= tableBatch {
+		t.Fatalf("%d reactions: the test needs more than one batch", len(doc.reactions))
+	}
+	before := runtime.NumGoroutine()
+	stop := errors.New("stop")
+	seen := 0
+	err = doc.each(func(e tableEntry) error {
+		seen++
+		if e.Reaction != doc.reactions[seen-1] {
+			t.Fatalf("entry %d is %s, want %s", seen, e.Reaction.Name, doc.reactions[seen-1].Name)
+		}
+		if seen == 3 {
+			return stop
+		}
+		return nil
+	})
+	if !errors.Is(err, stop) || seen != 3 {
+		t.Fatalf("each returned %v after %d entries, want the caller's error after 3", err, seen)
+	}
+	// The goroutines of the batch computed ahead end before each returns;
+	// give the scheduler a moment to retire them.
+	for range 100 {
+		if runtime.NumGoroutine() <= before {
+			break
+		}
+		time.Sleep(time.Millisecond)
+	}
+	if n := runtime.NumGoroutine(); n > before {
+		t.Errorf("%d goroutines after each returned, %d before", n, before)
+	}
+	// All of them, in order, when the caller takes every one.
+	seen = 0
+	if err := doc.each(func(e tableEntry) error {
+		if e.Reaction != doc.reactions[seen] {
+			t.Fatalf("entry %d is %s, want %s", seen, e.Reaction.Name, doc.reactions[seen].Name)
+		}
+		seen++
+		return nil
+	}); err != nil || seen != len(doc.reactions) {
+		t.Fatalf("each: %v after %d of %d entries", err, seen, len(doc.reactions))
 	}
 }
