@@ -35,19 +35,19 @@ func implausiblePolynomials(p *Pass) {
 			}
 			neutral := sp.Charge == 0
 			if neutral && minCp <= 0 {
-				p.Reportf(r.Header, "%s gives Cp° = %.4g J/mol/K at %s; Cp° must be positive", where(), minCp, kelvin(tMinCp))
+				p.Reportf(r.Header(), "%s gives Cp° = %.4g J/mol/K at %s; Cp° must be positive", where(), minCp, kelvin(tMinCp))
 			}
 			if neutral && minS < 0 {
-				p.Reportf(r.Header, "%s gives S° = %.4g J/mol/K at %s; S° of a neutral species cannot be negative", where(), minS, kelvin(tMinS))
+				p.Reportf(r.Header(), "%s gives S° = %.4g J/mol/K at %s; S° of a neutral species cannot be negative", where(), minS, kelvin(tMinS))
 			}
 			if maxCp > maxEntropy {
-				p.Reportf(r.Header, "%s gives Cp° = %.4g J/mol/K at %s, above %g J/mol/K; check the coefficients", where(), maxCp, kelvin(tMaxCp), maxEntropy)
+				p.Reportf(r.Header(), "%s gives Cp° = %.4g J/mol/K at %s, above %g J/mol/K; check the coefficients", where(), maxCp, kelvin(tMaxCp), maxEntropy)
 			}
 			if maxS > maxEntropy {
-				p.Reportf(r.Header, "%s gives S° = %.4g J/mol/K at %s, above %g J/mol/K; check the coefficients", where(), maxS, kelvin(tMaxS), maxEntropy)
+				p.Reportf(r.Header(), "%s gives S° = %.4g J/mol/K at %s, above %g J/mol/K; check the coefficients", where(), maxS, kelvin(tMaxS), maxEntropy)
 			}
 			if math.Abs(maxH) > maxFormationEnergy {
-				p.Reportf(r.Header, "%s gives H° = %.4g kJ/mol at %s, beyond ±%g kJ/mol; check the coefficients", where(), maxH/1000, kelvin(tMaxH), maxFormationEnergy/1000)
+				p.Reportf(r.Header(), "%s gives H° = %.4g kJ/mol at %s, beyond ±%g kJ/mol; check the coefficients", where(), maxH/1000, kelvin(tMaxH), maxFormationEnergy/1000)
 			}
 		}
 	}

@@ -72,22 +72,22 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 			// The lower range, named beside a report (worked out only for
 			// a join reported: checks see every join of every species).
 			related := func() []lang.Related {
-				return []lang.Related{{Span: lower.Header, Message: fmt.Sprintf("%s range %s to %s", lower.Kind, kelvin(lower.Tmin), kelvin(lower.Tmax))}}
+				return []lang.Related{{Span: lower.Header(), Message: fmt.Sprintf("%s range %s to %s", lower.Kind, kelvin(lower.Tmin), kelvin(lower.Tmax))}}
 			}
 			switch kind {
 			case thermo.JoinGap:
-				p.Report(lang.Diagnostic{Subject: upper.Header, Context: upper.Span, Related: related(), Message: fmt.Sprintf(
+				p.Report(lang.Diagnostic{Subject: upper.Header(), Context: upper.Span(), Related: related(), Message: fmt.Sprintf(
 					"the ranges of %s leave a gap of %s, from %s to %s, with no data",
 					sp.Key, kelvin(j.Gap), kelvin(j.LowerTmax), kelvin(j.UpperTmin))})
 			case thermo.JoinOverlap:
-				p.Report(lang.Diagnostic{Subject: upper.Header, Context: upper.Span, Related: related(), Message: fmt.Sprintf(
+				p.Report(lang.Diagnostic{Subject: upper.Header(), Context: upper.Span(), Related: related(), Message: fmt.Sprintf(
 					"the ranges of %s overlap by %s, from %s to %s",
 					sp.Key, kelvin(-j.Gap), kelvin(j.UpperTmin), kelvin(j.LowerTmax))})
 			case thermo.JoinMeet:
 				if !jumps(j, lower.model(), upper.model(), p.Net.Settings.Tolerance) {
 					continue
 				}
-				p.Report(lang.Diagnostic{Subject: upper.Header, Context: upper.Span, Related: related(), Message: fmt.Sprintf(
+				p.Report(lang.Diagnostic{Subject: upper.Header(), Context: upper.Span(), Related: related(), Message: fmt.Sprintf(
 					"%s jumps at %s: Cp° by %s J/mol/K, H° by %s kJ/mol, S° by %s J/mol/K",
 					sp.Key, kelvin(j.T), signed(j.DCp), signed(j.DH/1000), signed(j.DS))})
 			}

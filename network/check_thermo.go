@@ -331,7 +331,7 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 			related := func() []lang.Related {
 				for _, r := range sp.Ranges {
 					if thermo.T298 >= r.Tmin-thermo.JoinTolerance && thermo.T298 <= r.Tmax+thermo.JoinTolerance {
-						return []lang.Related{{Span: r.Header, Message: fmt.Sprintf("%s range %s to %s", r.Kind, kelvin(r.Tmin), kelvin(r.Tmax))}}
+						return []lang.Related{{Span: r.Header(), Message: fmt.Sprintf("%s range %s to %s", r.Kind, kelvin(r.Tmin), kelvin(r.Tmax))}}
 					}
 				}
 				return nil

@@ -253,12 +253,11 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
 	var seen givenOnce
 	for _, pr := range props {
-		key := keywordSpan(&pr.Node)
 		name := pr.Tokens[0].Value
 		if name != "logk" {
-			if first, dup := seen.add(name, key); dup {
-				d := c.report(syntaxCheck, key, "%s is given twice for reaction %s", name, rx.Name)
-				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
+			if first, dup := seen.add(name, &pr.Node); dup {
+				d := c.report(syntaxCheck, keywordSpan(&pr.Node), "%s is given twice for reaction %s", name, rx.Name)
+				d.Related = []lang.Related{{Span: keywordSpan(first), Message: "first given here"}}
 				continue
 			}
 		}

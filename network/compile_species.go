@@ -98,15 +98,16 @@ func (c *compiler) speciesStatement(d declaredSpecies) {
 }
 
 // givenOnce records where each property of a block was first given.
-// Blocks are short, so a list serves.
+// Blocks are short, so a list serves; a property's span is worked out only
+// for a report.
 type givenOnce []struct {
 	name string
-	at   lang.Span
+	at   *lang.Node
 }
 
 // add records name given at at, unless it was given before; then it
 // returns where, and dup is true.
-func (g *givenOnce) add(name string, at lang.Span) (first lang.Span, dup bool) {
+func (g *givenOnce) add(name string, at *lang.Node) (first *lang.Node, dup bool) {
 	for _, e := range *g {
 		if e.name == name {
 			return e.at, true
@@ -114,9 +115,9 @@ func (g *givenOnce) add(name string, at lang.Span) (first lang.Span, dup bool) {
 	}
 	*g = append(*g, struct {
 		name string
-		at   lang.Span
+		at   *lang.Node
 	}{name, at})
-	return lang.Span{}, false
+	return nil, false
 }
 
 // properties reads a species block. It returns the explicit formula, if any.
@@ -125,12 +126,11 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 	var formula string
 	var formulaSpan lang.Span
 	for _, pr := range props {
-		key := keywordSpan(&pr.Node)
 		name := pr.Tokens[0].Value
 		if name != "shomate" && name != "nasa7" {
-			if first, dup := seen.add(name, key); dup {
-				d := c.report(syntaxCheck, key, "%s is given twice for %s", name, sp.Key)
-				d.Related = []lang.Related{{Span: first, Message: "first given here"}}
+			if first, dup := seen.add(name, &pr.Node); dup {
+				d := c.report(syntaxCheck, keywordSpan(&pr.Node), "%s is given twice for %s", name, sp.Key)
+				d.Related = []lang.Related{{Span: keywordSpan(first), Message: "first given here"}}
 				continue
 			}
 		}
@@ -216,8 +216,7 @@ func (c *compiler) polynomial(sp *Species, p *lang.Polynomial) bool {
 		c.report(implausibleValueCheck, p.From.Span().Join(p.To.Span()), "%s range %s to %s must run upwards from above absolute zero", p.Kind, quantityText(p.From), quantityText(p.To))
 		return false
 	}
-	r := &PolyRange{Kind: p.Kind, Tmin: from, Tmax: to, Coeffs: coeffs, Span: p.Span(),
-		Header: keywordSpan(&p.Node).Join(p.To.Span())}
+	r := &PolyRange{Kind: p.Kind, Tmin: from, Tmax: to, Coeffs: coeffs, node: p}
 	// Built once here, so that the model, the checks and every evaluation
 	// share one (parallel checks read it, never build it).
 	r.m = r.buildModel()

@@ -138,10 +138,28 @@ type PolyRange struct {
 	Kind       string // "shomate" or "nasa7"
 	Tmin, Tmax float64
 	Coeffs     []float64
-	Span       lang.Span
-	Header     lang.Span // the keyword and the bounds, "shomate 298 K to 1200 K"
 
-	m thermo.Model // the range as a model, built once by the compiler; see model
+	node *lang.Polynomial // where it was written; see Span and Header
+	m    thermo.Model     // the range as a model, built once by the compiler; see model
+}
+
+// Span is where the range was written, from its keyword to its closing
+// brace. A network holds tens of thousands of ranges, which checks
+// report on seldom, so the span is worked out when asked for.
+func (r *PolyRange) Span() lang.Span {
+	if r.node == nil {
+		return lang.Span{}
+	}
+	return r.node.Span()
+}
+
+// Header is the range's keyword and bounds, "shomate 298 K to 1200 K":
+// where a report on the range points.
+func (r *PolyRange) Header() lang.Span {
+	if r.node == nil {
+		return lang.Span{}
+	}
+	return keywordSpan(&r.node.Node).Join(r.node.To.Span())
 }
 
 // Species is one declared species.
