@@ -20,6 +20,12 @@ type compiler struct {
 	// units are units as written that parsed, when caching: a network
 	// writes the same few units thousands of times. At most maxUnitCache.
 	units map[string]thermo.Unit
+	// declared are the species by the text of the reference that declared
+	// them: a reaction nearly always writes a species as it was declared,
+	// and the same text always names the same species, so lookup finds it
+	// there without splitting the reference. Written only while species
+	// are declared (serially), read by the workers after.
+	declared map[string]*Species
 }
 
 // maxUnitCache bounds a worker's cache of parsed units: a file may write a
@@ -43,7 +49,7 @@ func (c *compiler) parseUnit(text string) (thermo.Unit, error) {
 // worker returns a compiler for one worker of a parallel pass, reporting
 // into out.
 func (c *compiler) worker(out *lang.Diagnostics) *compiler {
-	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near, units: map[string]thermo.Unit{}}
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near, units: map[string]thermo.Unit{}, declared: c.declared}
 }
 
 func (c *compiler) report(check *Check, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -81,6 +87,7 @@ func compile(n *Network) {
 		}
 	})
 	n.speciesByKey = make(map[string]*Species, nSpecies)
+	c.declared = make(map[string]*Species, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)
 	n.Settings = Settings{Pressure: 1e5, Temperatures: []float64{298.15}, Tolerance: 500}
 

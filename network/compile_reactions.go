@@ -121,6 +121,9 @@ func (c *compiler) mentioned(st *lang.Statement) []*Species {
 // lookup finds a declared species by reference, through the compiler's
 // cache when it keeps one.
 func (c *compiler) lookup(ref string) *Species {
+	if sp, ok := c.declared[ref]; ok {
+		return sp
+	}
 	if c.refs == nil {
 		return c.net.LookupSpecies(ref)
 	}

@@ -23,6 +23,9 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		return nil
 	}
 	c.net.speciesByKey[sp.Key] = sp
+	if c.declared != nil {
+		c.declared[ref.Text] = sp
+	}
 	sp.index = len(c.net.Species)
 	c.net.Species = append(c.net.Species, sp)
 	if parts.State != "" {
