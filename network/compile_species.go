@@ -6,6 +6,7 @@ import (
 
 	"hess/chem"
 	"hess/lang"
+	"hess/thermo"
 )
 
 // declare registers one species reference of a species statement.
@@ -72,7 +73,9 @@ func (c *compiler) declareAll(s *lang.Species, broken bool) declaredSpecies {
 func (c *compiler) speciesData(list []declaredSpecies) {
 	diags := make([]lang.Diagnostics, len(list))
 	parallel(len(list), 256, func() func(i int) {
-		w := &compiler{net: c.net}
+		// A worker of its own, as c.worker's but without the lookup
+		// cache and near-miss index, which species data do not use.
+		w := &compiler{net: c.net, units: map[string]thermo.Unit{}, declared: c.declared}
 		return func(i int) {
 			w.out = &diags[i]
 			w.speciesStatement(list[i])
