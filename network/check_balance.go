@@ -49,10 +49,11 @@ The message gives both net charges.`,
 			if !rx.Resolved {
 				continue
 			}
-			if unchargedSpecies(rx) {
+			// The compiled facts first: they need no species read.
+			if f := rx.facts(); f.intOK && f.charge {
 				continue
 			}
-			if f := rx.facts(); f.intOK && f.charge {
+			if unchargedSpecies(rx) {
 				continue
 			}
 			l, r := netCharge(rx.Left), netCharge(rx.Right)

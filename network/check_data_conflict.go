@@ -49,7 +49,7 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 	row298 := rows[0]
 	var sH, sS float64 // species uncertainties of ΔrH° and ΔrS°
 	for _, t := range rx.NetTerms() {
-		nu, _ := t.Nu.Float64()
+		nu := ratFloat(t.Nu)
 		sg := t.Species.Sigma()
 		sH += nu * nu * sg.H * sg.H
 		sS += nu * nu * sg.S * sg.S
@@ -61,12 +61,14 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 	dgOwn := func(v float64) float64 { return v + thermo.R*thermo.T298*shift }
 	dsOwn := func(v float64) float64 { return v - thermo.R*shift }
 	logkOwn := func(v float64) float64 { return v - shift/math.Ln10 }
-	report := func(v *Value, diff, sigma float64, msg string) {
+	// report reports a datum that disagrees; its message is written only
+	// then (most data agree).
+	report := func(v *Value, diff, sigma float64, msg func() string) {
 		if math.IsNaN(diff) || math.Abs(diff) <= tol || math.Abs(diff) <= 2*sigma {
 			return
 		}
 		p.Report(lang.Diagnostic{Subject: v.Span, Context: rx.Span,
-			Message: fmt.Sprintf("%s: they differ by %s ± %s kJ/mol (tolerance %s kJ/mol)", msg, kjText(diff), kjText(sigma), kjText(tol))})
+			Message: fmt.Sprintf("%s: they differ by %s ± %s kJ/mol (tolerance %s kJ/mol)", msg(), kjText(diff), kjText(sigma), kjText(tol))})
 	}
 	if fromSpecies(row298) {
 		T := thermo.T298
@@ -75,16 +77,19 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 			sG = row298.SigmaLog10K * thermo.R * T * math.Ln10
 		}
 		if rx.Dg != nil {
-			report(rx.Dg, dgOwn(rx.Dg.V)-row298.DG, math.Hypot(rx.Dg.Sigma, sG),
-				fmt.Sprintf("dg of %s is %s kJ/mol, but its species give ΔrG° = %s kJ/mol at 298.15 K", rx.Name, kjText(dgOwn(rx.Dg.V)), kjText(row298.DG)))
+			report(rx.Dg, dgOwn(rx.Dg.V)-row298.DG, math.Hypot(rx.Dg.Sigma, sG), func() string {
+				return fmt.Sprintf("dg of %s is %s kJ/mol, but its species give ΔrG° = %s kJ/mol at 298.15 K", rx.Name, kjText(dgOwn(rx.Dg.V)), kjText(row298.DG))
+			})
 		}
 		if rx.Dh != nil && !math.IsNaN(row298.DH) {
-			report(rx.Dh, rx.Dh.V-row298.DH, math.Hypot(rx.Dh.Sigma, sH),
-				fmt.Sprintf("dh of %s is %s kJ/mol, but its species give ΔrH° = %s kJ/mol at 298.15 K", rx.Name, kjText(rx.Dh.V), kjText(row298.DH)))
+			report(rx.Dh, rx.Dh.V-row298.DH, math.Hypot(rx.Dh.Sigma, sH), func() string {
+				return fmt.Sprintf("dh of %s is %s kJ/mol, but its species give ΔrH° = %s kJ/mol at 298.15 K", rx.Name, kjText(rx.Dh.V), kjText(row298.DH))
+			})
 		}
 		if rx.Ds != nil && !math.IsNaN(row298.DS) {
-			report(rx.Ds, T*(dsOwn(rx.Ds.V)-row298.DS), T*math.Hypot(rx.Ds.Sigma, sS),
-				fmt.Sprintf("ds of %s is %.2f J/mol/K, but its species give ΔrS° = %.2f J/mol/K at 298.15 K (compared as T·ΔrS°)", rx.Name, dsOwn(rx.Ds.V), row298.DS))
+			report(rx.Ds, T*(dsOwn(rx.Ds.V)-row298.DS), T*math.Hypot(rx.Ds.Sigma, sS), func() string {
+				return fmt.Sprintf("ds of %s is %.2f J/mol/K, but its species give ΔrS° = %.2f J/mol/K at 298.15 K (compared as T·ΔrS°)", rx.Name, dsOwn(rx.Ds.V), row298.DS)
+			})
 		}
 	}
 	for _, lk := range rx.LogK {
@@ -104,8 +109,9 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 		if !math.IsNaN(row.SigmaLog10K) {
 			sK = row.SigmaLog10K
 		}
-		report(&lk.Value, f*(row.Log10K-logkOwn(lk.Value.V)), f*math.Hypot(lk.Value.Sigma, sK),
-			fmt.Sprintf("logk of %s is %s at %s, but its species give log10 K = %s (compared as R·T·ln 10 times the difference)",
-				rx.Name, short(logkOwn(lk.Value.V)), kelvin(lk.T), fmt.Sprintf("%.3f", row.Log10K)))
+		report(&lk.Value, f*(row.Log10K-logkOwn(lk.Value.V)), f*math.Hypot(lk.Value.Sigma, sK), func() string {
+			return fmt.Sprintf("logk of %s is %s at %s, but its species give log10 K = %s (compared as R·T·ln 10 times the difference)",
+				rx.Name, short(logkOwn(lk.Value.V)), kelvin(lk.T), fmt.Sprintf("%.3f", row.Log10K))
+		})
 	}
 }

@@ -152,7 +152,7 @@ func (d *determination) reduce() {
 	for j, rx := range d.rxs {
 		b[j] = d.data[j].v
 		for _, t := range rx.NetTerms() {
-			nu, _ := t.Nu.Float64()
+			nu := ratFloat(t.Nu)
 			if d.status[t.Species] == gibbsKnown {
 				b[j] -= nu * d.knowns[t.Species].g
 				continue
@@ -272,7 +272,7 @@ func (d *determination) value(weights map[int]float64) (value, variance float64)
 		variance += l * l * d.data[col].sigma * d.data[col].sigma
 		for _, t := range d.rxs[col].NetTerms() {
 			if d.status[t.Species] == gibbsKnown {
-				nu, _ := t.Nu.Float64()
+				nu := ratFloat(t.Nu)
 				if _, seen := speciesWeight[t.Species]; !seen {
 					order = append(order, t.Species)
 				}

@@ -45,10 +45,13 @@ func unitFitsOrder(r *Rate, side []Term) bool {
 }
 
 func checkRateUnit(p *Pass, rx *Reaction, r *Rate, side []Term, which string) {
-	order := stepOrder(side)
 	given, ok := prefactorOrder(r.AUnit)
-	if !ok || unitFitsOrder(r, side) {
+	if !ok {
 		return // the compiler has reported an unknown unit
+	}
+	order := stepOrder(side)
+	if order.IsInt() && order.Num().IsInt64() && order.Num().Int64() == int64(given) {
+		return // as unitFitsOrder, with the order worked out once
 	}
 	vol := volumeSymbol(r.AUnit)
 	if !order.IsInt() {

@@ -183,6 +183,7 @@ type Species struct {
 	index      int          // declaration order in the network
 	ints       speciesInts  // the formula in small integers
 	model      thermo.Model // built once the species is compiled; see Model
+	cover      [][2]float64 // coverage(model), built with it
 
 	Parts   lang.RefParts
 	Span    lang.Span // the reference in its declaration

@@ -166,7 +166,7 @@ func lnActivityFromConcentration(n *Network, rx *Reaction, T float64) float64 {
 		if !ok {
 			continue
 		}
-		nu, _ := t.Nu.Float64()
+		nu := ratFloat(t.Nu)
 		s += nu * math.Log(f)
 	}
 	return s

@@ -11,8 +11,26 @@ import (
 // stepOrder is the order of an elementary step's rate in one direction:
 // the sum of the coefficients of the species on that side, pure solids
 // and liquids left out (their activity is 1, so they do not enter a rate
-// law).
+// law). The result may be shared (see sharedRat): never change it in place.
 func stepOrder(terms []Term) *big.Rat {
+	// Whole coefficients add up in an integer: the usual step allocates
+	// only its result.
+	var small int64
+	exact := true
+	for _, t := range terms {
+		if t.Species == nil || t.Coef == nil || t.Species.QuotientActivity().Pure() {
+			continue
+		}
+		n, isInt := smallInt(t.Coef)
+		if !isInt {
+			exact = false
+			break
+		}
+		small += n
+	}
+	if exact {
+		return sharedRat(small)
+	}
 	o := new(big.Rat)
 	for _, t := range terms {
 		if t.Species == nil || t.Coef == nil || t.Species.QuotientActivity().Pure() {

@@ -180,7 +180,7 @@ func (n *Network) sumSpecies(c *ReactionK) {
 			c.anyGibbsOnly = true
 		}
 		c.sigmaStated = c.sigmaStated || sp.sigmaStated()
-		c.coverage = append(c.coverage, coverage(m))
+		c.coverage = append(c.coverage, sp.coverage())
 		c.abs.Terms = append(c.abs.Terms, thermo.Term{Nu: nu, Model: m, IsGas: a == thermo.ActivityGas, Activity: a, Sigma: sp.Sigma()})
 		var g thermo.Model
 		if sp.Gf != nil {

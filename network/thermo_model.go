@@ -31,6 +31,7 @@ func buildModels(n *Network) {
 			sp := n.Species[i]
 			sp.p0, _ = n.DataPressure(sp.Span.File)
 			sp.model = n.pressureShiftedModel(sp, sp.buildModel())
+			sp.cover = coverage(sp.model)
 			sp.built = true
 		}
 	})
@@ -237,16 +238,25 @@ func covers(m thermo.Model, T float64) bool {
 	return coveredBy(coverage(m), T)
 }
 
+// coverage is coverage(s.Model()), worked out once when the models are
+// built. Callers must not change it.
+func (s *Species) coverage() [][2]float64 {
+	if s.built {
+		return s.cover
+	}
+	return coverage(s.Model())
+}
+
 // coverage lists the spans of temperature where a model's data hold.
 func coverage(m thermo.Model) [][2]float64 {
 	if m == nil {
 		return nil
 	}
 	if pw, ok := m.(*thermo.Piecewise); ok {
-		var out [][2]float64
-		for _, p := range pw.Pieces() {
-			lo, hi := p.Range()
-			out = append(out, [2]float64{lo - thermo.JoinTolerance, hi + thermo.JoinTolerance})
+		bounds := pw.Bounds()
+		out := make([][2]float64, len(bounds))
+		for i, b := range bounds {
+			out[i] = [2]float64{b[0] - thermo.JoinTolerance, b[1] + thermo.JoinTolerance}
 		}
 		return out
 	}
