@@ -130,9 +130,10 @@ func speciesDetail(sp *network.Species) string {
 
 // equationText is a reaction's equation as written.
 func equationText(net *network.Network, rx *network.Reaction) string {
-	f := net.File(rx.Equation.File)
-	if f == nil || rx.Equation.End.Offset > len(f.Source) || rx.Equation.Start.Offset > rx.Equation.End.Offset {
+	eq := rx.Equation()
+	f := net.File(eq.File)
+	if f == nil || eq.End.Offset > len(f.Source) || eq.Start.Offset > eq.End.Offset {
 		return ""
 	}
-	return string(f.Source[rx.Equation.Start.Offset:rx.Equation.End.Offset])
+	return string(f.Source[eq.Start.Offset:eq.End.Offset])
 }

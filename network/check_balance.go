@@ -31,7 +31,7 @@ element with its left and right counts.`,
 				}
 			}
 			if len(parts) > 0 {
-				p.Report(lang.Diagnostic{Subject: rx.Equation, Context: rx.Span, Message: strings.Join(parts, "; ")})
+				p.Report(lang.Diagnostic{Subject: rx.Equation(), Context: rx.Span(), Message: strings.Join(parts, "; ")})
 			}
 		}
 	},
@@ -58,7 +58,7 @@ The message gives both net charges.`,
 			}
 			l, r := netCharge(rx.Left), netCharge(rx.Right)
 			if l.Cmp(r) != 0 {
-				p.Reportf(rx.Equation, "net charge: left %s, right %s", chargeText(l), chargeText(r))
+				p.Reportf(rx.Equation(), "net charge: left %s, right %s", chargeText(l), chargeText(r))
 			}
 		}
 	},

@@ -50,10 +50,10 @@ coefficient differs, as written and in the sum.`,
 				continue
 			}
 			combo := rx.Combo[0].Span.Join(rx.Combo[len(rx.Combo)-1].Span)
-			d := lang.Diagnostic{Subject: combo, Context: rx.Span,
+			d := lang.Diagnostic{Subject: combo, Context: rx.Span(),
 				Message: fmt.Sprintf("%s is not %s: %s (net coefficients, products positive)", rx.Name, comboText(rx.Combo), strings.Join(parts, "; "))}
 			for _, ct := range rx.Combo {
-				d.Related = append(d.Related, lang.Related{Span: ct.Reaction.NameSpan, Message: ct.Reaction.Name + ": " + ct.Reaction.EquationText()})
+				d.Related = append(d.Related, lang.Related{Span: ct.Reaction.NameSpan(), Message: ct.Reaction.Name + ": " + ct.Reaction.EquationText()})
 			}
 			p.Report(d)
 		}

@@ -91,7 +91,7 @@ func (a *cycleAnalysis) diagnostic(f *finding) lang.Diagnostic {
 	fmt.Fprintf(&msg, " (%s)", strings.Join(notes, "; "))
 
 	last := f.cycle.Last().Reaction
-	d := lang.Diagnostic{Subject: last.NameSpan, Context: last.Span, Message: msg.String()}
+	d := lang.Diagnostic{Subject: last.NameSpan(), Context: last.Span(), Message: msg.String()}
 	q := shown.q()
 	data := shown.group.data[shown.qi]
 	for _, t := range f.cycle.Terms {
@@ -101,7 +101,7 @@ func (a *cycleAnalysis) diagnostic(f *finding) lang.Diagnostic {
 			w = "+" + w
 		}
 		d.Related = append(d.Related, lang.Related{
-			Span:    t.Reaction.NameSpan,
+			Span:    t.Reaction.NameSpan(),
 			Message: fmt.Sprintf("%s, weight %s: %s = %s ± %s kJ/mol from %s", t.Reaction.Name, w, q, kjText(dt.v), kjText(dt.sigma), dt.from),
 		})
 	}

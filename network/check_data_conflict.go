@@ -67,7 +67,7 @@ func checkDataConflict(p *Pass, rx *Reaction) {
 		if math.IsNaN(diff) || math.Abs(diff) <= tol || math.Abs(diff) <= 2*sigma {
 			return
 		}
-		p.Report(lang.Diagnostic{Subject: v.Span, Context: rx.Span,
+		p.Report(lang.Diagnostic{Subject: v.Span, Context: rx.Span(),
 			Message: fmt.Sprintf("%s: they differ by %s ± %s kJ/mol (tolerance %s kJ/mol)", msg(), kjText(diff), kjText(sigma), kjText(tol))})
 	}
 	if fromSpecies(row298) {

@@ -302,7 +302,7 @@ func (d *determination) diagnostic(sp *Species, weights map[int]float64, value, 
 		}
 		rx, dt := d.rxs[col], d.data[col]
 		names = append(names, rx.Name)
-		related = append(related, lang.Related{Span: rx.NameSpan, Message: fmt.Sprintf("%s: %s = %s kJ/mol from %s", rx.Name, d.q, kjText(dt.v), dt.from)})
+		related = append(related, lang.Related{Span: rx.NameSpan(), Message: fmt.Sprintf("%s: %s = %s kJ/mol from %s", rx.Name, d.q, kjText(dt.v), dt.from)})
 	}
 	if len(names) > maxNamed {
 		names = append(names[:maxNamed], fmt.Sprintf("%d more", len(names)-maxNamed))

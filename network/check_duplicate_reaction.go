@@ -33,8 +33,8 @@ different reaction and is not reported.`,
 			if first.reversed != f.reversed {
 				msg = "reaction " + rx.Name + " is " + first.rx.Name + " reversed"
 			}
-			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg,
-				Related: []lang.Related{{Span: first.rx.NameSpan, Message: first.rx.Name + " defined here"}}})
+			p.Report(lang.Diagnostic{Subject: rx.NameSpan(), Context: rx.Span(), Message: msg,
+				Related: []lang.Related{{Span: first.rx.NameSpan(), Message: first.rx.Name + " defined here"}}})
 		}
 	},
 }

@@ -20,7 +20,7 @@ was left out. A reaction's own data (dg, logk, …) are not used for it.`,
 			if rx.Dg != nil || rx.Dh != nil || rx.Ds != nil || len(rx.LogK) > 0 {
 				msg += "; its own data are not used"
 			}
-			p.Reportf(rx.Equation, msg, rx.Name)
+			p.Reportf(rx.Equation(), msg, rx.Name)
 		}
 	},
 }

@@ -38,7 +38,7 @@ the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 				if len(without) == 1 {
 					verb = "has"
 				}
-				p.Reportf(rx.Equation, "some species of %s carry a heat capacity, but %s %s none (taken as Cp° = 0)",
+				p.Reportf(rx.Equation(), "some species of %s carry a heat capacity, but %s %s none (taken as Cp° = 0)",
 					rx.Name, strings.Join(without, ", "), verb)
 			}
 		}

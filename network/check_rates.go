@@ -74,8 +74,8 @@ make it a two-way step (its reverse rate is then checked against K(T)), or
 drop the reverse rate.`,
 	Run: func(p *Pass) {
 		for _, rx := range p.Net.Reactions {
-			if rx.Reverse != nil && !rx.TwoWay && rx.Equation.IsValid() {
-				p.Report(lang.Diagnostic{Subject: rx.Reverse.Span, Context: rx.Span,
+			if rx.Reverse != nil && !rx.TwoWay && rx.Equation().IsValid() {
+				p.Report(lang.Diagnostic{Subject: rx.Reverse.Span, Context: rx.Span(),
 					Message: fmt.Sprintf("%s is one-way (->) but has a reverse rate; write <-> or drop the reverse rate", rx.Name)})
 			}
 		}
@@ -171,7 +171,7 @@ func checkDetailedBalance(p *Pass, rx *Reaction) {
 	if failing > 1 {
 		msg += fmt.Sprintf("; off at %d more temperature%s", failing-1, plural(failing-1))
 	}
-	p.Report(lang.Diagnostic{Subject: rx.Reverse.Span, Context: rx.Span, Message: msg,
+	p.Report(lang.Diagnostic{Subject: rx.Reverse.Span, Context: rx.Span(), Message: msg,
 		Related: []lang.Related{{Span: rx.Rate.Span, Message: "forward rate of " + rx.Name}}})
 }
 

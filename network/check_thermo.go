@@ -93,7 +93,7 @@ func extrapolatedOwnData(p *Pass, rx *Reaction, temps []float64) {
 	if len(out) > 1 {
 		verb = "are"
 	}
-	p.Reportf(rx.NameSpan, "%s %s outside the own data of %s (%s from %s to %s); values there are extrapolated",
+	p.Reportf(rx.NameSpan(), "%s %s outside the own data of %s (%s from %s to %s); values there are extrapolated",
 		kelvinList(out), verb, rx.Name, what, kelvin(lo), kelvin(hi))
 }
 
@@ -225,7 +225,7 @@ message, and a reaction whose own data did not compile is not reported.`,
 			if len(reasons) > 0 {
 				msg += ": " + strings.Join(reasons, "; ")
 			}
-			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg, Related: related})
+			p.Report(lang.Diagnostic{Subject: rx.NameSpan(), Context: rx.Span(), Message: msg, Related: related})
 		}
 	},
 }

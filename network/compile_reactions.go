@@ -48,14 +48,14 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	}
 	c.out = &b.diags
 	validName := c.name(r.Name, "reaction")
-	rx := &Reaction{Name: r.Name.Name, NameSpan: r.Name.Span(), Span: r.Span()}
+	rx := &Reaction{Name: r.Name.Name, node: r}
 	b.rx = rx
 	b.complete = !st.Broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
 	if !b.complete {
 		return
 	}
 	rx.TwoWay = r.Arrow.TwoWay()
-	rx.Equation = r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
+	rx.equation = true
 	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
 	left, ok := c.side(r.Left, true, &coefs)
 	right, ok := c.side(r.Right, ok, &coefs)
@@ -88,8 +88,8 @@ func (c *compiler) addReaction(b builtReaction) {
 		}
 	}
 	if old, dup := c.net.reactionByName[rx.Name]; dup {
-		d := c.report(duplicateReactionNameCheck, rx.NameSpan, "reaction name %s is used twice", rx.Name)
-		d.Related = []lang.Related{{Span: old.NameSpan, Message: "first used here"}}
+		d := c.report(duplicateReactionNameCheck, rx.NameSpan(), "reaction name %s is used twice", rx.Name)
+		d.Related = []lang.Related{{Span: old.NameSpan(), Message: "first used here"}}
 		return
 	}
 	c.net.reactionByName[rx.Name] = rx
@@ -363,7 +363,7 @@ func (c *compiler) combination(r *lang.Reaction) {
 		return
 	}
 	rx := c.net.reactionByName[r.Name.Name]
-	if rx == nil || rx.Span != r.Span() {
+	if rx == nil || rx.node != r {
 		return
 	}
 	for i, t := range r.Combo.Terms {

@@ -258,10 +258,40 @@ type Reaction struct {
 	Rate       *Rate
 	Reverse    *Rate
 
-	NameSpan lang.Span
-	Span     lang.Span // the whole statement
-	Equation lang.Span // from the first term to the last
-	Source   string
+	Source string
+
+	// node is the statement the reaction was compiled from; its spans
+	// (NameSpan, Span, Equation) are worked out from it when asked for:
+	// a network holds hundreds of thousands of reactions, which reports
+	// name seldom. equation reports that the statement has both sides.
+	node     *lang.Reaction
+	equation bool
+}
+
+// NameSpan is where the reaction's name was written.
+func (rx *Reaction) NameSpan() lang.Span {
+	if rx.node == nil || rx.node.Name == nil {
+		return lang.Span{}
+	}
+	return rx.node.Name.Span()
+}
+
+// Span is the whole reaction statement.
+func (rx *Reaction) Span() lang.Span {
+	if rx.node == nil {
+		return lang.Span{}
+	}
+	return rx.node.Span()
+}
+
+// Equation spans the equation from its first term to its last; it is
+// empty (not valid) for a reaction without both sides.
+func (rx *Reaction) Equation() lang.Span {
+	if rx.node == nil || !rx.equation {
+		return lang.Span{}
+	}
+	r := rx.node
+	return r.Left[0].Span().Join(r.Right[len(r.Right)-1].Span())
 }
 
 // Mixture is a named composition at a temperature and pressure.

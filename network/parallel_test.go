@@ -75,7 +75,7 @@ func describeNetwork(n *Network) string {
 		out += fmt.Sprintf("species %s %s formula=%v ranges=%d used=%v\n", sp.Key, sp.Span, sp.HasFormula, len(sp.Ranges), sp.Used)
 	}
 	for _, rx := range n.Reactions {
-		out += fmt.Sprintf("reaction %s %s resolved=%v facts=%+v dg=%v rate=%v\n", rx.Name, rx.Span, rx.Resolved, rx.stoich, rx.Dg != nil, rx.Rate != nil)
+		out += fmt.Sprintf("reaction %s %s resolved=%v facts=%+v dg=%v rate=%v\n", rx.Name, rx.Span(), rx.Resolved, rx.stoich, rx.Dg != nil, rx.Rate != nil)
 	}
 	return out
 }

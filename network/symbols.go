@@ -50,7 +50,7 @@ func (s Symbol) Definition() (lang.Span, bool) {
 	case s.Kind == SymbolSpecies && s.Species != nil:
 		return s.Species.Span, true
 	case s.Kind == SymbolReaction && s.Reaction != nil:
-		return s.Reaction.NameSpan, true
+		return s.Reaction.NameSpan(), true
 	case s.Kind == SymbolInclude && s.Target != "":
 		start := lang.Pos{Line: 1, Column: 1}
 		return lang.Span{File: s.Target, Start: start, End: start}, true
@@ -102,7 +102,7 @@ func (n *Network) eachSymbol(f *File, fn func(Symbol) bool, within func(lang.Spa
 			return true
 		}
 		s := Symbol{Kind: SymbolReaction, Name: id.Name, Span: id.Span(), Reaction: n.LookupReaction(id.Name)}
-		s.Declaration = decl && s.Reaction != nil && s.Reaction.NameSpan == s.Span
+		s.Declaration = decl && s.Reaction != nil && s.Reaction.NameSpan() == s.Span
 		return fn(s)
 	}
 	simple := func(kind SymbolKind, id *lang.Ident) bool {
