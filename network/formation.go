@@ -52,7 +52,7 @@ func formationEntropyOffsetAt(sp *Species, p0 float64) (offset, sigma float64, o
 		if !found {
 			return 0, 0, false
 		}
-		n, _ := ec.Count.Float64()
+		n := ratFloat(ec.Count)
 		f := n / float64(rs.Atoms)
 		offset += f * referenceEntropyAt(rs, p0)
 		variance += f * f * rs.SigmaS * rs.SigmaS
