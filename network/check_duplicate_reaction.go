@@ -15,7 +15,7 @@ different reaction and is not reported.`,
 			rx       *Reaction
 			reversed bool
 		}
-		seen := map[string]seenAs{}
+		seen := make(map[string]seenAs, len(p.Net.Reactions))
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
 				continue
