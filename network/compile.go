@@ -26,6 +26,9 @@ type compiler struct {
 	// there without splitting the reference. Written only while species
 	// are declared (serially), read by the workers after.
 	declared map[string]*Species
+	// prepared are the species references still to be declared, split in
+	// parallel beforehand (prepareRefs); declare takes them in order.
+	prepared []preparedRef
 }
 
 // maxUnitCache bounds a worker's cache of parsed units: a file may write a
@@ -78,14 +81,23 @@ func compile(n *Network) {
 	// Room for every species and reaction statement, so that the maps do
 	// not grow on large networks.
 	nSpecies, nReactions := 0, 0
+	var refs []*lang.SpeciesRef
+	var refBroken []bool
 	c.each(func(st *lang.Statement) {
 		switch {
 		case st.Species != nil:
 			nSpecies += len(st.Species.Refs)
+			for _, ref := range st.Species.Refs {
+				if ref != nil {
+					refs = append(refs, ref)
+					refBroken = append(refBroken, st.Broken)
+				}
+			}
 		case st.Reaction != nil:
 			nReactions++
 		}
 	})
+	c.prepared = prepareRefs(refs, refBroken)
 	n.speciesByKey = make(map[string]*Species, nSpecies)
 	c.declared = make(map[string]*Species, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)

@@ -9,15 +9,54 @@ import (
 	"hess/thermo"
 )
 
-// declare registers one species reference of a species statement.
-func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool) *Species {
+// preparedRef is a species reference split and made into a species
+// before the serial pass that declares it (see prepareRefs).
+type preparedRef struct {
+	ref *lang.SpeciesRef
+	sp  *Species // nil when the reference does not split
+	err error
+}
+
+// prepareRefs splits every species reference of the network and makes its
+// species, in parallel, in the order the statements declare them: what
+// declaring a species costs apart from naming it in the network, which
+// must go in order. broken says, for each reference, that its statement
+// did not parse.
+func prepareRefs(refs []*lang.SpeciesRef, broken []bool) []preparedRef {
+	out := make([]preparedRef, len(refs))
+	parallel(len(refs), 512, func() func(i int) {
+		return func(i int) { out[i] = newSpecies(refs[i], broken[i]) }
+	})
+	return out
+}
+
+// newSpecies is the species a reference declares, not yet named in the
+// network.
+func newSpecies(ref *lang.SpeciesRef, broken bool) preparedRef {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, err)
-		return nil
+		return preparedRef{ref: ref, err: err}
 	}
 	// A statement that did not parse has data that were never read.
 	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge, BrokenData: broken}
+	return preparedRef{ref: ref, sp: sp}
+}
+
+// declare registers one species reference of a species statement, taking
+// the species prepareRefs made for it when it is next in c.prepared.
+func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool) *Species {
+	var p preparedRef
+	if len(c.prepared) > 0 && c.prepared[0].ref == ref {
+		p, c.prepared = c.prepared[0], c.prepared[1:]
+	} else {
+		p = newSpecies(ref, broken)
+	}
+	if p.err != nil {
+		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, p.err)
+		return nil
+	}
+	sp := p.sp
+	parts := sp.Parts
 	if old, dup := c.net.speciesByKey[sp.Key]; dup {
 		d := c.report(duplicateSpeciesCheck, ref.Span(), "species %s is declared twice", sp.Key)
 		d.Related = []lang.Related{{Span: old.Span, Message: "first declared here"}}
