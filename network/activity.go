@@ -72,19 +72,9 @@ func (rx *Reaction) NetTerms() []NetTerm {
 // some coefficient is not such a number.
 func (rx *Reaction) smallNetTerms() (out []NetTerm, ok bool) {
 	var buf [12]speciesCount
-	cs := buf[:0]
-	for side, terms := range [2][]Term{rx.Left, rx.Right} {
-		sign := int64(2*side - 1)
-		for _, t := range terms {
-			if t.Species == nil || t.Coef == nil {
-				continue
-			}
-			n, isInt := smallInt(t.Coef)
-			if !isInt {
-				return nil, false
-			}
-			cs = addSpeciesCount(cs, t.Species, sign*n)
-		}
+	cs, ok := rx.smallNetCounts(buf[:0])
+	if !ok {
+		return nil, false
 	}
 	for _, c := range cs {
 		if c.n != 0 {
@@ -94,13 +84,11 @@ func (rx *Reaction) smallNetTerms() (out []NetTerm, ok bool) {
 	return out, true
 }
 
-// netSpecies appends to buf the species of the reaction's net equation,
-// those of NetTerms in its order, without allocating while every
-// coefficient is a small whole number and the species fit buf: checks ask
-// it of every reaction.
-func (rx *Reaction) netSpecies(buf []*Species) []*Species {
-	var cbuf [12]speciesCount
-	cs := cbuf[:0]
+// smallNetCounts appends to cs each species' net coefficient (zero where
+// it cancels) in the order the species first appear, left side first,
+// while every coefficient is a small whole number; ok is false at the
+// first that is not.
+func (rx *Reaction) smallNetCounts(cs []speciesCount) ([]speciesCount, bool) {
 	for side, terms := range [2][]Term{rx.Left, rx.Right} {
 		sign := int64(2*side - 1)
 		for _, t := range terms {
@@ -109,13 +97,26 @@ func (rx *Reaction) netSpecies(buf []*Species) []*Species {
 			}
 			n, isInt := smallInt(t.Coef)
 			if !isInt {
-				for _, nt := range rx.NetTerms() {
-					buf = append(buf, nt.Species)
-				}
-				return buf
+				return cs, false
 			}
 			cs = addSpeciesCount(cs, t.Species, sign*n)
 		}
+	}
+	return cs, true
+}
+
+// netSpecies appends to buf the species of the reaction's net equation,
+// those of NetTerms in its order, without allocating while every
+// coefficient is a small whole number and the species fit buf: checks ask
+// it of every reaction.
+func (rx *Reaction) netSpecies(buf []*Species) []*Species {
+	var cbuf [12]speciesCount
+	cs, ok := rx.smallNetCounts(cbuf[:0])
+	if !ok {
+		for _, nt := range rx.NetTerms() {
+			buf = append(buf, nt.Species)
+		}
+		return buf
 	}
 	for _, c := range cs {
 		if c.n != 0 {
