@@ -92,7 +92,10 @@ func compileAll(args []string, stdin io.Reader, opts network.Options, stderr io.
 	}
 	opts.IncludePaths = append(append([]string(nil), opts.IncludePaths...), folderArgs(args)...)
 	var cands []loadedRoot
-	for _, root := range files {
+	for i, root := range files {
+		if i > 0 {
+			betweenNetworks()
+		}
 		var src network.Source = network.Disk{}
 		if root == "-" {
 			var ok bool

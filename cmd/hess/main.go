@@ -10,6 +10,7 @@ import (
 	"io"
 	"os"
 	"regexp"
+	"runtime"
 	"runtime/debug"
 	"strings"
 
@@ -86,6 +87,17 @@ func tuneGC(args []string) {
 // longRunning reports whether the command cmd runs until stopped,
 // compiling again on every change.
 func longRunning(cmd string) bool { return cmd == "watch" || cmd == "lsp" }
+
+// betweenNetworks frees the last network before a command that checks
+// several compiles the next: with the collector off (tuneGC) each would
+// otherwise add its garbage to the heap. What the command keeps of a
+// network (its sources and diagnostics) is small, so the collection marks
+// little. Under GOGC, the runtime decides.
+func betweenNetworks() {
+	if os.Getenv("GOGC") == "" {
+		runtime.GC()
+	}
+}
 
 // streamingGC is tuneGC for what a command does with a network once it is
 // compiled (a table streamed, feeds solved, a plot drawn): what that
