@@ -70,11 +70,12 @@ const memoryLimit = 1 << 30
 // The long-running commands (watch, lsp) compile again and again, and
 // each compile's network is garbage once the next one is published: they
 // collect at Go's default pace (GOGC 100) under the same soft limit, so
-// their memory stays near twice one network.
+// their memory stays near twice one network. So does fmt, whose every
+// file is garbage once printed.
 func tuneGC(args []string) {
 	if os.Getenv("GOGC") == "" {
 		percent := -1
-		if len(args) > 0 && longRunning(args[0]) {
+		if len(args) > 0 && collectsAsItGoes(args[0]) {
 			percent = 100
 		}
 		debug.SetGCPercent(percent)
@@ -84,9 +85,10 @@ func tuneGC(args []string) {
 	}
 }
 
-// longRunning reports whether the command cmd runs until stopped,
-// compiling again on every change.
-func longRunning(cmd string) bool { return cmd == "watch" || cmd == "lsp" }
+// collectsAsItGoes reports whether the command cmd leaves garbage behind
+// as it goes rather than compiling one network and exiting: watch and lsp
+// compile again on every change, fmt reads file after file.
+func collectsAsItGoes(cmd string) bool { return cmd == "watch" || cmd == "lsp" || cmd == "fmt" }
 
 // betweenNetworks frees the last network before a command that checks
 // several compiles the next: with the collector off (tuneGC) each would

@@ -8,7 +8,7 @@ import (
 
 // TestTuneGC: without GOGC and GOMEMLIMIT in the environment a one-shot
 // command runs with the collector off below a 1 GiB soft limit and the
-// long-running ones (watch, lsp) at 100 % under the same limit; either
+// long-running ones (watch, lsp) and fmt at 100 % under the same limit; either
 // variable, when set, is left to the runtime.
 func TestTuneGC(t *testing.T) {
 	percent := debug.SetGCPercent(100)
@@ -29,6 +29,7 @@ func TestTuneGC(t *testing.T) {
 		{nil, -1},
 		{[]string{"watch", "x.hess"}, 100},
 		{[]string{"lsp"}, 100},
+		{[]string{"fmt", "x.hess", "y.hess"}, 100},
 	} {
 		debug.SetGCPercent(50)
 		tuneGC(tc.args)
