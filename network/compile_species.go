@@ -297,8 +297,7 @@ func (c *compiler) formula(sp *Species, explicit string, explicitSpan lang.Span)
 	}
 	sp.Formula = f
 	sp.HasFormula = true
-	sp.ints.counts, sp.ints.ok = formulaInts(f)
-	sp.ints.known = true
+	sp.ints.setFormula(f)
 }
 
 // subSpan narrows a one-line span that starts with text to the bytes

@@ -96,15 +96,19 @@ func intBalance(rx *Reaction, coefs []int64) (elements, charge, ok bool) {
 // formulaInts is a formula's element counts as small integers; ok is false
 // when some count is not one.
 func formulaInts(f chem.Formula) (counts []symbolCount, ok bool) {
-	counts = make([]symbolCount, 0, len(f.Elements))
+	return appendFormulaInts(make([]symbolCount, 0, len(f.Elements)), f)
+}
+
+// appendFormulaInts is formulaInts appending to dst.
+func appendFormulaInts(dst []symbolCount, f chem.Formula) ([]symbolCount, bool) {
 	for _, ec := range f.Elements {
 		k, isInt := smallInt(ec.Count)
 		if !isInt {
 			return nil, false
 		}
-		counts = append(counts, symbolCount{ec.Symbol, k})
+		dst = append(dst, symbolCount{ec.Symbol, k})
 	}
-	return counts, true
+	return dst, true
 }
 
 // elementInts returns the species' formula as small integers, as the
@@ -116,10 +120,23 @@ func (sp *Species) elementInts() ([]symbolCount, bool) {
 	return formulaInts(sp.Formula)
 }
 
-// speciesInts caches a species' formulaInts.
+// speciesInts caches a species' formulaInts. A formula of a few elements
+// (nearly all) keeps its counts in inline, inside the species, so that a
+// reaction's balance reads them from the species' own cache lines.
 type speciesInts struct {
 	known, ok bool
 	counts    []symbolCount
+	inline    [3]symbolCount
+}
+
+// setFormula records f's counts, in inline when they fit.
+func (si *speciesInts) setFormula(f chem.Formula) {
+	dst := si.inline[:0:len(si.inline)]
+	if len(f.Elements) > len(si.inline) {
+		dst = make([]symbolCount, 0, len(f.Elements))
+	}
+	si.counts, si.ok = appendFormulaInts(dst, f)
+	si.known = true
 }
 
 // unchargedSpecies reports whether every species of the reaction is
