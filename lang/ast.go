@@ -14,7 +14,10 @@ import "github.com/alecthomas/participle/v2/lexer"
 
 // File is one parsed source file.
 type File struct {
-	Name       string
+	Name string
+	// Source is the file's text and line index, which every node's
+	// tokens resolve their positions through.
+	Source     *Source
 	Statements []*Statement
 	Comments   []Comment
 }
@@ -36,19 +39,25 @@ type Statement struct {
 	Broken bool
 }
 
-// Node carries the tokens a node spans, a run of its statement's tokens.
-// A node that has no tokens of its own (a statement that failed before its
-// end, say) may keep where it starts as an empty run whose capacity
-// reaches the token there; its Span is then empty at that token.
+// Node carries the tokens a node spans, a run of its statement's tokens,
+// and the Source they were read from, which resolves their offsets to
+// lines and columns. A node that has no tokens of its own (a statement
+// that failed before its end, say) may keep where it starts as an empty
+// run whose capacity reaches the token there; its Span is then empty at
+// that token.
 type Node struct {
-	Tokens []lexer.Token
+	Tokens []Token
+	src    *Source
 }
 
-// ParsedNode is the Node of a node that participle reads: participle also
-// records the position where it started, which is all a node that failed
-// part-way has (the parser turns it into an empty run of tokens there).
+// ParsedNode is the Node of a node that participle reads: participle
+// records the positions where it started and where the token after it
+// stands, from which the parser finds its tokens; a node that failed
+// part-way has only its start (the parser turns it into an empty run of
+// tokens there).
 type ParsedNode struct {
-	Pos lexer.Position
+	Pos    lexer.Position
+	EndPos lexer.Position
 	Node
 }
 

@@ -4,8 +4,6 @@ import (
 	"bytes"
 	"strings"
 	"unicode/utf8"
-
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // Format prints a parsed file in the canonical layout: one statement or
@@ -163,14 +161,14 @@ func (p *printer) hasComments(from, to int) bool {
 	return false
 }
 
-func (p *printer) open(text string, n *Node, brace lexer.Token) {
-	p.item(text+" {", n.Span(), TokenSpan(brace))
+func (p *printer) open(text string, n *Node, brace Token) {
+	p.item(text+" {", n.Span(), n.src.Span(brace))
 	p.indent++
 	p.blockStart = true
 }
 
 func (p *printer) close(n *Node) {
-	last := TokenSpan(n.Tokens[len(n.Tokens)-1])
+	last := n.TokenSpan(len(n.Tokens) - 1)
 	p.flushComments(last.Start.Offset)
 	p.indent--
 	p.blockStart = true // no blank line before the closing brace
@@ -178,7 +176,7 @@ func (p *printer) close(n *Node) {
 }
 
 // braceToken returns the first `{` among the node's tokens.
-func braceToken(n *Node) lexer.Token {
+func braceToken(n *Node) Token {
 	for _, t := range n.Tokens {
 		if t.Type == Punct && t.Value == "{" {
 			return t
@@ -190,7 +188,7 @@ func braceToken(n *Node) lexer.Token {
 // block prints a header, its body lines and the closing brace; an empty
 // body with no comment inside prints as `header {}` on one line.
 func (p *printer) block(header string, n *Node, empty bool, body func()) {
-	if empty && !p.hasComments(TokenSpan(braceToken(n)).End.Offset, n.Span().End.Offset) {
+	if empty && !p.hasComments(braceToken(n).End(), n.Span().End.Offset) {
 		p.item(header+" {}", n.Span(), n.Span())
 		return
 	}

@@ -4,7 +4,6 @@ import (
 	"slices"
 
 	"github.com/alecthomas/participle/v2"
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // The properties of species and reaction blocks, read by hand as the
@@ -105,19 +104,19 @@ func (p *Polynomial) read(lex tokenStream) error {
 	if err := expectLit(lex, polynomialRule.at(6)); err != nil {
 		return err
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*p = out
 	return nil
 }
 
 // readText reads the string of a TextProp whose keyword was first.
-func readText(lex tokenStream, first lexer.Token, start lexer.RawCursor) (*TextProp, error) {
+func readText(lex tokenStream, first Token, start int) (*TextProp, error) {
 	lex.Next()
 	s := &Str{}
 	if s.read(lex) != nil {
 		return nil, expecting(lex, textRule.at(1))
 	}
-	return &TextProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}, nil
+	return &TextProp{Node: lex.node(start, lex.RawCursor()), Key: first.Value, Text: s}, nil
 }
 
 func (sp *SpeciesProperty) read(lex tokenStream) error {
@@ -132,14 +131,14 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 		if ref.read(lex) != nil {
 			return expecting(lex, formulaRule.at(1))
 		}
-		out.Formula = &FormulaProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
+		out.Formula = &FormulaProp{Node: lex.node(start, lex.RawCursor()), Formula: ref}
 	case speciesValueRule.begins(&first):
 		lex.Next()
 		v := &SpeciesValue{Key: first.Value}
 		if v.Value, err = requireQuantity(lex, speciesValueRule.at(1)); err != nil {
 			return err
 		}
-		v.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+		v.Node = lex.node(start, lex.RawCursor())
 		out.Value = v
 	case polynomialRule.begins(&first):
 		out.Poly = &Polynomial{}
@@ -153,7 +152,7 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 	default:
 		return participle.NextMatch
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*sp = out
 	return nil
 }
@@ -207,7 +206,7 @@ func (r *Rate) read(lex tokenStream, node func() Node) error {
 func (rp *ReactionProperty) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
-	node := func() Node { return Node{Tokens: lex.Range(start, lex.RawCursor())} }
+	node := func() Node { return lex.node(start, lex.RawCursor()) }
 	var out ReactionProperty
 	var err error
 	switch {

@@ -2,8 +2,6 @@ package lang
 
 import (
 	"github.com/alecthomas/participle/v2"
-	"github.com/alecthomas/participle/v2/lexer"
-	"reflect"
 )
 
 // The species and reaction statements, by far the most numerous in a large
@@ -30,7 +28,7 @@ const openBrace, closeBrace = lit("{"), lit("}")
 func block(item string) seq { return seq{openBrace, many{ref(item)}, closeBrace} }
 
 // blockOpens reports whether t opens a block.
-func blockOpens(t *lexer.Token) bool { return t.Type == Punct && isLit(t, openBrace) }
+func blockOpens(t *Token) bool { return t.Type == Punct && isLit(t, openBrace) }
 
 // comboParser reads the combination after a reaction's "=".
 var comboParser = participle.MustBuild[Combination](parserOptions...)
@@ -67,7 +65,7 @@ func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 			return err
 		}
 	}
-	out.Tokens = lex.Range(start, lex.RawCursor())
+	out.Node = lex.node(start, lex.RawCursor())
 	return nil
 }
 
@@ -123,17 +121,10 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	}
 	if t := lex.Peek(); t.Type == Punct && isLit(t, comboPart[0]) {
 		lex.Next()
-		toks := lex.toks[lex.i:]
-		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
-			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
-			if c != nil {
-				if err != nil {
-					anchorParsed(reflect.ValueOf(c), toks)
-				}
-				out.Combo = c
-			}
-			return err
-		})
+		c, err := parseWith(lex, comboParser)
+		if c != nil {
+			out.Combo = c
+		}
 		if err != nil {
 			return err
 		}
@@ -146,7 +137,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 			return err
 		}
 	}
-	out.Tokens = lex.Range(start, lex.RawCursor())
+	out.Node = lex.node(start, lex.RawCursor())
 	return nil
 }
 

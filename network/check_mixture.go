@@ -156,7 +156,7 @@ func brokenMixtureUnits(p *Pass) {
 				if parts, err := lang.SplitRef(word); err != nil || parts.State != "" {
 					continue
 				}
-				p.Reportf(lang.TokenSpan(toks[i]), "%s", untaggedMessage(p.Net, word, toks[i-1].Value))
+				p.Reportf(st.TokenSpan(i), "%s", untaggedMessage(p.Net, word, toks[i-1].Value))
 			}
 		}
 	}

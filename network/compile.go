@@ -134,7 +134,7 @@ func keywordSpan(n *lang.Node) lang.Span {
 	if len(n.Tokens) == 0 {
 		return n.Span()
 	}
-	return lang.TokenSpan(n.Tokens[0])
+	return n.TokenSpan(0)
 }
 
 // validName reports whether s is an identifier: a letter or _, then

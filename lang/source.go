@@ -1,0 +1,141 @@
+package lang
+
+import (
+	"math"
+	"strings"
+	"unicode/utf8"
+
+	"github.com/alecthomas/participle/v2/lexer"
+)
+
+// MaxSourceBytes is the largest source file the lexer reads: token offsets
+// are 32-bit. Callers that read files (package network) set far lower
+// limits of their own.
+const MaxSourceBytes = math.MaxInt32
+
+// A Source is one source file as its syntax tree sees it: its name, its
+// text, and where its lines start, from which a token's offset resolves to
+// a line and column only when a span is asked for. Every node of a parsed
+// file points to the file's Source. A Source does not change once built.
+type Source struct {
+	name  string
+	text  string
+	lines []int32 // offset where each line starts; line 1 starts after a byte order mark
+	marks []colMark
+}
+
+// colMark is the column of a rune start inside a long line, so that
+// resolving a position there counts the runes of at most markEvery bytes.
+type colMark struct{ off, col int32 }
+
+// markEvery is how many bytes of a long line lie between column marks.
+const markEvery = 4096
+
+// NewSource indexes the lines of text, a file called name. text must be at
+// most MaxSourceBytes long.
+func NewSource(name, text string) *Source {
+	s := &Source{name: name, text: text}
+	start := 0
+	if strings.HasPrefix(text, "\ufeff") {
+		// A byte order mark some editors write is not part of the text;
+		// columns count from after it.
+		start = 3
+	}
+	s.lines = make([]int32, 0, strings.Count(text, "\n")+1)
+	for {
+		s.lines = append(s.lines, int32(start))
+		i := strings.IndexByte(text[start:], '\n')
+		end := len(text)
+		if i >= 0 {
+			end = start + i
+		}
+		if end-start > markEvery {
+			s.markLine(start, end)
+		}
+		if i < 0 {
+			return s
+		}
+		start = end + 1
+	}
+}
+
+// markLine records column marks along the long line text[start:end].
+func (s *Source) markLine(start, end int) {
+	col := 1
+	at := start
+	for next := start + markEvery; next < end; next += markEvery {
+		for next < end && !utf8.RuneStart(s.text[next]) {
+			next++
+		}
+		col += utf8.RuneCountInString(s.text[at:next])
+		at = next
+		s.marks = append(s.marks, colMark{off: int32(at), col: int32(col)})
+	}
+}
+
+// Name is the file name the source was read from.
+func (s *Source) Name() string {
+	if s == nil {
+		return ""
+	}
+	return s.name
+}
+
+// line returns the 0-based index of the line holding offset off.
+func (s *Source) line(off int) int {
+	lo, hi := 0, len(s.lines) // lines[lo] <= off < lines[hi]
+	for hi-lo > 1 {
+		m := int(uint(lo+hi) >> 1)
+		if int(s.lines[m]) <= off {
+			lo = m
+		} else {
+			hi = m
+		}
+	}
+	return lo
+}
+
+// Pos resolves a byte offset to its line and column. Columns count runes
+// from the start of the line (after a byte order mark on line 1).
+func (s *Source) Pos(off int) Pos {
+	if s == nil {
+		return Pos{}
+	}
+	off = min(max(off, 0), len(s.text))
+	i := s.line(off)
+	start, col := int(s.lines[i]), 1
+	if off <= start {
+		return Pos{Line: i + 1, Column: 1, Offset: off}
+	}
+	if off-start > markEvery && len(s.marks) > 0 {
+		lo, hi := -1, len(s.marks) // marks[lo].off <= off < marks[hi].off
+		for hi-lo > 1 {
+			m := int(uint(lo+hi) >> 1)
+			if int(s.marks[m].off) <= off {
+				lo = m
+			} else {
+				hi = m
+			}
+		}
+		if lo >= 0 && int(s.marks[lo].off) > start {
+			start, col = int(s.marks[lo].off), int(s.marks[lo].col)
+		}
+	}
+	return Pos{Line: i + 1, Column: col + utf8.RuneCountInString(s.text[start:off]), Offset: off}
+}
+
+// Span is the exact source range of the token t of this source.
+func (s *Source) Span(t Token) Span {
+	start := s.Pos(int(t.Offset))
+	end := Pos{Line: start.Line, Column: start.Column + utf8.RuneCountInString(t.Value), Offset: start.Offset + len(t.Value)}
+	if !start.IsValid() {
+		end = Pos{}
+	}
+	return Span{File: s.Name(), Start: start, End: end}
+}
+
+// position is the participle Position of offset off.
+func (s *Source) position(off int) lexer.Position {
+	p := s.Pos(off)
+	return lexer.Position{Filename: s.Name(), Offset: p.Offset, Line: p.Line, Column: p.Column}
+}
