@@ -39,15 +39,22 @@ type Statement struct {
 	Broken bool
 }
 
-// Node carries the tokens a node spans, a run of its statement's tokens,
-// and the Source they were read from, which resolves their offsets to
-// lines and columns. A node that has no tokens of its own (a statement
-// that failed before its end, say) may keep where it starts as an empty
-// run whose capacity reaches the token there; its Span is then empty at
-// that token.
+// Node is the run of its statement group's tokens that a node spans (see
+// Tokens), in 16 bytes: the group, which knows the Source its tokens'
+// offsets resolve through, and the run's bounds in it. A node that has no
+// tokens of its own (a statement that failed before its end, say) may
+// keep where it starts as an empty run at the token there; its Span is
+// then empty at that token.
 type Node struct {
-	Tokens []Token
-	src    *Source
+	g          *tokenGroup
+	start, end int32 // the node's tokens are g.toks[start:end]
+}
+
+// tokenGroup is the token array of one group of statements, which their
+// nodes share, and the Source the tokens were read from.
+type tokenGroup struct {
+	src  *Source
+	toks []Token
 }
 
 // ParsedNode is the Node of a node that participle reads: participle

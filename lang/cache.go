@@ -78,7 +78,7 @@ func (c *Cache) lookup(k cacheKey, src *Source, at int) *Statement {
 	if st == nil {
 		return nil
 	}
-	if int(st.Tokens[0].Offset) != at || st.src.Name() != src.Name() || st.src.Pos(at).Line != src.Pos(at).Line {
+	if first, _ := st.at(); int(first.Offset) != at || st.Source().Name() != src.Name() || st.Source().Pos(at).Line != src.Pos(at).Line {
 		st = moved(st, src, at)
 	}
 	c.mu.Lock()
@@ -99,13 +99,16 @@ func (c *Cache) store(k cacheKey, st *Statement, clean bool) {
 }
 
 // moved copies a statement as if it had been parsed at offset at of src:
-// every node and token moves by the same number of bytes.
+// every node and token moves by the same number of bytes, into a group of
+// the statement's tokens and the one after them.
 func moved(st *Statement, src *Source, at int) *Statement {
-	m := mover{dOff: at - int(st.Tokens[0].Offset), src: src, old: st.Tokens}
-	m.toks = make([]Token, len(st.Tokens))
-	for i, t := range st.Tokens {
-		m.toks[i] = t
-		m.toks[i].Offset += int32(m.dOff)
+	old, first := st.g, int(st.start)
+	last := min(int(st.end)+1, len(old.toks))
+	m := mover{old: old, first: first, dOff: at - int(old.toks[first].Offset), src: src}
+	m.g = &tokenGroup{src: src, toks: make([]Token, last-first)}
+	for i, t := range old.toks[first:last] {
+		t.Offset += int32(m.dOff)
+		m.g.toks[i] = t
 	}
 	out := reflect.New(reflect.TypeFor[Statement]())
 	m.copyStruct(out.Elem(), reflect.ValueOf(st).Elem())
@@ -113,9 +116,10 @@ func moved(st *Statement, src *Source, at int) *Statement {
 }
 
 type mover struct {
-	dOff      int
-	src       *Source
-	old, toks []Token // the statement's tokens before and after the move
+	old, g *tokenGroup // the statement's group before and after the move
+	first  int         // index in old of the statement's first token
+	dOff   int
+	src    *Source
 }
 
 func (m *mover) pos(p lexer.Position) lexer.Position {
@@ -125,6 +129,18 @@ func (m *mover) pos(p lexer.Position) lexer.Position {
 	return m.src.position(p.Offset + m.dOff)
 }
 
+// node is n moved: its run of the moved group.
+func (m *mover) node(n Node) Node {
+	if n.g != m.old {
+		return Node{}
+	}
+	start, end := int(n.start)-m.first, int(n.end)-m.first
+	if start < 0 || end > len(m.g.toks) || start > end {
+		return Node{}
+	}
+	return Node{g: m.g, start: int32(start), end: int32(end)}
+}
+
 // copyStruct copies the syntax-tree struct src into dst, moving positions.
 func (m *mover) copyStruct(dst, src reflect.Value) {
 	for i := 0; i < src.NumField(); i++ {
@@ -132,10 +148,10 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 		switch {
 		case f.Type() == nodeType:
 			n := f.Interface().(Node)
-			d.Set(reflect.ValueOf(Node{Tokens: m.tokens(n.Tokens), src: m.src}))
+			d.Set(reflect.ValueOf(m.node(n)))
 		case f.Type() == parsedNodeType:
 			n := f.Interface().(ParsedNode)
-			d.Set(reflect.ValueOf(ParsedNode{Pos: m.pos(n.Pos), EndPos: m.pos(n.EndPos), Node: Node{Tokens: m.tokens(n.Tokens), src: m.src}}))
+			d.Set(reflect.ValueOf(ParsedNode{Pos: m.pos(n.Pos), EndPos: m.pos(n.EndPos), Node: m.node(n.Node)}))
 		case f.Kind() == reflect.Pointer:
 			if !f.IsNil() {
 				p := reflect.New(f.Type().Elem())
@@ -158,24 +174,4 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 			d.Set(f)
 		}
 	}
-}
-
-// tokens maps a node's tokens, a run of the statement's, onto the moved
-// statement's tokens.
-func (m *mover) tokens(ts []Token) []Token {
-	if cap(ts) == 0 {
-		return ts
-	}
-	off := int(ts[:1][0].Offset)
-	i := searchOffset(m.old, off)
-	n := max(len(ts), 1) // an empty run keeps the token where it starts
-	if i+n > len(m.old) || int(m.old[i].Offset) != off {
-		out := make([]Token, n)
-		for j, t := range ts[:n] {
-			out[j] = t
-			out[j].Offset += int32(m.dOff)
-		}
-		return out[:len(ts)]
-	}
-	return m.toks[i : i+len(ts) : i+n]
 }

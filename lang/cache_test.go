@@ -52,10 +52,10 @@ func sameTree(a, b reflect.Value) bool {
 	case reflect.Struct:
 		if a.Type() == nodeType {
 			na, nb := a.Interface().(Node), b.Interface().(Node)
-			if !slices.Equal(na.Tokens, nb.Tokens) || na.Span() != nb.Span() {
+			if !slices.Equal(na.Tokens(), nb.Tokens()) || na.Span() != nb.Span() {
 				return false
 			}
-			for i := range na.Tokens {
+			for i := range na.Tokens() {
 				if na.TokenSpan(i) != nb.TokenSpan(i) {
 					return false
 				}

@@ -24,10 +24,17 @@ type tokenStream interface {
 // Nodes it makes share the statement's token array, which the syntax tree
 // keeps.
 type tokenCursor struct {
-	toks []Token
+	g    *tokenGroup
+	base int     // index in g.toks of toks[0]
+	toks []Token // g.toks[base:], up to the statement's end token
 	i    int
 	slab *nodeSlab // where the statement's small nodes come from; nil: the heap
-	src  *Source
+}
+
+// newCursor reads the tokens g.toks[start:end], the last a token that no
+// rule matches.
+func newCursor(g *tokenGroup, start, end int, slab *nodeSlab) *tokenCursor {
+	return &tokenCursor{g: g, base: start, toks: g.toks[start:end:end], slab: slab}
 }
 
 func (c *tokenCursor) Peek() *Token { return &c.toks[c.i] }
@@ -43,28 +50,26 @@ func (c *tokenCursor) Next() *Token {
 func (c *tokenCursor) RawCursor() int { return c.i }
 
 func (c *tokenCursor) node(start, end int) Node {
-	return Node{Tokens: c.toks[start:end:end], src: c.src}
+	return Node{g: c.g, start: int32(c.base + start), end: int32(c.base + end)}
 }
 
 // startsAt is a Node with no tokens yet that starts at the token at of
 // lex: what a node read by hand holds until it is complete.
-func startsAt(lex *tokenCursor, at int) Node {
-	return Node{Tokens: lex.toks[at : at+1][:0], src: lex.src}
-}
+func startsAt(lex *tokenCursor, at int) Node { return lex.node(at, at) }
 
 // parseWith hands the rest of the cursor's tokens to participle's parser
 // p, for the statements and parts of the grammar that participle reads,
 // and then moves the cursor past what p consumed. Participle sees each
 // token as a lexer.Token made on the fly; the nodes it returns get their
-// runs of the cursor's tokens afterwards (see attach).
+// runs of the group's tokens afterwards (see attach).
 func parseWith[G any](c *tokenCursor, p *participle.Parser[G]) (*G, error) {
-	toks := c.toks[c.i:]
-	peek, _ := lexer.Upgrade(&replay{toks: toks, src: c.src}) // replay.Next never fails
+	from := c.i
+	peek, _ := lexer.Upgrade(&replay{toks: c.toks[from:], src: c.g.src}) // replay.Next never fails
 	v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
 	c.i += int(peek.RawCursor())
 	c.i = min(c.i, len(c.toks)-1)
 	if v != nil {
-		attach(reflect.ValueOf(v), toks, c.src)
+		attach(reflect.ValueOf(v), c, from)
 	}
 	return v, err
 }
@@ -100,7 +105,8 @@ func (r *replay) Next() (lexer.Token, error) {
 
 // peekStream is participle's PeekingLexer as a tokenStream, for the leaves
 // participle reads through their Parse methods. The nodes it makes hold
-// copies of the tokens, with no Source, until attach gives them theirs.
+// the bounds of their run in participle's stream and the group
+// unattached, until attach gives them their run of the group's tokens.
 type peekStream struct {
 	lex  *lexer.PeekingLexer
 	peek Token
@@ -119,67 +125,63 @@ func (p *peekStream) Next() *Token {
 func (p *peekStream) RawCursor() int { return int(p.lex.RawCursor()) }
 
 func (p *peekStream) node(start, end int) Node {
-	r := p.lex.Range(lexer.RawCursor(start), lexer.RawCursor(end))
-	toks := make([]Token, len(r))
-	for i, t := range r {
-		toks[i] = fromLexer(t)
-	}
-	return Node{Tokens: toks}
+	return Node{g: unattached, start: int32(start), end: int32(end)}
 }
+
+// unattached is the group of a node read through participle until attach
+// gives it its own.
+var unattached = &tokenGroup{}
 
 var (
 	nodeType       = reflect.TypeFor[Node]()
 	parsedNodeType = reflect.TypeFor[ParsedNode]()
 )
 
-// attach gives every node that participle read in v its run of toks, the
-// tokens participle was given, and their Source. A node participle read
-// spans from its Pos to its EndPos; one that failed part-way (it has no
-// EndPos) gets an empty run where it started, so that its Span is where
-// it was before. A leaf read through its Parse method holds copies of its
-// tokens, which are found again in toks.
-func attach(v reflect.Value, toks []Token, src *Source) {
+// attach gives every node that participle read in v, from the tokens of
+// cursor c from index from on, its run of c's group and the group. A node
+// participle read spans from its Pos to its EndPos; one that failed
+// part-way (it has no EndPos) gets an empty run where it started, so that
+// its Span is where it was before. A leaf read through its Parse method
+// holds the bounds of its run in participle's stream.
+func attach(v reflect.Value, c *tokenCursor, from int) {
 	switch v.Kind() {
 	case reflect.Pointer:
 		if !v.IsNil() {
-			attach(v.Elem(), toks, src)
+			attach(v.Elem(), c, from)
 		}
 	case reflect.Slice:
 		if v.Type().Elem().Kind() == reflect.Pointer {
 			for i := range v.Len() {
-				attach(v.Index(i), toks, src)
+				attach(v.Index(i), c, from)
 			}
 		}
 	case reflect.Struct:
 		switch v.Type() {
 		case parsedNodeType:
 			n := v.Addr().Interface().(*ParsedNode)
-			n.Tokens, n.src = nil, src
+			n.Node = Node{}
 			if n.Pos.Line > 0 {
+				toks := c.toks[from:]
 				i := searchOffset(toks, n.Pos.Offset)
 				j := i
 				if n.EndPos.Line > 0 {
 					j = max(i, searchOffset(toks, n.EndPos.Offset))
 				}
 				if i < len(toks) {
-					n.Tokens = toks[i:j:max(j, i+1)]
+					n.Node = c.node(from+i, from+j)
 				}
 			}
 			return
 		case nodeType:
 			n := v.Addr().Interface().(*Node)
-			if n.src == nil && cap(n.Tokens) > 0 {
-				i := searchOffset(toks, int(n.Tokens[:1][0].Offset))
-				if j := i + len(n.Tokens); j <= len(toks) && i < len(toks) {
-					n.Tokens = toks[i:j:max(j, i+1)]
-				}
+			if n.g == unattached {
+				*n = c.node(from+int(n.start), from+int(n.end))
 			}
-			n.src = src
 			return
 		}
 		for i := range v.NumField() {
 			if v.Type().Field(i).IsExported() {
-				attach(v.Field(i), toks, src)
+				attach(v.Field(i), c, from)
 			}
 		}
 	}

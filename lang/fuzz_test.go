@@ -128,7 +128,7 @@ func FuzzParse(f *testing.F) {
 		}
 		prev := 0
 		for i, st := range file.Statements {
-			if st == nil || len(st.Tokens) == 0 {
+			if st == nil || len(st.Tokens()) == 0 {
 				t.Fatalf("statement %d is empty", i)
 			}
 			s := st.Span()

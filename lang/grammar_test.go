@@ -133,7 +133,7 @@ func TestSyntaxErrorPassesThroughParticiple(t *testing.T) {
 func toSyntaxErrorOf(t *testing.T, src string) error {
 	t.Helper()
 	toks, _, _ := Lex("f.hess", []byte(src))
-	cur := &tokenCursor{toks: toks}
+	cur := newCursor(&tokenGroup{src: NewSource("f.hess", src), toks: toks}, 0, len(toks), nil)
 	err := statementParsers[toks[0].Value](cur, &Statement{})
 	if err == nil {
 		t.Fatalf("%q parses", src)

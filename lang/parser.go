@@ -320,7 +320,7 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		go func() {
 			defer wg.Done()
 			for g := range groups {
-				g.results = parseGroup(source, g.toks, g.chunks, cache)
+				g.results = parseGroup(g.g, g.chunks, cache)
 			}
 		}()
 	}
@@ -340,7 +340,7 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		for b.next().Type != EOF {
 		}
 		last = b.queue
-		g := &lexedGroup{toks: l.toks[:b.queue:b.queue], chunks: b.chunks}
+		g := &lexedGroup{g: &tokenGroup{src: source, toks: l.toks[:b.queue:b.queue]}, chunks: b.chunks}
 		order = append(order, g)
 		groups <- g
 	}
@@ -364,7 +364,7 @@ const lexAhead = 16
 // lexedGroup is one group of statements, lexed, and once a worker has
 // parsed it, its results.
 type lexedGroup struct {
-	toks    []Token // each statement's, then endOfStatement; EOF last
+	g       *tokenGroup // each statement's tokens, then endOfStatement; EOF last
 	chunks  []chunk
 	results []result
 }
@@ -375,33 +375,34 @@ type result struct {
 	diags Diagnostics
 }
 
-// parseGroup parses the statements of one group of src in order. With a
-// cache, a statement whose text it holds is taken from it.
-func parseGroup(src *Source, toks []Token, chunks []chunk, cache *Cache) []result {
+// parseGroup parses the statements of one group in order. With a cache, a
+// statement whose text it holds is taken from it.
+func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache) []result {
 	results := make([]result, len(chunks))
 	slab := &nodeSlab{}
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
-			if key, keyed := statementKey(src, toks[c.start:c.end]); keyed {
-				if st := cache.lookup(key, src, int(toks[c.start].Offset)); st != nil {
+			if key, keyed := statementKey(g.src, g.toks[c.start:c.end]); keyed {
+				if st := cache.lookup(key, g.src, int(g.toks[c.start].Offset)); st != nil {
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(src, toks, c, slab)
+				r := parseStatement(g, c, slab)
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(src, toks, c, slab)
+		results[i] = parseStatement(g, c, slab)
 	}
 	return results
 }
 
-// parseStatement parses the statement c of a group's tokens, taking its
-// small nodes from slab.
-func parseStatement(src *Source, group []Token, c chunk, slab *nodeSlab) result {
-	toks := group[c.start:c.end:c.end]
+// parseStatement parses the statement c of a group, taking its small
+// nodes from slab.
+func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab) result {
+	src := g.src
+	toks := g.toks[c.start:c.end:c.end]
 	first := toks[0]
 	if first.Type != Keyword || !statementKeywords[first.Value] {
 		span := src.Span(first)
@@ -413,8 +414,8 @@ func parseStatement(src *Source, group []Token, c chunk, slab *nodeSlab) result 
 			Context:  span.Join(src.Span(toks[len(toks)-1])),
 		}}}
 	}
-	st := &Statement{Node: Node{Tokens: toks, src: src}}
-	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1], slab: slab, src: src}
+	st := &Statement{Node: Node{g: g, start: int32(c.start), end: int32(c.end)}}
+	cur := newCursor(g, c.start, c.end+1, slab)
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
 		err = &syntaxError{found: *cur.Peek()}

@@ -141,10 +141,10 @@ func brokenMixtureUnits(p *Pass) {
 			continue
 		}
 		for _, st := range f.AST.Statements {
-			if !st.Broken || len(st.Tokens) == 0 || st.Tokens[0].Value != "mixture" {
+			if !st.Broken || len(st.Tokens()) == 0 || st.Tokens()[0].Value != "mixture" {
 				continue
 			}
-			toks := st.Tokens
+			toks := st.Tokens()
 			for i := 1; i+1 < len(toks); i++ {
 				if toks[i-1].Type != lang.Number || toks[i].Type != lang.Word {
 					continue

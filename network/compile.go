@@ -131,7 +131,7 @@ func (c *compiler) each(fn func(*lang.Statement)) {
 
 // keywordSpan is the span of a statement's first token.
 func keywordSpan(n *lang.Node) lang.Span {
-	if len(n.Tokens) == 0 {
+	if len(n.Tokens()) == 0 {
 		return n.Span()
 	}
 	return n.TokenSpan(0)

@@ -126,7 +126,7 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 	var formulaSpan lang.Span
 	for _, pr := range props {
 		key := keywordSpan(&pr.Node)
-		name := pr.Tokens[0].Value
+		name := pr.Tokens()[0].Value
 		if name != "shomate" && name != "nasa7" {
 			if first, dup := seen.add(name, key); dup {
 				d := c.report(syntaxCheck, key, "%s is given twice for %s", name, sp.Key)
