@@ -3,6 +3,7 @@ package lang
 import (
 	"math"
 	"strings"
+	"sync/atomic"
 	"unicode/utf8"
 
 	"github.com/alecthomas/participle/v2/lexer"
@@ -22,6 +23,9 @@ type Source struct {
 	text  string
 	lines []int32 // offset where each line starts; line 1 starts after a byte order mark
 	marks []colMark
+	// hint is the line last resolved: spans are mostly asked for in file
+	// order, so the next is often on it or the line after.
+	hint atomic.Int32
 }
 
 // colMark is the column of a rune start inside a long line, so that
@@ -83,6 +87,23 @@ func (s *Source) Name() string {
 
 // line returns the 0-based index of the line holding offset off.
 func (s *Source) line(off int) int {
+	if h := int(s.hint.Load()); h < len(s.lines) && int(s.lines[h]) <= off {
+		for i := h; i < len(s.lines) && i <= h+2; i++ {
+			if i+1 == len(s.lines) || off < int(s.lines[i+1]) {
+				if i != h {
+					s.hint.Store(int32(i))
+				}
+				return i
+			}
+		}
+	}
+	i := s.search(off)
+	s.hint.Store(int32(i))
+	return i
+}
+
+// search finds the line holding offset off by bisection.
+func (s *Source) search(off int) int {
 	lo, hi := 0, len(s.lines) // lines[lo] <= off < lines[hi]
 	for hi-lo > 1 {
 		m := int(uint(lo+hi) >> 1)
@@ -102,7 +123,11 @@ func (s *Source) Pos(off int) Pos {
 		return Pos{}
 	}
 	off = min(max(off, 0), len(s.text))
-	i := s.line(off)
+	return s.posOnLine(off, s.line(off))
+}
+
+// posOnLine is Pos for an offset on the 0-based line i.
+func (s *Source) posOnLine(off, i int) Pos {
 	start, col := int(s.lines[i]), 1
 	if off <= start {
 		return Pos{Line: i + 1, Column: 1, Offset: off}
@@ -125,13 +150,50 @@ func (s *Source) Pos(off int) Pos {
 }
 
 // Span is the exact source range of the token t of this source.
-func (s *Source) Span(t Token) Span {
-	start := s.Pos(int(t.Offset))
-	end := Pos{Line: start.Line, Column: start.Column + utf8.RuneCountInString(t.Value), Offset: start.Offset + len(t.Value)}
-	if !start.IsValid() {
-		end = Pos{}
+func (s *Source) Span(t Token) Span { return s.span(t, t) }
+
+// span is the exact source range from the start of token first to the end
+// of token last, both of this source, last not before first.
+func (s *Source) span(first, last Token) Span {
+	if s == nil {
+		return Span{}
 	}
-	return Span{File: s.Name(), Start: start, End: end}
+	off := min(max(int(first.Offset), 0), len(s.text))
+	i := s.line(off)
+	start := s.posOnLine(off, i)
+	end := int(last.Offset)
+	if end < off || end > len(s.text) {
+		return Span{File: s.name, Start: start, End: start}
+	}
+	var p Pos
+	if i+1 == len(s.lines) || end < int(s.lines[i+1]) {
+		// On the same line: count on from the start.
+		p = Pos{Line: start.Line, Column: start.Column + utf8.RuneCountInString(s.text[off:end]), Offset: end}
+		if end-off > markEvery {
+			p = s.posOnLine(end, i)
+		}
+	} else {
+		p = s.posOnLine(end, i+1+s.searchFrom(end, i+1))
+	}
+	p.Column += utf8.RuneCountInString(last.Value)
+	p.Offset += len(last.Value)
+	return Span{File: s.name, Start: start, End: p}
+}
+
+// searchFrom is the index, counted from line i, of the line holding
+// offset off, which is at or after line i's start.
+func (s *Source) searchFrom(off, i int) int {
+	lines := s.lines[i:]
+	lo, hi := 0, len(lines)
+	for hi-lo > 1 {
+		m := int(uint(lo+hi) >> 1)
+		if int(lines[m]) <= off {
+			lo = m
+		} else {
+			hi = m
+		}
+	}
+	return lo
 }
 
 // position is the participle Position of offset off.

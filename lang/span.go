@@ -47,11 +47,7 @@ func (n *Node) Span() Span {
 		p := src.Pos(int(first.Offset))
 		return Span{File: src.Name(), Start: p, End: p}
 	}
-	s := src.Span(first)
-	if n.end-n.start > 1 {
-		s.End = src.Span(n.g.toks[n.end-1]).End
-	}
-	return s
+	return src.span(first, n.g.toks[n.end-1])
 }
 
 // Position is where the node starts: its first token's position, or the
