@@ -111,17 +111,18 @@ func (q *Quantity) read(lex tokenStream) error {
 		return participle.NextMatch
 	}
 	start := lex.RawCursor()
-	out := Quantity{Value: &Num{}}
+	slab := slabOf(lex)
+	out := Quantity{Value: slab.num()}
 	_ = out.Value.read(lex)
 	if isPlusMinus(lex.Peek()) {
 		lex.Next()
-		out.Sigma = &Num{}
+		out.Sigma = slab.num()
 		if out.Sigma.read(lex) != nil {
 			return expecting(lex, sigmaPart[1])
 		}
 	}
 	if unitRule.begins(lex.Peek()) {
-		out.Unit = &Unit{}
+		out.Unit = slab.unit()
 		_ = out.Unit.read(lex)
 	}
 	out.Node = lex.node(start, lex.RawCursor())

@@ -380,6 +380,7 @@ type result struct {
 func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache) []result {
 	results := make([]result, len(chunks))
 	slab := &nodeSlab{}
+	cur := &tokenCursor{} // one for all the group's statements
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
 			if key, keyed := statementKey(g.src, g.toks[c.start:c.end]); keyed {
@@ -387,20 +388,20 @@ func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache) []result {
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(g, c, slab)
+				r := parseStatement(g, c, slab, cur)
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(g, c, slab)
+		results[i] = parseStatement(g, c, slab, cur)
 	}
 	return results
 }
 
-// parseStatement parses the statement c of a group, taking its small
-// nodes from slab.
-func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab) result {
+// parseStatement parses the statement c of a group with cursor cur,
+// taking its small nodes from slab.
+func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab, cur *tokenCursor) result {
 	src := g.src
 	toks := g.toks[c.start:c.end:c.end]
 	first := toks[0]
@@ -415,7 +416,7 @@ func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab) result {
 		}}}
 	}
 	st := &Statement{Node: Node{g: g, start: int32(c.start), end: int32(c.end)}}
-	cur := newCursor(g, c.start, c.end+1, slab)
+	*cur = tokenCursor{g: g, base: c.start, toks: g.toks[c.start : c.end+1 : c.end+1], slab: slab}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
 		err = &syntaxError{found: *cur.Peek()}

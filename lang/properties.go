@@ -1,8 +1,6 @@
 package lang
 
 import (
-	"slices"
-
 	"github.com/alecthomas/participle/v2"
 )
 
@@ -43,7 +41,7 @@ func expectLit(lex tokenStream, x expr) error {
 // requireQuantity parses the quantity that part x of a production
 // requires, or fails expecting x.
 func requireQuantity(lex tokenStream, x expr) (*Quantity, error) {
-	q := &Quantity{}
+	q := slabOf(lex).quantity()
 	if err := q.read(lex); err != nil {
 		if err == participle.NextMatch {
 			return nil, expecting(lex, x)
@@ -87,20 +85,17 @@ func (p *Polynomial) read(lex tokenStream) error {
 	if err := expectLit(lex, polynomialRule.at(4)); err != nil {
 		return err
 	}
-	// The coefficients are read into one array, which Coeffs points into.
-	var buf [9]Num // the most a polynomial takes
+	// The coefficients are read straight into the group's arrays of
+	// numbers and of lists of them.
+	slab := slabOf(lex)
+	var buf [9]*Num // the most a polynomial takes
 	nums := buf[:0]
 	for numRule.begins(lex.Peek()) {
-		nums = append(nums, Num{})
-		_ = nums[len(nums)-1].read(lex)
+		n := slab.num()
+		_ = n.read(lex)
+		nums = append(nums, n)
 	}
-	if len(nums) > 0 {
-		kept := slices.Clone(nums)
-		out.Coeffs = make([]*Num, len(kept))
-		for i := range kept {
-			out.Coeffs[i] = &kept[i]
-		}
-	}
+	out.Coeffs = slab.numList(nums)
 	if err := expectLit(lex, polynomialRule.at(6)); err != nil {
 		return err
 	}

@@ -100,7 +100,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	lex.Next() // "reaction"
 	out := &Reaction{Node: startsAt(lex, start)}
 	st.Reaction = out
-	name := &Ident{}
+	name := lex.slab.ident()
 	if name.read(lex) != nil {
 		return expecting(lex, reactionRule.at(1))
 	}
@@ -111,7 +111,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	if err := parseTerms(lex, &out.Left, reactionRule.at(3)); err != nil {
 		return err
 	}
-	arrow := &Arrow{}
+	arrow := lex.slab.arrow()
 	if arrow.read(lex) != nil {
 		return expecting(lex, reactionRule.at(5))
 	}
