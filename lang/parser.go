@@ -319,8 +319,12 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			// A worker's small nodes come from one slab for all the
+			// groups it parses, so that only its last chunks are part
+			// full.
+			slab := &nodeSlab{}
 			for g := range groups {
-				g.results = parseGroup(g.g, g.chunks, cache)
+				g.results = parseGroup(g.g, g.chunks, cache, slab)
 			}
 		}()
 	}
@@ -375,11 +379,11 @@ type result struct {
 	diags Diagnostics
 }
 
-// parseGroup parses the statements of one group in order. With a cache, a
-// statement whose text it holds is taken from it.
-func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache) []result {
+// parseGroup parses the statements of one group in order, taking their
+// small nodes from slab. With a cache, a statement whose text it holds is
+// taken from it.
+func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache, slab *nodeSlab) []result {
 	results := make([]result, len(chunks))
-	slab := &nodeSlab{}
 	cur := &tokenCursor{} // one for all the group's statements
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
@@ -415,7 +419,8 @@ func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab, cur *tokenCursor) re
 			Context:  span.Join(src.Span(toks[len(toks)-1])),
 		}}}
 	}
-	st := &Statement{Node: Node{g: g, start: int32(c.start), end: int32(c.end)}}
+	st := slabOr(slab, slabStmts)
+	st.Node = Node{g: g, start: int32(c.start), end: int32(c.end)}
 	*cur = tokenCursor{g: g, base: c.start, toks: g.toks[c.start : c.end+1 : c.end+1], slab: slab}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {

@@ -129,14 +129,15 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 		out.Formula = &FormulaProp{Node: lex.node(start, lex.RawCursor()), Formula: ref}
 	case speciesValueRule.begins(&first):
 		lex.Next()
-		v := &SpeciesValue{Key: first.Value}
+		v := slabOr(slabOf(lex), slabSValues)
+		v.Key = first.Value
 		if v.Value, err = requireQuantity(lex, speciesValueRule.at(1)); err != nil {
 			return err
 		}
 		v.Node = lex.node(start, lex.RawCursor())
 		out.Value = v
 	case polynomialRule.begins(&first):
-		out.Poly = &Polynomial{}
+		out.Poly = slabOr(slabOf(lex), slabPolys)
 		if err := out.Poly.read(lex); err != nil {
 			return err
 		}

@@ -1,11 +1,12 @@
 package lang
 
-// nodeSlab hands out the small nodes a reaction statement is made of (its
-// terms, their species references and coefficients, the lists of terms)
-// from arrays allocated a chunk at a time, for the statements of one
-// group: a few allocations per group instead of several per term. The
-// syntax tree keeps a chunk while it keeps any node in it, as it keeps
-// its group's token array. A nil slab allocates each node on its own.
+// nodeSlab hands out the nodes statements are made of (statements, species
+// and reactions, their properties, terms, species references, numbers,
+// quantities and units, and the lists of them) from arrays allocated a
+// chunk at a time, for the statements one parse worker reads: a few
+// allocations per group of statements instead of several per term. The
+// syntax tree keeps a chunk while it keeps any node in it. A nil slab
+// allocates each node on its own.
 type nodeSlab struct {
 	terms  []Term
 	refs   []SpeciesRef
@@ -16,7 +17,46 @@ type nodeSlab struct {
 	arrows []Arrow
 	ptrs   []*Term
 	coeffs []*Num
+
+	stmts     []Statement
+	species   []Species
+	reactions []Reaction
+	sprops    []SpeciesProperty
+	rprops    []ReactionProperty
+	polys     []Polynomial
+	svalues   []SpeciesValue
+	refPtrs   []*SpeciesRef
+	spPtrs    []*SpeciesProperty
+	rpPtrs    []*ReactionProperty
 }
+
+// slabOr is the next node of *s from slab, or a new one without a slab.
+func slabOr[T any](slab *nodeSlab, s func(*nodeSlab) *[]T) *T {
+	if slab == nil {
+		return new(T)
+	}
+	return slabNext(s(slab))
+}
+
+// slabListOr is slabList of *s from slab, or a copy without a slab.
+func slabListOr[T any](slab *nodeSlab, s func(*nodeSlab) *[]T, ps []T) []T {
+	if slab == nil {
+		return slabList(new([]T), ps)
+	}
+	return slabList(s(slab), ps)
+}
+
+// The slab's arrays of each kind, for slabOr and slabListOr.
+func slabStmts(s *nodeSlab) *[]Statement          { return &s.stmts }
+func slabSpecies(s *nodeSlab) *[]Species          { return &s.species }
+func slabReactions(s *nodeSlab) *[]Reaction       { return &s.reactions }
+func slabSProps(s *nodeSlab) *[]SpeciesProperty   { return &s.sprops }
+func slabRProps(s *nodeSlab) *[]ReactionProperty  { return &s.rprops }
+func slabPolys(s *nodeSlab) *[]Polynomial         { return &s.polys }
+func slabSValues(s *nodeSlab) *[]SpeciesValue     { return &s.svalues }
+func slabRefPtrs(s *nodeSlab) *[]*SpeciesRef      { return &s.refPtrs }
+func slabSPPtrs(s *nodeSlab) *[]*SpeciesProperty  { return &s.spPtrs }
+func slabRPPtrs(s *nodeSlab) *[]*ReactionProperty { return &s.rpPtrs }
 
 // slabChunk is how many nodes of a kind one allocation holds at most. The
 // first chunk of a kind holds 8, and each next one twice as many, so that

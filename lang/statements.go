@@ -37,29 +37,34 @@ var comboParser = participle.MustBuild[Combination](parserOptions...)
 func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	lex.Next() // "species"
-	out := &Species{Node: startsAt(lex, start)}
+	out := slabOr(lex.slab, slabSpecies)
+	out.Node = startsAt(lex, start)
 	st.Species = out
+	var buf [4]*SpeciesRef
+	refs := buf[:0]
 	for {
-		ref := &SpeciesRef{}
+		ref := lex.slab.ref()
 		if ref.read(lex) != nil {
-			if len(out.Refs) == 0 {
+			out.Refs = slabListOr(lex.slab, slabRefPtrs, refs)
+			if len(refs) == 0 {
 				return expecting(lex, speciesRule.at(1))
 			}
 			return expecting(lex, moreRefsPart[1])
 		}
-		out.Refs = append(out.Refs, ref)
+		refs = append(refs, ref)
 		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreRefsPart[0]) {
 			break
 		}
 		lex.Next()
 	}
+	out.Refs = slabListOr(lex.slab, slabRefPtrs, refs)
 	if strRule.begins(lex.Peek()) {
 		out.Label = &Str{}
 		_ = out.Label.read(lex)
 	}
 	if blockOpens(lex.Peek()) {
 		out.HasBody = true
-		props, err := parseBlock[SpeciesProperty](lex)
+		props, err := parseBlock(lex, slabSProps, slabSPPtrs)
 		out.Props = props
 		if err != nil {
 			return err
@@ -98,7 +103,8 @@ func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
 func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	lex.Next() // "reaction"
-	out := &Reaction{Node: startsAt(lex, start)}
+	out := slabOr(lex.slab, slabReactions)
+	out.Node = startsAt(lex, start)
 	st.Reaction = out
 	name := lex.slab.ident()
 	if name.read(lex) != nil {
@@ -131,7 +137,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	}
 	if blockOpens(lex.Peek()) {
 		out.HasBody = true
-		props, err := parseBlock[ReactionProperty](lex)
+		props, err := parseBlock(lex, slabRProps, slabRPPtrs)
 		out.Props = props
 		if err != nil {
 			return err
@@ -142,24 +148,29 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 }
 
 // parseBlock reads "{" P* "}" with lex at the "{": the properties of a
-// species or reaction block. It returns the properties read so far with
-// any error.
+// species or reaction block, taken from the slab's arrays nodes and
+// lists. It returns the properties read so far with any error.
 func parseBlock[P any, PP interface {
 	*P
 	read(tokenStream) error
-}](lex *tokenCursor) ([]PP, error) {
+}](lex *tokenCursor, nodes func(*nodeSlab) *[]P, lists func(*nodeSlab) *[]PP) ([]PP, error) {
 	lex.Next()
-	var props []PP
+	var buf [8]PP
+	props := buf[:0]
+	var p PP
 	for {
-		p := PP(new(P))
+		if p == nil {
+			p = slabOr(lex.slab, nodes)
+		}
 		err := p.read(lex)
 		if err == participle.NextMatch {
 			break
 		}
 		if err != nil {
-			return props, err
+			return slabListOr(lex.slab, lists, props), err
 		}
 		props = append(props, p)
+		p = nil
 	}
-	return props, expectLit(lex, closeBrace)
+	return slabListOr(lex.slab, lists, props), expectLit(lex, closeBrace)
 }
