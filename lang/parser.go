@@ -332,7 +332,7 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 	b := &groupLexer{l: l}
 	last := 0 // tokens in the group before
 	for !b.finished {
-		b.chunks, b.full = nil, false
+		b.chunks, b.full = make([]chunk, 0, groupStatements), false
 		// The syntax tree keeps the group's tokens. Groups of one file are
 		// much alike in size, so room for the last one's and a little more
 		// seldom needs to grow and wastes little. Tokens lexed ahead for
