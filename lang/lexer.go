@@ -319,7 +319,7 @@ func classify(w string) TokenType {
 	if n := numberPrefix(w); n == len(w) {
 		return Number
 	}
-	if keywords[w] {
+	if IsKeyword(w) {
 		return Keyword
 	}
 	if _, _, ok := cutStateTag(w); ok {

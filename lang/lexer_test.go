@@ -328,3 +328,18 @@ func TestKeywords(t *testing.T) {
 		t.Error("IsKeyword accepts a non-keyword")
 	}
 }
+
+// TestIsKeywordAgreesWithTheList checks the lexer's lookup of keywords by
+// first byte against the list of reserved words.
+func TestIsKeywordAgreesWithTheList(t *testing.T) {
+	for _, k := range Keywords() {
+		for _, w := range []string{k, k + "x", k[:len(k)-1], strings.ToUpper(k), "é" + k} {
+			if IsKeyword(w) != keywords[w] {
+				t.Errorf("IsKeyword(%q) = %v", w, IsKeyword(w))
+			}
+		}
+	}
+	if IsKeyword("") {
+		t.Error("the empty word is a keyword")
+	}
+}

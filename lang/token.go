@@ -2,6 +2,7 @@ package lang
 
 import (
 	"sort"
+	"unicode/utf8"
 
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -90,7 +91,26 @@ var keywords = map[string]bool{
 }
 
 // IsKeyword reports whether w is a reserved word of the language.
-func IsKeyword(w string) bool { return keywords[w] }
+func IsKeyword(w string) bool {
+	if w == "" || w[0] >= utf8.RuneSelf {
+		return false
+	}
+	for _, k := range keywordsByFirst[w[0]] {
+		if k == w {
+			return true
+		}
+	}
+	return false
+}
+
+// keywordsByFirst lists the keywords by their first byte, which the lexer
+// looks each word up in: faster than hashing every word.
+var keywordsByFirst = func() (t [utf8.RuneSelf][]string) {
+	for k := range keywords {
+		t[k[0]] = append(t[k[0]], k)
+	}
+	return t
+}()
 
 // Keywords lists the reserved words, for completion.
 func Keywords() []string {
