@@ -85,6 +85,14 @@ func (s *Source) Name() string {
 	return s.name
 }
 
+// Text is the file's text, which token values and comments are slices of.
+func (s *Source) Text() string {
+	if s == nil {
+		return ""
+	}
+	return s.text
+}
+
 // line returns the 0-based index of the line holding offset off.
 func (s *Source) line(off int) int {
 	if h := int(s.hint.Load()); h < len(s.lines) && int(s.lines[h]) <= off {
