@@ -5,6 +5,7 @@ import (
 	"strings"
 	"testing"
 	"unicode/utf8"
+	"unsafe"
 )
 
 // TestSourcePositions resolves offsets of texts with short and long lines,
@@ -64,5 +65,16 @@ func TestSourcePositions(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// TestCompactSizes keeps tokens and node headers compact: the token
+// arrays and nodes are most of a parsed file's memory.
+func TestCompactSizes(t *testing.T) {
+	if n := unsafe.Sizeof(Token{}); n > 24 {
+		t.Errorf("a Token takes %d bytes, want at most 24", n)
+	}
+	if n := unsafe.Sizeof(Node{}); n > 16 {
+		t.Errorf("a Node takes %d bytes, want at most 16", n)
 	}
 }
