@@ -22,6 +22,10 @@ type Source struct {
 	name  string
 	text  string
 	lines []int32 // offset where each line starts; line 1 starts after a byte order mark
+	// wide has a bit set for each line that holds a byte outside ASCII,
+	// whose columns are counted rune by rune; on the others a column
+	// is a byte count.
+	wide  []uint64
 	marks []colMark
 	// hint is the line last resolved: spans are mostly asked for in file
 	// order, so the next is often on it or the line after.
@@ -45,16 +49,22 @@ func NewSource(name, text string) *Source {
 		// columns count from after it.
 		start = 3
 	}
-	s.lines = make([]int32, 0, strings.Count(text, "\n")+1)
+	n := strings.Count(text, "\n") + 1
+	s.lines = make([]int32, 0, n)
+	s.wide = make([]uint64, (n+63)/64)
 	for {
+		line := len(s.lines)
 		s.lines = append(s.lines, int32(start))
 		i := strings.IndexByte(text[start:], '\n')
 		end := len(text)
 		if i >= 0 {
 			end = start + i
 		}
-		if end-start > markEvery {
-			s.markLine(start, end)
+		if !isASCII(text[start:end]) {
+			s.wide[line/64] |= 1 << (line % 64)
+			if end-start > markEvery {
+				s.markLine(start, end)
+			}
 		}
 		if i < 0 {
 			return s
@@ -62,6 +72,27 @@ func NewSource(name, text string) *Source {
 		start = end + 1
 	}
 }
+
+// isASCII reports whether s holds only ASCII bytes, eight at a time.
+func isASCII(s string) bool {
+	i := 0
+	for ; i+8 <= len(s); i += 8 {
+		w := uint64(s[i]) | uint64(s[i+1])<<8 | uint64(s[i+2])<<16 | uint64(s[i+3])<<24 |
+			uint64(s[i+4])<<32 | uint64(s[i+5])<<40 | uint64(s[i+6])<<48 | uint64(s[i+7])<<56
+		if w&0x8080808080808080 != 0 {
+			return false
+		}
+	}
+	for ; i < len(s); i++ {
+		if s[i] >= utf8.RuneSelf {
+			return false
+		}
+	}
+	return true
+}
+
+// ascii reports whether the 0-based line i holds only ASCII.
+func (s *Source) ascii(i int) bool { return s.wide[i/64]&(1<<(i%64)) == 0 }
 
 // markLine records column marks along the long line text[start:end].
 func (s *Source) markLine(start, end int) {
@@ -140,6 +171,9 @@ func (s *Source) posOnLine(off, i int) Pos {
 	if off <= start {
 		return Pos{Line: i + 1, Column: 1, Offset: off}
 	}
+	if s.ascii(i) {
+		return Pos{Line: i + 1, Column: 1 + off - start, Offset: off}
+	}
 	if off-start > markEvery && len(s.marks) > 0 {
 		lo, hi := -1, len(s.marks) // marks[lo].off <= off < marks[hi].off
 		for hi-lo > 1 {
@@ -174,13 +208,20 @@ func (s *Source) span(first, last Token) Span {
 		return Span{File: s.name, Start: start, End: start}
 	}
 	var p Pos
-	if i+1 == len(s.lines) || end < int(s.lines[i+1]) {
+	switch {
+	case (i+1 == len(s.lines) || end < int(s.lines[i+1])) && s.ascii(i):
+		// On the same line, all ASCII.
+		p = Pos{Line: start.Line, Column: start.Column + end - off, Offset: end}
+		p.Column += len(last.Value)
+		p.Offset += len(last.Value)
+		return Span{File: s.name, Start: start, End: p}
+	case i+1 == len(s.lines) || end < int(s.lines[i+1]):
 		// On the same line: count on from the start.
 		p = Pos{Line: start.Line, Column: start.Column + utf8.RuneCountInString(s.text[off:end]), Offset: end}
 		if end-off > markEvery {
 			p = s.posOnLine(end, i)
 		}
-	} else {
+	default:
 		p = s.posOnLine(end, i+1+s.searchFrom(end, i+1))
 	}
 	p.Column += utf8.RuneCountInString(last.Value)

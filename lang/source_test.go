@@ -13,9 +13,14 @@ import (
 // and out of file order, and compares with counting from the start.
 func TestSourcePositions(t *testing.T) {
 	r := rand.New(rand.NewPCG(1, 2))
-	pieces := []string{"a", "bc ", "Δ", "⇌", "\xff", "\xe2\x87", "\n", "\r\n", "\t", "µ"}
-	for _, n := range []int{0, 1, 10, 3 * markEvery, 20 * markEvery} {
-		for _, bom := range []bool{false, true} {
+	mixed := []string{"a", "bc ", "Δ", "⇌", "\xff", "\xe2\x87", "\n", "\r\n", "\t", "µ"}
+	ascii := []string{"a", "bc ", "\n", "\r\n", "\t", "\n", "(g)", "\n"}
+	for _, n := range []int{0, 1, 10, 3 * markEvery, 8 * markEvery} {
+		for _, c := range []struct {
+			bom    bool
+			pieces []string
+		}{{false, mixed}, {true, mixed}, {false, ascii}, {true, ascii}} {
+			bom, pieces := c.bom, c.pieces
 			var b strings.Builder
 			if bom {
 				b.WriteString("\ufeff")
