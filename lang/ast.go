@@ -6,8 +6,9 @@ package lang
 
 import "github.com/alecthomas/participle/v2/lexer"
 
-// The syntax tree. Pos is the position of a node's first token and Tokens
-// the tokens it spans, from which its exact Span follows (see Node.Span).
+// The syntax tree. Every node is a run of its statement group's tokens
+// (Node.Tokens), from which its exact Span follows through the file's
+// Source (see Node.Span).
 // The struct tags are participle's grammar for the nodes it reads; the
 // nodes read by hand have their grammar in production values (the *Rule
 // variables of statements.go, properties.go and leaves.go).
