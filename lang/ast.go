@@ -6,15 +6,19 @@ package lang
 
 import "github.com/alecthomas/participle/v2/lexer"
 
-// The syntax tree. Pos is the position of a node's first token and Tokens
-// the tokens it spans, from which its exact Span follows (see Node.Span).
+// The syntax tree. Every node is a run of its statement group's tokens
+// (Node.Tokens), from which its exact Span follows through the file's
+// Source (see Node.Span).
 // The struct tags are participle's grammar for the nodes it reads; the
 // nodes read by hand have their grammar in production values (the *Rule
 // variables of statements.go, properties.go and leaves.go).
 
 // File is one parsed source file.
 type File struct {
-	Name       string
+	Name string
+	// Source is the file's text and line index, which every node's
+	// tokens resolve their positions through.
+	Source     *Source
 	Statements []*Statement
 	Comments   []Comment
 }
@@ -36,19 +40,32 @@ type Statement struct {
 	Broken bool
 }
 
-// Node carries the tokens a node spans, a run of its statement's tokens.
-// A node that has no tokens of its own (a statement that failed before its
-// end, say) may keep where it starts as an empty run whose capacity
-// reaches the token there; its Span is then empty at that token.
+// Node is the run of its statement group's tokens that a node spans (see
+// Tokens), in 16 bytes: the group, which knows the Source its tokens'
+// offsets resolve through, and the run's bounds in it. A node that has no
+// tokens of its own (a statement that failed before its end, say) may
+// keep where it starts as an empty run at the token there; its Span is
+// then empty at that token.
 type Node struct {
-	Tokens []lexer.Token
+	g          *tokenGroup
+	start, end int32 // the node's tokens are g.toks[start:end]
 }
 
-// ParsedNode is the Node of a node that participle reads: participle also
-// records the position where it started, which is all a node that failed
-// part-way has (the parser turns it into an empty run of tokens there).
+// tokenGroup is the token array of one group of statements, which their
+// nodes share, and the Source the tokens were read from.
+type tokenGroup struct {
+	src  *Source
+	toks []Token
+}
+
+// ParsedNode is the Node of a node that participle reads: participle
+// records the positions where it started and where the token after it
+// stands, from which the parser finds its tokens; a node that failed
+// part-way has only its start (the parser turns it into an empty run of
+// tokens there).
 type ParsedNode struct {
-	Pos lexer.Position
+	Pos    lexer.Position
+	EndPos lexer.Position
 	Node
 }
 

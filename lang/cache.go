@@ -2,7 +2,6 @@ package lang
 
 import (
 	"reflect"
-	"sort"
 	"sync"
 
 	"github.com/alecthomas/participle/v2/lexer"
@@ -55,18 +54,21 @@ func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 	return f, diags
 }
 
-// statementKey is the cache key of the statement made of toks.
-func statementKey(src []byte, toks []lexer.Token) (cacheKey, bool) {
-	first, last := toks[0].Pos, toks[len(toks)-1]
-	end := last.Pos.Offset + len(last.Value)
-	if first.Offset < 0 || end > len(src) || first.Offset > end {
+// statementKey is the cache key of the statement made of toks, tokens
+// of src.
+func statementKey(src *Source, toks []Token) (cacheKey, bool) {
+	first, end := int(toks[0].Offset), toks[len(toks)-1].End()
+	if first < 0 || end > len(src.text) || first > end {
 		return cacheKey{}, false
 	}
-	return cacheKey{text: string(src[first.Offset:end]), column: first.Column}, true
+	return cacheKey{text: src.text[first:end], column: src.Pos(first).Column}, true
 }
 
-// lookup returns the cached statement with the key, moved to at.
-func (c *Cache) lookup(k cacheKey, at lexer.Position) *Statement {
+// lookup returns the cached statement with the key, moved to offset at of
+// src. A statement at the same offset and line of a file of the same name
+// is shared: its tokens resolve to the same lines and columns through the
+// Source it was parsed from, since the key holds its text and column.
+func (c *Cache) lookup(k cacheKey, src *Source, at int) *Statement {
 	c.mu.Lock()
 	st := c.last[k]
 	if st == nil {
@@ -76,8 +78,8 @@ func (c *Cache) lookup(k cacheKey, at lexer.Position) *Statement {
 	if st == nil {
 		return nil
 	}
-	if p := st.Position(); p.Offset != at.Offset || p.Line != at.Line || p.Filename != at.Filename {
-		st = moved(st, at)
+	if first, _ := st.at(); int(first.Offset) != at || st.Source().Name() != src.Name() || st.Source().Pos(at).Line != src.Pos(at).Line {
+		st = moved(st, src, at)
 	}
 	c.mu.Lock()
 	c.next[k] = st
@@ -96,16 +98,17 @@ func (c *Cache) store(k cacheKey, st *Statement, clean bool) {
 	c.mu.Unlock()
 }
 
-// moved copies a statement as if it had been parsed at position at: every
-// node and token keeps its column and moves by the same number of lines
-// and bytes.
-func moved(st *Statement, at lexer.Position) *Statement {
-	p := st.Position()
-	m := mover{dOff: at.Offset - p.Offset, dLine: at.Line - p.Line, file: at.Filename, old: st.Tokens}
-	m.toks = make([]lexer.Token, len(st.Tokens))
-	for i, t := range st.Tokens {
-		m.toks[i] = t
-		m.toks[i].Pos = m.pos(t.Pos)
+// moved copies a statement as if it had been parsed at offset at of src:
+// every node and token moves by the same number of bytes, into a group of
+// the statement's tokens and the one after them.
+func moved(st *Statement, src *Source, at int) *Statement {
+	old, first := st.g, int(st.start)
+	last := min(int(st.end)+1, len(old.toks))
+	m := mover{old: old, first: first, dOff: at - int(old.toks[first].Offset), src: src}
+	m.g = &tokenGroup{src: src, toks: make([]Token, last-first)}
+	for i, t := range old.toks[first:last] {
+		t.Offset += int32(m.dOff)
+		m.g.toks[i] = t
 	}
 	out := reflect.New(reflect.TypeFor[Statement]())
 	m.copyStruct(out.Elem(), reflect.ValueOf(st).Elem())
@@ -113,22 +116,30 @@ func moved(st *Statement, at lexer.Position) *Statement {
 }
 
 type mover struct {
-	dOff, dLine int
-	file        string
-	old, toks   []lexer.Token // the statement's tokens before and after the move
+	old, g *tokenGroup // the statement's group before and after the move
+	first  int         // index in old of the statement's first token
+	dOff   int
+	src    *Source
 }
 
 func (m *mover) pos(p lexer.Position) lexer.Position {
-	p.Offset += m.dOff
-	p.Line += m.dLine
-	p.Filename = m.file
-	return p
+	if p.Line == 0 {
+		return p
+	}
+	return m.src.position(p.Offset + m.dOff)
 }
 
-var (
-	nodeType       = reflect.TypeFor[Node]()
-	parsedNodeType = reflect.TypeFor[ParsedNode]()
-)
+// node is n moved: its run of the moved group.
+func (m *mover) node(n Node) Node {
+	if n.g != m.old {
+		return Node{}
+	}
+	start, end := int(n.start)-m.first, int(n.end)-m.first
+	if start < 0 || end > len(m.g.toks) || start > end {
+		return Node{}
+	}
+	return Node{g: m.g, start: int32(start), end: int32(end)}
+}
 
 // copyStruct copies the syntax-tree struct src into dst, moving positions.
 func (m *mover) copyStruct(dst, src reflect.Value) {
@@ -137,10 +148,10 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 		switch {
 		case f.Type() == nodeType:
 			n := f.Interface().(Node)
-			d.Set(reflect.ValueOf(Node{Tokens: m.tokens(n.Tokens)}))
+			d.Set(reflect.ValueOf(m.node(n)))
 		case f.Type() == parsedNodeType:
 			n := f.Interface().(ParsedNode)
-			d.Set(reflect.ValueOf(ParsedNode{Pos: m.pos(n.Pos), Node: Node{Tokens: m.tokens(n.Tokens)}}))
+			d.Set(reflect.ValueOf(ParsedNode{Pos: m.pos(n.Pos), EndPos: m.pos(n.EndPos), Node: m.node(n.Node)}))
 		case f.Kind() == reflect.Pointer:
 			if !f.IsNil() {
 				p := reflect.New(f.Type().Elem())
@@ -163,24 +174,4 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 			d.Set(f)
 		}
 	}
-}
-
-// tokens maps a node's tokens, a run of the statement's, onto the moved
-// statement's tokens.
-func (m *mover) tokens(ts []lexer.Token) []lexer.Token {
-	if cap(ts) == 0 {
-		return ts
-	}
-	off := ts[:1][0].Pos.Offset
-	i := sort.Search(len(m.old), func(i int) bool { return m.old[i].Pos.Offset >= off })
-	n := max(len(ts), 1) // an empty run keeps the token where it starts
-	if i+n > len(m.old) || m.old[i].Pos.Offset != off {
-		out := make([]lexer.Token, n)
-		for j, t := range ts[:n] {
-			out[j] = t
-			out[j].Pos = m.pos(t.Pos)
-		}
-		return out[:len(ts)]
-	}
-	return m.toks[i : i+len(ts) : i+n]
 }

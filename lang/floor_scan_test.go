@@ -2,8 +2,6 @@ package lang
 
 import (
 	"testing"
-
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // tokenCounts counts a scan's tokens by kind.
@@ -110,7 +108,7 @@ func TestFloorScanCountsTokens(t *testing.T) {
 					want.strings++
 				case Punct:
 					want.puncts++
-				case lexer.EOF:
+				case EOF:
 				default:
 					t.Fatalf("token type %d", tok.Type)
 				}

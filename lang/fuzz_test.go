@@ -6,8 +6,6 @@ import (
 	"strings"
 	"testing"
 	"unicode/utf8"
-
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // posAt computes the line and column (in code points) of byte offset off;
@@ -38,7 +36,8 @@ func posAt(src []byte, off int) (line, col int) {
 // space or reported by a diagnostic.
 func checkLex(t *testing.T, src []byte) {
 	toks, comments, diags := Lex("f.hess", src)
-	if len(toks) == 0 || toks[len(toks)-1].Type != lexer.EOF {
+	source := NewSource("f.hess", string(src))
+	if len(toks) == 0 || toks[len(toks)-1].Type != EOF {
 		t.Fatalf("token list does not end with EOF")
 	}
 	covered := make([]bool, len(src))
@@ -56,27 +55,28 @@ func checkLex(t *testing.T, src []byte) {
 		end = 3
 	}
 	for i, k := range toks {
-		off := k.Pos.Offset
+		off := int(k.Offset)
 		if off < end {
 			t.Fatalf("token %d %q at %d overlaps the previous token ending at %d", i, k.Value, off, end)
 		}
 		if off+len(k.Value) > len(src) || string(src[off:off+len(k.Value)]) != k.Value {
 			t.Fatalf("token %d %q is not the source text at offset %d", i, k.Value, off)
 		}
-		if k.Type != lexer.EOF && k.Value == "" {
+		if k.Type != EOF && k.Value == "" {
 			t.Fatalf("token %d at %d is empty", i, off)
 		}
-		if line, col := posAt(src, off); k.Pos.Line != line || k.Pos.Column != col {
-			t.Fatalf("token %d %q at offset %d says %d:%d, want %d:%d", i, k.Value, off, k.Pos.Line, k.Pos.Column, line, col)
+		if line, col := posAt(src, off); source.Pos(off).Line != line || source.Pos(off).Column != col {
+			p := source.Pos(off)
+			t.Fatalf("token %d %q at offset %d says %d:%d, want %d:%d", i, k.Value, off, p.Line, p.Column, line, col)
 		}
-		if s := TokenSpan(k); s.End.Offset != off+len(k.Value) {
+		if s := source.Span(k); s.End.Offset != off+len(k.Value) {
 			t.Fatalf("token %d span ends at %d", i, s.End.Offset)
 		}
 		mark(off, off+len(k.Value), "token")
 		end = off + len(k.Value)
 	}
-	if eof := toks[len(toks)-1]; eof.Pos.Offset != len(src) {
-		t.Fatalf("EOF at offset %d, want %d", eof.Pos.Offset, len(src))
+	if eof := toks[len(toks)-1]; int(eof.Offset) != len(src) {
+		t.Fatalf("EOF at offset %d, want %d", eof.Offset, len(src))
 	}
 	for _, c := range comments {
 		s := c.Span
@@ -128,7 +128,7 @@ func FuzzParse(f *testing.F) {
 		}
 		prev := 0
 		for i, st := range file.Statements {
-			if st == nil || len(st.Tokens) == 0 {
+			if st == nil || len(st.Tokens()) == 0 {
 				t.Fatalf("statement %d is empty", i)
 			}
 			s := st.Span()

@@ -24,7 +24,7 @@ type expr interface {
 type lit string
 
 // tokenClass is a kind of token, such as <word>.
-type tokenClass lexer.TokenType
+type tokenClass TokenType
 
 // ref names another production.
 type ref string
@@ -112,7 +112,7 @@ func (a alt) words() []string {
 // name is the token type's name in lower case, as participle prints it.
 func (c tokenClass) name() string {
 	for name, t := range symbols() {
-		if t == lexer.TokenType(c) {
+		if t == lexer.TokenType(TokenType(c)) {
 			return strings.ToLower(name)
 		}
 	}
@@ -215,19 +215,19 @@ func (p *production) at(i int) expr {
 
 // begins reports whether t can start p: a token of one of its first
 // kinds, or one of its first literals.
-func (p *production) begins(t *lexer.Token) bool {
+func (p *production) begins(t *Token) bool {
 	return p.types&tokenClass(t.Type).bit() != 0 || (p.starts[t.Value] && !isEnd(*t))
 }
 
 // isLit reports whether t is the literal part x.
-func isLit(t *lexer.Token, x expr) bool {
+func isLit(t *Token, x expr) bool {
 	l, ok := x.(lit)
 	return ok && t.Value == string(l) && !isEnd(*t)
 }
 
 // isOneOf reports whether t is one of the literals of x, a choice of
 // literals made by oneOf.
-func isOneOf(t *lexer.Token, x group) bool {
+func isOneOf(t *Token, x group) bool {
 	if isEnd(*t) {
 		return false
 	}

@@ -6,19 +6,18 @@ import (
 	"testing"
 
 	"github.com/alecthomas/participle/v2"
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // firstTokens are the literals and token kinds that can begin x, following
 // references to the productions read by hand.
-func firstTokens(t *testing.T, x expr, lits map[string]bool, types map[lexer.TokenType]bool) {
+func firstTokens(t *testing.T, x expr, lits map[string]bool, types map[TokenType]bool) {
 	t.Helper()
 	for _, y := range first(x) {
 		switch y := y.(type) {
 		case lit:
 			lits[string(y)] = true
 		case tokenClass:
-			types[lexer.TokenType(y)] = true
+			types[TokenType(y)] = true
 		case ref:
 			p, ok := handProductions[string(y)]
 			if !ok {
@@ -46,21 +45,21 @@ func TestReadersStartAsTheGrammarSays(t *testing.T) {
 		"SpeciesProperty":  func(l tokenStream) error { return new(SpeciesProperty).read(l) },
 		"ReactionProperty": func(l tokenStream) error { return new(ReactionProperty).read(l) },
 	}
-	samples := []lexer.Token{
+	samples := []Token{
 		{Type: Word, Value: "x"}, {Type: Ref, Value: "A(g)"}, {Type: Number, Value: "1"},
-		{Type: String, Value: `"s"`}, {Type: endOfStatement}, {Type: lexer.EOF},
+		{Type: String, Value: `"s"`}, {Type: endOfStatement}, {Type: EOF},
 	}
 	for _, k := range Keywords() {
-		samples = append(samples, lexer.Token{Type: Keyword, Value: k})
+		samples = append(samples, Token{Type: Keyword, Value: k})
 	}
 	for _, p := range []string{"{", "}", ":", ",", "=", "±", "+-", "+", "-", "<->", "->", "⇌", "→"} {
-		samples = append(samples, lexer.Token{Type: Punct, Value: p})
+		samples = append(samples, Token{Type: Punct, Value: p})
 	}
 	for name, read := range readers {
-		lits, types := map[string]bool{}, map[lexer.TokenType]bool{}
+		lits, types := map[string]bool{}, map[TokenType]bool{}
 		firstTokens(t, handProductions[name].body, lits, types)
 		for _, tok := range samples {
-			cur := &tokenCursor{toks: []lexer.Token{tok, {Type: endOfStatement}}}
+			cur := &tokenCursor{toks: []Token{tok, {Type: endOfStatement}}}
 			took := read(cur) != participle.NextMatch
 			want := types[tok.Type] || (lits[tok.Value] && !isEnd(tok))
 			if took != want {
@@ -134,7 +133,7 @@ func TestSyntaxErrorPassesThroughParticiple(t *testing.T) {
 func toSyntaxErrorOf(t *testing.T, src string) error {
 	t.Helper()
 	toks, _, _ := Lex("f.hess", []byte(src))
-	cur := &tokenCursor{toks: toks}
+	cur := newCursor(&tokenGroup{src: NewSource("f.hess", src), toks: toks}, 0, len(toks), nil)
 	err := statementParsers[toks[0].Value](cur, &Statement{})
 	if err == nil {
 		t.Fatalf("%q parses", src)

@@ -27,22 +27,22 @@ var (
 	plusMinus = oneOf("±", "+-")
 )
 
-// take consumes the next token and returns it with its one-token slice.
-func take(lex tokenStream) (lexer.Token, []lexer.Token) {
+// take consumes the next token and returns its value with its Node.
+func take(lex tokenStream) (string, Node) {
 	start := lex.RawCursor()
-	t := *lex.Next()
-	return t, lex.Range(start, lex.RawCursor())
+	t := lex.Next().Value
+	return t, lex.node(start, start+1)
 }
 
 // Parse reads a number token.
-func (n *Num) Parse(lex *lexer.PeekingLexer) error { return n.read(lex) }
+func (n *Num) Parse(lex *lexer.PeekingLexer) error { return n.read(&peekStream{lex: lex}) }
 
 func (n *Num) read(lex tokenStream) error {
 	if !numRule.begins(lex.Peek()) {
 		return participle.NextMatch
 	}
-	t, toks := take(lex)
-	*n = Num{Node: Node{Tokens: toks}, Text: t.Value}
+	t, node := take(lex)
+	*n = Num{Node: node, Text: t}
 	return nil
 }
 
@@ -50,44 +50,44 @@ func (u *Unit) read(lex tokenStream) error {
 	if !unitRule.begins(lex.Peek()) {
 		return participle.NextMatch
 	}
-	t, toks := take(lex)
-	*u = Unit{Node: Node{Tokens: toks}, Text: t.Value}
+	t, node := take(lex)
+	*u = Unit{Node: node, Text: t}
 	return nil
 }
 
 // Parse reads a name.
-func (id *Ident) Parse(lex *lexer.PeekingLexer) error { return id.read(lex) }
+func (id *Ident) Parse(lex *lexer.PeekingLexer) error { return id.read(&peekStream{lex: lex}) }
 
 func (id *Ident) read(lex tokenStream) error {
 	if !identRule.begins(lex.Peek()) {
 		return participle.NextMatch
 	}
-	t, toks := take(lex)
-	*id = Ident{Node: Node{Tokens: toks}, Name: t.Value}
+	t, node := take(lex)
+	*id = Ident{Node: node, Name: t}
 	return nil
 }
 
 // Parse reads a string literal.
-func (s *Str) Parse(lex *lexer.PeekingLexer) error { return s.read(lex) }
+func (s *Str) Parse(lex *lexer.PeekingLexer) error { return s.read(&peekStream{lex: lex}) }
 
 func (s *Str) read(lex tokenStream) error {
 	if !strRule.begins(lex.Peek()) {
 		return participle.NextMatch
 	}
-	t, toks := take(lex)
-	*s = Str{Node: Node{Tokens: toks}, Raw: t.Value}
+	t, node := take(lex)
+	*s = Str{Node: node, Raw: t}
 	return nil
 }
 
 // Parse reads a species reference.
-func (r *SpeciesRef) Parse(lex *lexer.PeekingLexer) error { return r.read(lex) }
+func (r *SpeciesRef) Parse(lex *lexer.PeekingLexer) error { return r.read(&peekStream{lex: lex}) }
 
 func (r *SpeciesRef) read(lex tokenStream) error {
 	if !speciesRefRule.begins(lex.Peek()) {
 		return participle.NextMatch
 	}
-	t, toks := take(lex)
-	*r = SpeciesRef{Node: Node{Tokens: toks}, Text: t.Value}
+	t, node := take(lex)
+	*r = SpeciesRef{Node: node, Text: t}
 	return nil
 }
 
@@ -95,36 +95,37 @@ func (a *Arrow) read(lex tokenStream) error {
 	if t := lex.Peek(); t.Type != Punct || !arrowRule.begins(t) {
 		return participle.NextMatch
 	}
-	tok, toks := take(lex)
-	*a = Arrow{Node: Node{Tokens: toks}, Text: tok.Value}
+	t, node := take(lex)
+	*a = Arrow{Node: node, Text: t}
 	return nil
 }
 
 // isPlusMinus reports whether t starts a standard uncertainty.
-func isPlusMinus(t *lexer.Token) bool { return t.Type == Punct && isOneOf(t, plusMinus) }
+func isPlusMinus(t *Token) bool { return t.Type == Punct && isOneOf(t, plusMinus) }
 
 // Parse reads a Quantity.
-func (q *Quantity) Parse(lex *lexer.PeekingLexer) error { return q.read(lex) }
+func (q *Quantity) Parse(lex *lexer.PeekingLexer) error { return q.read(&peekStream{lex: lex}) }
 
 func (q *Quantity) read(lex tokenStream) error {
 	if !numRule.begins(lex.Peek()) { // a Quantity starts with its Num
 		return participle.NextMatch
 	}
 	start := lex.RawCursor()
-	out := Quantity{Value: &Num{}}
+	slab := slabOf(lex)
+	out := Quantity{Value: slab.num()}
 	_ = out.Value.read(lex)
 	if isPlusMinus(lex.Peek()) {
 		lex.Next()
-		out.Sigma = &Num{}
+		out.Sigma = slab.num()
 		if out.Sigma.read(lex) != nil {
 			return expecting(lex, sigmaPart[1])
 		}
 	}
 	if unitRule.begins(lex.Peek()) {
-		out.Unit = &Unit{}
+		out.Unit = slab.unit()
 		_ = out.Unit.read(lex)
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*q = out
 	return nil
 }
@@ -147,7 +148,7 @@ func (tm *Term) read(lex tokenStream) error {
 	} else if err := gluedTerms(tok); err != nil {
 		return err
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*tm = out
 	return nil
 }

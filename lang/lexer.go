@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"strings"
 	"unicode/utf8"
-
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // Comment is one `#` comment, kept for the formatter. Text includes the `#`
@@ -17,68 +15,63 @@ type Comment struct {
 
 // Lex splits src into tokens (ending with an EOF token) and comments. It never
 // fails: malformed input (invalid UTF-8, control characters, unterminated
-// strings) is reported as syntax diagnostics and lexing carries on.
-func Lex(file string, src []byte) ([]lexer.Token, []Comment, Diagnostics) {
-	l := newLexState(file, src)
-	l.toks = make([]lexer.Token, 0, len(src)/5+1)
+// strings) is reported as syntax diagnostics and lexing carries on. The
+// tokens' offsets resolve to lines and columns through NewSource(file, src).
+func Lex(file string, src []byte) ([]Token, []Comment, Diagnostics) {
+	if len(src) > MaxSourceBytes {
+		return []Token{{Type: EOF}}, nil, Diagnostics{tooLarge(file)}
+	}
+	l := newLexState(NewSource(file, string(src)))
+	l.toks = make([]Token, 0, len(src)/5+1)
 	for l.more() {
 	}
 	l.toks = append(l.toks, l.eof())
 	return l.toks, l.comments, l.diags
 }
 
+// tooLarge is the diagnostic for a file longer than MaxSourceBytes.
+func tooLarge(file string) Diagnostic {
+	p := Pos{Line: 1, Column: 1}
+	return Diagnostic{
+		Code: CodeSyntax, Severity: Error, Subject: Span{File: file, Start: p, End: p},
+		Message: fmt.Sprintf("the file is larger than %d bytes, the most the lexer reads", MaxSourceBytes),
+	}
+}
+
+// lexState lexes one source file, appending tokens to toks.
 type lexState struct {
-	file     string
-	src      []byte
-	str      string // src as one string: token values and comments are slices of it
+	src      *Source
+	str      string // the text: token values and comments are slices of it
 	off      int
-	line     int
-	col      int
-	toks     []lexer.Token
+	nl       bool // no token yet on the current line
+	toks     []Token
 	comments []Comment
 	diags    Diagnostics
 	badRuns  int // runs of invalid characters seen
 }
 
-func newLexState(file string, src []byte) *lexState {
-	l := &lexState{file: file, src: src, str: string(src), line: 1, col: 1}
-	if len(src) >= 3 && src[0] == 0xef && src[1] == 0xbb && src[2] == 0xbf {
-		// A byte order mark some editors write is not part of the text;
-		// columns count from after it.
-		l.off = 3
+func newLexState(src *Source) *lexState {
+	l := &lexState{src: src, str: src.text, nl: true}
+	if len(src.lines) > 0 {
+		l.off = int(src.lines[0]) // after a byte order mark
 	}
 	return l
 }
 
-func (l *lexState) position() lexer.Position {
-	return lexer.Position{Filename: l.file, Offset: l.off, Line: l.line, Column: l.col}
-}
-
-func (l *lexState) pos() Pos { return Pos{Line: l.line, Column: l.col, Offset: l.off} }
+func (l *lexState) pos() Pos { return l.src.Pos(l.off) }
 
 // eof is the EOF token at the current position.
-func (l *lexState) eof() lexer.Token { return lexer.Token{Type: lexer.EOF, Pos: l.position()} }
+func (l *lexState) eof() Token { return Token{Type: EOF, Offset: int32(l.off), FirstOnLine: l.nl} }
 
 // advance moves past n bytes that contain no newline.
-func (l *lexState) advance(n int) {
-	end := l.off + n
-	for l.off < end {
-		if l.src[l.off] < utf8.RuneSelf {
-			l.off++
-		} else {
-			_, size := utf8.DecodeRune(l.src[l.off:end])
-			l.off += size
-		}
-		l.col++
-	}
-}
+func (l *lexState) advance(n int) { l.off += n }
 
-func (l *lexState) errorf(start Pos, format string, args ...any) {
+func (l *lexState) errorf(start int, format string, args ...any) {
 	l.diags = append(l.diags, Diagnostic{
 		Code:     CodeSyntax,
 		Severity: Error,
 		Message:  fmt.Sprintf(format, args...),
-		Subject:  Span{File: l.file, Start: start, End: l.pos()},
+		Subject:  Span{File: l.src.name, Start: l.src.Pos(start), End: l.pos()},
 	})
 }
 
@@ -101,16 +94,14 @@ func isControl(r rune) bool { return r < 0x20 || r == 0x7f }
 // it reports whether any input was left to lex.
 func (l *lexState) more() bool {
 	n := len(l.toks)
-	for l.off < len(l.src) && len(l.toks) == n {
-		c := l.src[l.off]
+	for l.off < len(l.str) && len(l.toks) == n {
+		c := l.str[l.off]
 		switch {
 		case c == '\n':
 			l.off++
-			l.line++
-			l.col = 1
+			l.nl = true
 		case isSpace(c):
 			l.off++
-			l.col++
 		case c == '#':
 			l.comment()
 		case c == '"':
@@ -118,7 +109,7 @@ func (l *lexState) more() bool {
 		case c < utf8.RuneSelf && !isControl(rune(c)) && !isDelimiter(rune(c)):
 			l.word()
 		default:
-			r, size := utf8.DecodeRune(l.src[l.off:])
+			r, size := utf8.DecodeRuneInString(l.str[l.off:])
 			switch {
 			case r == utf8.RuneError && size <= 1:
 				l.badRun(isInvalidAt, "invalid UTF-8 byte", "invalid UTF-8 bytes", fmt.Sprintf("0x%02x", c))
@@ -131,28 +122,28 @@ func (l *lexState) more() bool {
 			}
 		}
 	}
-	return len(l.toks) > n || l.off < len(l.src)
+	return len(l.toks) > n || l.off < len(l.str)
 }
 
 // maxLexDiagnostics caps the runs of invalid characters the lexer reports
 // for one file, so a binary file does not bury the reader.
 const maxLexDiagnostics = 100
 
-func isInvalidAt(b []byte) bool {
-	r, size := utf8.DecodeRune(b)
+func isInvalidAt(b string) bool {
+	r, size := utf8.DecodeRuneInString(b)
 	return r == utf8.RuneError && size <= 1
 }
 
-func isControlAt(b []byte) bool {
+func isControlAt(b string) bool {
 	return b[0] < utf8.RuneSelf && isControl(rune(b[0])) && !isSpace(b[0])
 }
 
 // badRun skips a run of bytes for which bad holds (each one byte long) and
 // reports it once: one and many name the kind, first is the run's first byte.
-func (l *lexState) badRun(bad func([]byte) bool, one, many, first string) {
-	start := l.pos()
+func (l *lexState) badRun(bad func(string) bool, one, many, first string) {
+	start := l.off
 	n := 0
-	for l.off+n < len(l.src) && bad(l.src[l.off+n:]) {
+	for l.off+n < len(l.str) && bad(l.str[l.off+n:]) {
 		n++
 	}
 	l.advance(n)
@@ -169,18 +160,22 @@ func (l *lexState) badRun(bad func([]byte) bool, one, many, first string) {
 	}
 }
 
-func (l *lexState) emit(typ lexer.TokenType, n int) {
-	tok := lexer.Token{Type: typ, Value: l.str[l.off : l.off+n], Pos: l.position()}
-	l.toks = append(l.toks, tok)
-	l.advance(n)
+func (l *lexState) emit(typ TokenType, n int) {
+	l.toks = append(l.toks, Token{Value: l.str[l.off : l.off+n], Offset: int32(l.off), Type: typ, FirstOnLine: l.nl})
+	l.nl = false
+	l.off += n
 }
 
 // checkText reports the first invalid UTF-8 byte or control character
 // (other than tab) in the text of a comment or string that starts at the
 // current position; what names the construct in the message.
-func (l *lexState) checkText(text []byte, what string) {
+func (l *lexState) checkText(text string, what string) {
 	for i := 0; i < len(text); {
-		r, w := utf8.DecodeRune(text[i:])
+		if text[i] >= 0x20 && text[i] < utf8.RuneSelf && text[i] != 0x7f {
+			i++
+			continue
+		}
+		r, w := utf8.DecodeRuneInString(text[i:])
 		var msg string
 		switch {
 		case r == utf8.RuneError && w <= 1:
@@ -191,57 +186,52 @@ func (l *lexState) checkText(text []byte, what string) {
 			i += w
 			continue
 		}
-		at := l.pos()
-		at.Offset += i
-		at.Column += utf8.RuneCount(text[:i])
+		at := l.src.Pos(l.off + i)
 		end := Pos{Line: at.Line, Column: at.Column + 1, Offset: at.Offset + 1}
 		l.diags = append(l.diags, Diagnostic{
 			Code:     CodeSyntax,
 			Severity: Error,
 			Message:  msg,
-			Subject:  Span{File: l.file, Start: at, End: end},
+			Subject:  Span{File: l.src.name, Start: at, End: end},
 		})
 		return
 	}
 }
 
 func (l *lexState) comment() {
-	end := l.off
-	for end < len(l.src) && l.src[end] != '\n' {
-		end++
+	end := len(l.str)
+	if i := strings.IndexByte(l.str[l.off:], '\n'); i >= 0 {
+		end = l.off + i
 	}
-	text := l.src[l.off:end]
+	text := l.str[l.off:end]
 	if len(text) > 0 && text[len(text)-1] == '\r' {
 		text = text[:len(text)-1]
 	}
 	l.checkText(text, "comment")
-	start := l.pos()
-	s := l.str[l.off : l.off+len(text)]
-	l.advance(len(text))
-	l.comments = append(l.comments, Comment{Span: Span{File: l.file, Start: start, End: l.pos()}, Text: s})
-	l.advance(end - l.off)
+	l.comments = append(l.comments, Comment{Span: l.src.Span(Token{Value: text, Offset: int32(l.off)}), Text: text})
+	l.off = end
 }
 
 func (l *lexState) string() {
-	start := l.pos()
+	start := l.off
 	i := l.off + 1
 	closed := false
-	for i < len(l.src) && l.src[i] != '\n' {
-		if l.src[i] == '\\' && i+1 < len(l.src) && l.src[i+1] != '\n' {
+	for i < len(l.str) && l.str[i] != '\n' {
+		if l.str[i] == '\\' && i+1 < len(l.str) && l.str[i+1] != '\n' {
 			i += 2
 			continue
 		}
-		if l.src[i] == '"' {
+		if l.str[i] == '"' {
 			i++
 			closed = true
 			break
 		}
 		i++
 	}
-	if !closed && i > l.off+1 && l.src[i-1] == '\r' && (i == len(l.src) || l.src[i] == '\n') {
+	if !closed && i > l.off+1 && l.str[i-1] == '\r' && (i == len(l.str) || l.str[i] == '\n') {
 		i-- // the CR of a CRLF line end is not part of an unclosed string
 	}
-	raw := l.src[l.off:i]
+	raw := l.str[l.off:i]
 	nerr := len(l.diags)
 	l.checkText(raw, "string")
 	l.emit(String, i-l.off)
@@ -251,7 +241,7 @@ func (l *lexState) string() {
 	case len(l.diags) > nerr:
 		// already reported
 	default:
-		if _, err := Unquote(string(raw)); err != nil {
+		if _, err := Unquote(raw); err != nil {
 			l.errorf(start, "%v", err)
 		}
 	}
@@ -261,16 +251,16 @@ func (l *lexState) string() {
 // a comment, and classifies it.
 func (l *lexState) word() {
 	end := l.off
-	for end < len(l.src) {
-		c := l.src[end]
+	for end < len(l.str) {
+		c := l.str[end]
 		if c < utf8.RuneSelf {
-			if isSpace(c) || c == '"' || c == '#' || isControl(rune(c)) || isDelimiter(rune(c)) {
+			if wordEnds[c] {
 				break
 			}
 			end++
 			continue
 		}
-		r, size := utf8.DecodeRune(l.src[end:])
+		r, size := utf8.DecodeRuneInString(l.str[end:])
 		if isDelimiter(r) || (r == utf8.RuneError && size <= 1) || isControl(r) {
 			break
 		}
@@ -285,18 +275,23 @@ func (l *lexState) word() {
 			w = w[2:]
 			continue
 		}
+		n := numberPrefix(w)
 		// Numbers are decimal: `0x1p3` is one bad number, not 0 with a unit.
-		if n := numberPrefix(w); n > 0 && n < len(w) && (w[n] == 'x' || w[n] == 'X') && strings.TrimLeft(w[:n], "+-") == "0" {
-			start := l.pos()
+		if n > 0 && n < len(w) && (w[n] == 'x' || w[n] == 'X') && strings.TrimLeft(w[:n], "+-") == "0" {
+			start := l.off
 			l.emit(Number, len(w))
 			l.errorf(start, "hexadecimal numbers are not part of the language: write numbers in decimal, such as 8 or 1.5e3")
 			return
 		}
 		// A number that runs into letters is two tokens: `298.15K`, `2H2O(g)`.
-		if n := numberPrefix(w); n > 0 && n < len(w) && (startsLetter(w[n:]) || strings.HasPrefix(w[n:], "+-")) {
+		if n > 0 && n < len(w) && (startsLetter(w[n:]) || strings.HasPrefix(w[n:], "+-")) {
 			l.emit(Number, n)
 			w = w[n:]
 			continue
+		}
+		if n == len(w) {
+			l.emit(Number, n)
+			return
 		}
 		l.emit(classify(w), len(w))
 		return
@@ -308,7 +303,15 @@ func startsLetter(s string) bool {
 	return r == '°' || r == '_' || ('a' <= r && r <= 'z') || ('A' <= r && r <= 'Z')
 }
 
-func classify(w string) lexer.TokenType {
+// wordEnds holds the ASCII characters that end a word.
+var wordEnds = func() (t [utf8.RuneSelf]bool) {
+	for c := range t {
+		t[c] = isSpace(byte(c)) || c == '"' || c == '#' || isControl(rune(c)) || isDelimiter(rune(c))
+	}
+	return t
+}()
+
+func classify(w string) TokenType {
 	switch w {
 	case "+", "-", "+-", "<->", "->", "⇌", "→":
 		return Punct
@@ -316,7 +319,7 @@ func classify(w string) lexer.TokenType {
 	if n := numberPrefix(w); n == len(w) {
 		return Number
 	}
-	if keywords[w] {
+	if IsKeyword(w) {
 		return Keyword
 	}
 	if _, _, ok := cutStateTag(w); ok {

@@ -10,15 +10,15 @@ import (
 
 // tok is a token's type and value, as a test expects it.
 type tok struct {
-	typ lexer.TokenType
+	typ TokenType
 	val string
 }
 
 func (t tok) String() string { return typeName(t.typ) + " " + fmt.Sprintf("%q", t.val) }
 
-func typeName(t lexer.TokenType) string {
+func typeName(t TokenType) string {
 	for name, typ := range symbols() {
-		if typ == t {
+		if typ == lexer.TokenType(t) {
 			return name
 		}
 	}
@@ -29,7 +29,7 @@ func typeName(t lexer.TokenType) string {
 func lexTokens(t *testing.T, src string) ([]tok, []Comment, Diagnostics) {
 	t.Helper()
 	toks, comments, diags := Lex("t.hess", []byte(src))
-	if len(toks) == 0 || toks[len(toks)-1].Type != lexer.EOF {
+	if len(toks) == 0 || toks[len(toks)-1].Type != EOF {
 		t.Fatalf("Lex(%q): token list does not end with EOF", src)
 	}
 	out := make([]tok, 0, len(toks)-1)
@@ -196,35 +196,39 @@ func TestLexPositions(t *testing.T) {
 	if len(toks) != len(want) {
 		t.Fatalf("got %d tokens, want %d: %v", len(toks), len(want), toks)
 	}
+	source := NewSource("t.hess", src)
 	for i, w := range want {
 		k := toks[i]
-		if k.Value != w.val || k.Pos.Line != w.line || k.Pos.Column != w.column || k.Pos.Offset != w.offset {
+		p := source.Span(k)
+		if k.Value != w.val || p.Start.Line != w.line || p.Start.Column != w.column || p.Start.Offset != w.offset {
 			t.Errorf("token %d: got %q at %d:%d@%d, want %q at %d:%d@%d", i,
-				k.Value, k.Pos.Line, k.Pos.Column, k.Pos.Offset, w.val, w.line, w.column, w.offset)
+				k.Value, p.Start.Line, p.Start.Column, p.Start.Offset, w.val, w.line, w.column, w.offset)
 		}
-		if k.Pos.Filename != "t.hess" {
-			t.Errorf("token %d: file %q", i, k.Pos.Filename)
+		if p.File != "t.hess" {
+			t.Errorf("token %d: file %q", i, p.File)
 		}
-		if src[k.Pos.Offset:k.Pos.Offset+len(k.Value)] != k.Value {
+		if src[k.Offset:k.End()] != k.Value {
 			t.Errorf("token %d: value %q is not the source text at its offset", i, k.Value)
 		}
 	}
-	// TokenSpan ends after the token, in code points and bytes.
-	s := TokenSpan(toks[2])
+	// A token's span ends after the token, in code points and bytes.
+	s := source.Span(toks[2])
 	if s.End != (Pos{Line: 2, Column: 9, Offset: 27}) {
-		t.Errorf("TokenSpan of the string ends at %+v", s.End)
+		t.Errorf("the string's span ends at %+v", s.End)
 	}
 }
 
 func TestLexByteOrderMark(t *testing.T) {
-	toks, _, diags := Lex("t.hess", []byte("\ufeffspecies A(g)"))
+	src := "\ufeffspecies A(g)"
+	toks, _, diags := Lex("t.hess", []byte(src))
 	if len(diags) != 0 {
 		t.Fatalf("diagnostics %v", diags)
 	}
-	if p := toks[0].Pos; p.Line != 1 || p.Column != 1 || p.Offset != 3 {
+	source := NewSource("t.hess", src)
+	if p := source.Pos(int(toks[0].Offset)); p.Line != 1 || p.Column != 1 || p.Offset != 3 {
 		t.Errorf("first token at %d:%d@%d, want 1:1@3", p.Line, p.Column, p.Offset)
 	}
-	if p := toks[1].Pos; p.Column != 9 || p.Offset != 11 {
+	if p := source.Pos(int(toks[1].Offset)); p.Column != 9 || p.Offset != 11 {
 		t.Errorf("second token at column %d offset %d, want 9 and 11", p.Column, p.Offset)
 	}
 }
@@ -322,5 +326,20 @@ func TestKeywords(t *testing.T) {
 	}
 	if IsKeyword("CO2") || IsKeyword("") {
 		t.Error("IsKeyword accepts a non-keyword")
+	}
+}
+
+// TestIsKeywordAgreesWithTheList checks the lexer's lookup of keywords by
+// first byte against the list of reserved words.
+func TestIsKeywordAgreesWithTheList(t *testing.T) {
+	for _, k := range Keywords() {
+		for _, w := range []string{k, k + "x", k[:len(k)-1], strings.ToUpper(k), "é" + k} {
+			if IsKeyword(w) != keywords[w] {
+				t.Errorf("IsKeyword(%q) = %v", w, IsKeyword(w))
+			}
+		}
+	}
+	if IsKeyword("") {
+		t.Error("the empty word is a keyword")
 	}
 }

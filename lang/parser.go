@@ -50,17 +50,11 @@ type statementKind struct {
 func participleKind[G any](keyword string, set func(*Statement, *G)) statementKind {
 	p := participle.MustBuild[G](parserOptions...)
 	parse := func(c *tokenCursor, st *Statement) error {
-		toks := c.toks[c.i:]
-		return c.withPeeking(func(peek *lexer.PeekingLexer) error {
-			v, err := p.ParseFromLexer(peek, participle.AllowTrailing(true))
-			if v != nil {
-				if err != nil {
-					anchorParsed(reflect.ValueOf(v), toks)
-				}
-				set(st, v)
-			}
-			return err
-		})
+		v, err := parseWith(c, p)
+		if v != nil {
+			set(st, v)
+		}
+		return err
 	}
 	return statementKind{keyword: keyword, name: reflect.TypeFor[G]().Name(), parse: parse, grammar: p.String}
 }
@@ -123,81 +117,98 @@ var notAStatement = func() string {
 // endOfStatement is the type of the token the parser sees after each
 // statement's last token. No grammar rule matches it, so no statement can
 // run into the next one.
-const endOfStatement lexer.TokenType = -64
+const endOfStatement TokenType = -64
 
 // isEnd reports whether t ends the statement being parsed.
-func isEnd(t lexer.Token) bool { return t.EOF() || t.Type == endOfStatement }
+func isEnd(t Token) bool { return t.Type == EOF || t.Type == endOfStatement }
 
 // chunk is one statement's place in a group's token stream: tokens
 // [start, end), followed by an endOfStatement token at end.
 type chunk struct{ start, end int }
 
-// groupLexer hands out one group of statements from the lexer, each
-// statement's tokens followed by an endOfStatement token, and EOF once
-// the group is full or at the end of the input. It cuts statements
+// groupLexer cuts the lexer's tokens into groups of statements, each
+// statement's tokens followed by an endOfStatement token, and an EOF token
+// once the group is full or at the end of the input. It cuts statements
 // at statement keywords that stand at brace depth 0 or first on their
-// line. One groupLexer serves all groups of a file, since tokens the lexer
-// has read may wait in its queue from one group to the next.
+// line. The lexer writes each token straight into the group's array
+// (l.toks), which the syntax tree keeps: tokens [0, queue) are the
+// group's so far, the few after them are lexed ahead and move to the next
+// group's array when this one is full.
 type groupLexer struct {
 	l        *lexState
 	queue    int // index in l.toks of the next token to hand out
 	chunks   []chunk
-	n        int         // tokens handed out in this group
-	open     bool        // a statement has started and not yet ended
-	last     lexer.Token // the last token of the open statement
-	depth    int         // brace depth in the open statement
-	junk     bool        // the open statement does not start with a statement keyword
-	full     bool        // the group is full
-	finished bool        // the input is exhausted
+	open     bool  // a statement has started and not yet ended
+	last     Token // the last token of the open statement
+	depth    int   // brace depth in the open statement
+	junk     bool  // the open statement does not start with a statement keyword
+	full     bool  // the group is full
+	finished bool  // the input is exhausted
 }
 
 // A group is full after groupStatements statements, or once its
 // statements reach groupTokens tokens: small enough that a group's tokens
-// (64 bytes each) are still in the cache when a worker parses them, large
-// enough that handing groups to workers costs little.
+// are still in the cache when a worker parses them, large enough that
+// handing groups to workers costs little.
 const (
 	groupStatements = 64
 	groupTokens     = 1024
 )
 
 // peek returns the next token of the input without taking it.
-func (b *groupLexer) peek() (lexer.Token, bool) {
+func (b *groupLexer) peek() (Token, bool) {
 	for b.queue == len(b.l.toks) {
-		b.l.toks, b.queue = b.l.toks[:0], 0
 		if !b.l.more() {
-			return lexer.Token{}, false
+			return Token{}, false
 		}
 	}
 	return b.l.toks[b.queue], true
 }
 
-func (b *groupLexer) Next() (lexer.Token, error) {
+// insert places t before the tokens lexed ahead and hands it out.
+func (b *groupLexer) insert(t Token) Token {
+	toks := append(b.l.toks, Token{})
+	copy(toks[b.queue+1:], toks[b.queue:])
+	toks[b.queue] = t
+	b.l.toks = toks
+	b.queue++
+	return t
+}
+
+// drop removes the next token, one that is not kept.
+func (b *groupLexer) drop() {
+	b.l.toks = append(b.l.toks[:b.queue], b.l.toks[b.queue+1:]...)
+}
+
+// next hands out the group's next token, in place at l.toks[queue-1],
+// and returns it.
+func (b *groupLexer) next() Token {
 	if b.full || b.finished {
-		return lexer.Token{Type: lexer.EOF, Pos: b.last.Pos}, nil
+		return b.insert(Token{Type: EOF, Offset: b.last.Offset})
 	}
 	t, ok := b.peek()
 	if !ok {
 		b.finished = true
 		if b.open {
-			return b.end(), nil
+			return b.end()
 		}
-		return lexer.Token{Type: lexer.EOF, Pos: b.l.position()}, nil
+		return b.insert(Token{Type: EOF, Offset: int32(b.l.off)})
 	}
 	if b.open && b.startsStatement(t) {
-		return b.end(), nil
+		return b.end()
 	}
-	if b.open && b.junk && b.n-b.chunks[len(b.chunks)-1].start >= junkTokens {
+	if b.open && b.junk && b.queue-b.chunks[len(b.chunks)-1].start >= junkTokens {
 		b.skipStatement(false)
-		return b.end(), nil
+		return b.end()
 	}
-	if b.open && b.n-b.chunks[len(b.chunks)-1].start >= MaxStatementTokens {
+	if b.open && b.queue-b.chunks[len(b.chunks)-1].start >= MaxStatementTokens {
 		b.skipStatement(true)
-		return b.end(), nil
+		return b.end()
 	}
 	if !b.open {
 		b.open, b.depth = true, 0
 		b.junk = t.Type != Keyword || !statementKeywords[t.Value]
-		b.chunks = append(b.chunks, chunk{start: b.n})
+		b.chunks = append(b.chunks, chunk{start: b.queue})
 	}
 	if t.Type == Punct {
 		switch t.Value {
@@ -208,18 +219,17 @@ func (b *groupLexer) Next() (lexer.Token, error) {
 		}
 	}
 	b.queue++
-	b.n++
 	b.last = t
-	return t, nil
+	return t
 }
 
 // startsStatement reports whether t begins a new statement: a statement
 // keyword at brace depth 0 or first on its line.
-func (b *groupLexer) startsStatement(t lexer.Token) bool {
-	return t.Type == Keyword && statementKeywords[t.Value] && (b.depth <= 0 || t.Pos.Line != b.last.Pos.Line)
+func (b *groupLexer) startsStatement(t Token) bool {
+	return t.Type == Keyword && statementKeywords[t.Value] && (b.depth <= 0 || t.FirstOnLine)
 }
 
-// MaxStatementTokens is the most tokens one statement may hold: 64 MiB of
+// MaxStatementTokens is the most tokens one statement may hold: 24 MiB of
 // tokens. The longest statements a network needs (a mixture listing every
 // species of a large network, a combination of thousands of reactions) hold
 // far fewer; TestRobustLongLine's 2 MB one-line reaction holds 700 000.
@@ -250,33 +260,31 @@ func (b *groupLexer) skipStatement(report bool) {
 				b.depth--
 			}
 		}
-		b.queue++
+		b.drop()
 		b.last = t
 		skipped++
 	}
 	if !report {
 		return
 	}
-	span := TokenSpan(first).Join(TokenSpan(b.last))
+	src := b.l.src
+	span := src.Span(first).Join(src.Span(b.last))
 	b.l.diags = append(b.l.diags, Diagnostic{
-		Code: CodeSyntax, Severity: Error, Subject: TokenSpan(first), Context: span,
+		Code: CodeSyntax, Severity: Error, Subject: src.Span(first), Context: span,
 		Message: fmt.Sprintf("a statement of more than %d tokens, the limit on one statement; its last %d tokens, to the next statement, are skipped", MaxStatementTokens, skipped),
 	})
 }
 
-// end closes the open statement and returns its endOfStatement token,
+// end closes the open statement and hands out its endOfStatement token,
 // placed just after the statement's last token.
-func (b *groupLexer) end() lexer.Token {
+func (b *groupLexer) end() Token {
 	b.open = false
-	b.chunks[len(b.chunks)-1].end = b.n
-	b.n++
-	if len(b.chunks) >= groupStatements || b.n >= groupTokens {
+	b.chunks[len(b.chunks)-1].end = b.queue
+	t := b.insert(Token{Type: endOfStatement, Offset: int32(b.last.End())})
+	if len(b.chunks) >= groupStatements || b.queue >= groupTokens {
 		b.full = true
 	}
-	e := TokenSpan(b.last).End
-	return lexer.Token{Type: endOfStatement, Pos: lexer.Position{
-		Filename: b.last.Pos.Filename, Offset: e.Offset, Line: e.Line, Column: e.Column,
-	}}
+	return t
 }
 
 // Parse parses one source file. It reports every statement that does not
@@ -292,8 +300,13 @@ func Parse(file string, src []byte) (*File, Diagnostics) {
 
 // parse is Parse with an optional statement cache.
 func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
-	l := newLexState(file, src)
 	f := &File{Name: file}
+	if len(src) > MaxSourceBytes {
+		return f, Diagnostics{tooLarge(file)}
+	}
+	source := NewSource(file, string(src))
+	f.Source = source
+	l := newLexState(source)
 	var diags Diagnostics
 	// The input is lexed on this goroutine, a small group of statements at
 	// a time, while workers parse the groups already lexed. Groups are
@@ -306,8 +319,12 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			// A worker's small nodes come from one slab for all the
+			// groups it parses, so that only its last chunks are part
+			// full.
+			slab := &nodeSlab{}
 			for g := range groups {
-				g.results = parseGroup(g.toks, g.chunks, src, cache)
+				g.results = parseGroup(g.g, g.chunks, cache, slab)
 			}
 		}()
 	}
@@ -315,20 +332,19 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 	b := &groupLexer{l: l}
 	last := 0 // tokens in the group before
 	for !b.finished {
-		b.chunks, b.n, b.full = nil, 0, false
+		b.chunks, b.full = make([]chunk, 0, groupStatements), false
 		// The syntax tree keeps the group's tokens. Groups of one file are
 		// much alike in size, so room for the last one's and a little more
-		// seldom needs to grow and wastes little.
-		toks := make([]lexer.Token, 0, last+64)
-		for {
-			t, _ := b.Next() // groupLexer.Next never fails
-			toks = append(toks, t)
-			if t.EOF() {
-				break
-			}
+		// seldom needs to grow and wastes little. Tokens lexed ahead for
+		// this group move to the front of its array.
+		ahead := l.toks[b.queue:]
+		toks := make([]Token, len(ahead), max(last, groupTokens/4)+len(ahead)+64)
+		copy(toks, ahead)
+		l.toks, b.queue = toks, 0
+		for b.next().Type != EOF {
 		}
-		last = len(toks)
-		g := &lexedGroup{toks: toks, chunks: b.chunks}
+		last = b.queue
+		g := &lexedGroup{g: &tokenGroup{src: source, toks: l.toks[:b.queue:b.queue]}, chunks: b.chunks}
 		order = append(order, g)
 		groups <- g
 	}
@@ -352,7 +368,7 @@ const lexAhead = 16
 // lexedGroup is one group of statements, lexed, and once a worker has
 // parsed it, its results.
 type lexedGroup struct {
-	toks    []lexer.Token // each statement's, then endOfStatement; EOF last
+	g       *tokenGroup // each statement's tokens, then endOfStatement; EOF last
 	chunks  []chunk
 	results []result
 }
@@ -363,63 +379,66 @@ type result struct {
 	diags Diagnostics
 }
 
-// parseGroup parses the statements of one group in order. With a cache, a
-// statement whose text it holds is taken from it.
-func parseGroup(toks []lexer.Token, chunks []chunk, src []byte, cache *Cache) []result {
+// parseGroup parses the statements of one group in order, taking their
+// small nodes from slab. With a cache, a statement whose text it holds is
+// taken from it.
+func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache, slab *nodeSlab) []result {
 	results := make([]result, len(chunks))
-	slab := &nodeSlab{}
+	cur := &tokenCursor{} // one for all the group's statements
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
-			if key, keyed := statementKey(src, toks[c.start:c.end]); keyed {
-				if st := cache.lookup(key, toks[c.start].Pos); st != nil {
+			if key, keyed := statementKey(g.src, g.toks[c.start:c.end]); keyed {
+				if st := cache.lookup(key, g.src, int(g.toks[c.start].Offset)); st != nil {
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(toks, c, slab)
+				r := parseStatement(g, c, slab, cur)
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(toks, c, slab)
+		results[i] = parseStatement(g, c, slab, cur)
 	}
 	return results
 }
 
-// parseStatement parses the statement c of a group's tokens, taking its
-// small nodes from slab.
-func parseStatement(group []lexer.Token, c chunk, slab *nodeSlab) result {
-	toks := group[c.start:c.end:c.end]
+// parseStatement parses the statement c of a group with cursor cur,
+// taking its small nodes from slab.
+func parseStatement(g *tokenGroup, c chunk, slab *nodeSlab, cur *tokenCursor) result {
+	src := g.src
+	toks := g.toks[c.start:c.end:c.end]
 	first := toks[0]
 	if first.Type != Keyword || !statementKeywords[first.Value] {
-		span := TokenSpan(first)
+		span := src.Span(first)
 		return result{diags: Diagnostics{{
 			Code:     CodeSyntax,
 			Severity: Error,
 			Message:  notAStatement + describe(first) + keywordHint(first),
 			Subject:  span,
-			Context:  span.Join(TokenSpan(toks[len(toks)-1])),
+			Context:  span.Join(src.Span(toks[len(toks)-1])),
 		}}}
 	}
-	st := &Statement{Node: Node{Tokens: toks}}
-	cur := &tokenCursor{toks: group[c.start : c.end+1 : c.end+1], slab: slab}
+	st := slabOr(slab, slabStmts)
+	st.Node = Node{g: g, start: int32(c.start), end: int32(c.end)}
+	*cur = tokenCursor{g: g, base: c.start, toks: g.toks[c.start : c.end+1 : c.end+1], slab: slab}
 	err := statementParsers[first.Value](cur, st)
 	if err == nil && !isEnd(*cur.Peek()) {
 		err = &syntaxError{found: *cur.Peek()}
 	}
 	if err != nil {
 		st.Broken = true
-		return result{st: st, diags: Diagnostics{syntaxDiag(toks, err)}}
+		return result{st: st, diags: Diagnostics{syntaxDiag(src, toks, err)}}
 	}
 	return result{st: st}
 }
 
 // startsLine reports whether at is the first of toks on its line, where a
 // misspelt statement keyword would stand.
-func startsLine(toks []lexer.Token, at lexer.Token) bool {
+func startsLine(toks []Token, at Token) bool {
 	for i, t := range toks {
-		if t.Pos.Offset == at.Pos.Offset {
-			return i == 0 || toks[i-1].Pos.Line < at.Pos.Line
+		if t.Offset == at.Offset {
+			return i == 0 || t.FirstOnLine
 		}
 	}
 	return false
@@ -431,7 +450,7 @@ var statementKeywordList = []string{"include", "settings", "element", "phase", "
 
 // keywordHint is "; did you mean …?" when a word that starts a statement is
 // a near miss of a statement keyword (speces, Reaction), else "".
-func keywordHint(t lexer.Token) string {
+func keywordHint(t Token) string {
 	if t.Type == Keyword || t.Type == Number || t.Type == String || isEnd(t) {
 		return ""
 	}

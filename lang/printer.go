@@ -4,8 +4,6 @@ import (
 	"bytes"
 	"strings"
 	"unicode/utf8"
-
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // Format prints a parsed file in the canonical layout: one statement or
@@ -163,14 +161,14 @@ func (p *printer) hasComments(from, to int) bool {
 	return false
 }
 
-func (p *printer) open(text string, n *Node, brace lexer.Token) {
-	p.item(text+" {", n.Span(), TokenSpan(brace))
+func (p *printer) open(text string, n *Node, brace Token) {
+	p.item(text+" {", n.Span(), n.Source().Span(brace))
 	p.indent++
 	p.blockStart = true
 }
 
 func (p *printer) close(n *Node) {
-	last := TokenSpan(n.Tokens[len(n.Tokens)-1])
+	last := n.TokenSpan(len(n.Tokens()) - 1)
 	p.flushComments(last.Start.Offset)
 	p.indent--
 	p.blockStart = true // no blank line before the closing brace
@@ -178,19 +176,20 @@ func (p *printer) close(n *Node) {
 }
 
 // braceToken returns the first `{` among the node's tokens.
-func braceToken(n *Node) lexer.Token {
-	for _, t := range n.Tokens {
+func braceToken(n *Node) Token {
+	for _, t := range n.Tokens() {
 		if t.Type == Punct && t.Value == "{" {
 			return t
 		}
 	}
-	return n.Tokens[len(n.Tokens)-1]
+	toks := n.Tokens()
+	return toks[len(toks)-1]
 }
 
 // block prints a header, its body lines and the closing brace; an empty
 // body with no comment inside prints as `header {}` on one line.
 func (p *printer) block(header string, n *Node, empty bool, body func()) {
-	if empty && !p.hasComments(TokenSpan(braceToken(n)).End.Offset, n.Span().End.Offset) {
+	if empty && !p.hasComments(braceToken(n).End(), n.Span().End.Offset) {
 		p.item(header+" {}", n.Span(), n.Span())
 		return
 	}
@@ -203,8 +202,8 @@ func (p *printer) block(header string, n *Node, empty bool, body func()) {
 
 // tokensText prints a statement that did not parse as its tokens.
 func tokensText(n *Node) string {
-	texts := make([]string, len(n.Tokens))
-	for i, t := range n.Tokens {
+	texts := make([]string, len(n.Tokens()))
+	for i, t := range n.Tokens() {
 		texts[i] = t.Value
 	}
 	return strings.Join(texts, " ")
@@ -212,8 +211,8 @@ func tokensText(n *Node) string {
 
 func (p *printer) statement(st *Statement) {
 	switch {
-	case st.Broken || len(st.Tokens) == 0:
-		if len(st.Tokens) > 0 {
+	case st.Broken || len(st.Tokens()) == 0:
+		if len(st.Tokens()) > 0 {
 			p.item(tokensText(&st.Node), st.Span(), st.Span())
 		}
 	case st.Include != nil:

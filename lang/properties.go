@@ -1,10 +1,7 @@
 package lang
 
 import (
-	"slices"
-
 	"github.com/alecthomas/participle/v2"
-	"github.com/alecthomas/participle/v2/lexer"
 )
 
 // The properties of species and reaction blocks, read by hand as the
@@ -44,7 +41,7 @@ func expectLit(lex tokenStream, x expr) error {
 // requireQuantity parses the quantity that part x of a production
 // requires, or fails expecting x.
 func requireQuantity(lex tokenStream, x expr) (*Quantity, error) {
-	q := &Quantity{}
+	q := slabOf(lex).quantity()
 	if err := q.read(lex); err != nil {
 		if err == participle.NextMatch {
 			return nil, expecting(lex, x)
@@ -88,36 +85,33 @@ func (p *Polynomial) read(lex tokenStream) error {
 	if err := expectLit(lex, polynomialRule.at(4)); err != nil {
 		return err
 	}
-	// The coefficients are read into one array, which Coeffs points into.
-	var buf [9]Num // the most a polynomial takes
+	// The coefficients are read straight into the group's arrays of
+	// numbers and of lists of them.
+	slab := slabOf(lex)
+	var buf [9]*Num // the most a polynomial takes
 	nums := buf[:0]
 	for numRule.begins(lex.Peek()) {
-		nums = append(nums, Num{})
-		_ = nums[len(nums)-1].read(lex)
+		n := slab.num()
+		_ = n.read(lex)
+		nums = append(nums, n)
 	}
-	if len(nums) > 0 {
-		kept := slices.Clone(nums)
-		out.Coeffs = make([]*Num, len(kept))
-		for i := range kept {
-			out.Coeffs[i] = &kept[i]
-		}
-	}
+	out.Coeffs = slab.numList(nums)
 	if err := expectLit(lex, polynomialRule.at(6)); err != nil {
 		return err
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*p = out
 	return nil
 }
 
 // readText reads the string of a TextProp whose keyword was first.
-func readText(lex tokenStream, first lexer.Token, start lexer.RawCursor) (*TextProp, error) {
+func readText(lex tokenStream, first Token, start int) (*TextProp, error) {
 	lex.Next()
 	s := &Str{}
 	if s.read(lex) != nil {
 		return nil, expecting(lex, textRule.at(1))
 	}
-	return &TextProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Key: first.Value, Text: s}, nil
+	return &TextProp{Node: lex.node(start, lex.RawCursor()), Key: first.Value, Text: s}, nil
 }
 
 func (sp *SpeciesProperty) read(lex tokenStream) error {
@@ -132,17 +126,18 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 		if ref.read(lex) != nil {
 			return expecting(lex, formulaRule.at(1))
 		}
-		out.Formula = &FormulaProp{Node: Node{Tokens: lex.Range(start, lex.RawCursor())}, Formula: ref}
+		out.Formula = &FormulaProp{Node: lex.node(start, lex.RawCursor()), Formula: ref}
 	case speciesValueRule.begins(&first):
 		lex.Next()
-		v := &SpeciesValue{Key: first.Value}
+		v := slabOr(slabOf(lex), slabSValues)
+		v.Key = first.Value
 		if v.Value, err = requireQuantity(lex, speciesValueRule.at(1)); err != nil {
 			return err
 		}
-		v.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+		v.Node = lex.node(start, lex.RawCursor())
 		out.Value = v
 	case polynomialRule.begins(&first):
-		out.Poly = &Polynomial{}
+		out.Poly = slabOr(slabOf(lex), slabPolys)
 		if err := out.Poly.read(lex); err != nil {
 			return err
 		}
@@ -153,7 +148,7 @@ func (sp *SpeciesProperty) read(lex tokenStream) error {
 	default:
 		return participle.NextMatch
 	}
-	out.Node = Node{Tokens: lex.Range(start, lex.RawCursor())}
+	out.Node = lex.node(start, lex.RawCursor())
 	*sp = out
 	return nil
 }
@@ -207,7 +202,7 @@ func (r *Rate) read(lex tokenStream, node func() Node) error {
 func (rp *ReactionProperty) read(lex tokenStream) error {
 	start := lex.RawCursor()
 	first := *lex.Peek()
-	node := func() Node { return Node{Tokens: lex.Range(start, lex.RawCursor())} }
+	node := func() Node { return lex.node(start, lex.RawCursor()) }
 	var out ReactionProperty
 	var err error
 	switch {

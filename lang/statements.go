@@ -2,8 +2,6 @@ package lang
 
 import (
 	"github.com/alecthomas/participle/v2"
-	"github.com/alecthomas/participle/v2/lexer"
-	"reflect"
 )
 
 // The species and reaction statements, by far the most numerous in a large
@@ -30,7 +28,7 @@ const openBrace, closeBrace = lit("{"), lit("}")
 func block(item string) seq { return seq{openBrace, many{ref(item)}, closeBrace} }
 
 // blockOpens reports whether t opens a block.
-func blockOpens(t *lexer.Token) bool { return t.Type == Punct && isLit(t, openBrace) }
+func blockOpens(t *Token) bool { return t.Type == Punct && isLit(t, openBrace) }
 
 // comboParser reads the combination after a reaction's "=".
 var comboParser = participle.MustBuild[Combination](parserOptions...)
@@ -39,35 +37,40 @@ var comboParser = participle.MustBuild[Combination](parserOptions...)
 func parseSpeciesStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	lex.Next() // "species"
-	out := &Species{Node: startsAt(lex, start)}
+	out := slabOr(lex.slab, slabSpecies)
+	out.Node = startsAt(lex, start)
 	st.Species = out
+	var buf [4]*SpeciesRef
+	refs := buf[:0]
 	for {
-		ref := &SpeciesRef{}
+		ref := lex.slab.ref()
 		if ref.read(lex) != nil {
-			if len(out.Refs) == 0 {
+			out.Refs = slabListOr(lex.slab, slabRefPtrs, refs)
+			if len(refs) == 0 {
 				return expecting(lex, speciesRule.at(1))
 			}
 			return expecting(lex, moreRefsPart[1])
 		}
-		out.Refs = append(out.Refs, ref)
+		refs = append(refs, ref)
 		if t := lex.Peek(); t.Type != Punct || !isLit(t, moreRefsPart[0]) {
 			break
 		}
 		lex.Next()
 	}
+	out.Refs = slabListOr(lex.slab, slabRefPtrs, refs)
 	if strRule.begins(lex.Peek()) {
 		out.Label = &Str{}
 		_ = out.Label.read(lex)
 	}
 	if blockOpens(lex.Peek()) {
 		out.HasBody = true
-		props, err := parseBlock[SpeciesProperty](lex)
+		props, err := parseBlock(lex, slabSProps, slabSPPtrs)
 		out.Props = props
 		if err != nil {
 			return err
 		}
 	}
-	out.Tokens = lex.Range(start, lex.RawCursor())
+	out.Node = lex.node(start, lex.RawCursor())
 	return nil
 }
 
@@ -100,9 +103,10 @@ func parseTerms(lex *tokenCursor, terms *[]*Term, x expr) error {
 func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	start := lex.RawCursor()
 	lex.Next() // "reaction"
-	out := &Reaction{Node: startsAt(lex, start)}
+	out := slabOr(lex.slab, slabReactions)
+	out.Node = startsAt(lex, start)
 	st.Reaction = out
-	name := &Ident{}
+	name := lex.slab.ident()
 	if name.read(lex) != nil {
 		return expecting(lex, reactionRule.at(1))
 	}
@@ -113,7 +117,7 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	if err := parseTerms(lex, &out.Left, reactionRule.at(3)); err != nil {
 		return err
 	}
-	arrow := &Arrow{}
+	arrow := lex.slab.arrow()
 	if arrow.read(lex) != nil {
 		return expecting(lex, reactionRule.at(5))
 	}
@@ -123,52 +127,50 @@ func parseReactionStatement(lex *tokenCursor, st *Statement) error {
 	}
 	if t := lex.Peek(); t.Type == Punct && isLit(t, comboPart[0]) {
 		lex.Next()
-		toks := lex.toks[lex.i:]
-		err := lex.withPeeking(func(peek *lexer.PeekingLexer) error {
-			c, err := comboParser.ParseFromLexer(peek, participle.AllowTrailing(true))
-			if c != nil {
-				if err != nil {
-					anchorParsed(reflect.ValueOf(c), toks)
-				}
-				out.Combo = c
-			}
-			return err
-		})
+		c, err := parseWith(lex, comboParser)
+		if c != nil {
+			out.Combo = c
+		}
 		if err != nil {
 			return err
 		}
 	}
 	if blockOpens(lex.Peek()) {
 		out.HasBody = true
-		props, err := parseBlock[ReactionProperty](lex)
+		props, err := parseBlock(lex, slabRProps, slabRPPtrs)
 		out.Props = props
 		if err != nil {
 			return err
 		}
 	}
-	out.Tokens = lex.Range(start, lex.RawCursor())
+	out.Node = lex.node(start, lex.RawCursor())
 	return nil
 }
 
 // parseBlock reads "{" P* "}" with lex at the "{": the properties of a
-// species or reaction block. It returns the properties read so far with
-// any error.
+// species or reaction block, taken from the slab's arrays nodes and
+// lists. It returns the properties read so far with any error.
 func parseBlock[P any, PP interface {
 	*P
 	read(tokenStream) error
-}](lex *tokenCursor) ([]PP, error) {
+}](lex *tokenCursor, nodes func(*nodeSlab) *[]P, lists func(*nodeSlab) *[]PP) ([]PP, error) {
 	lex.Next()
-	var props []PP
+	var buf [8]PP
+	props := buf[:0]
+	var p PP
 	for {
-		p := PP(new(P))
+		if p == nil {
+			p = slabOr(lex.slab, nodes)
+		}
 		err := p.read(lex)
 		if err == participle.NextMatch {
 			break
 		}
 		if err != nil {
-			return props, err
+			return slabListOr(lex.slab, lists, props), err
 		}
 		props = append(props, p)
+		p = nil
 	}
-	return props, expectLit(lex, closeBrace)
+	return slabListOr(lex.slab, lists, props), expectLit(lex, closeBrace)
 }

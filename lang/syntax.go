@@ -16,10 +16,11 @@ import (
 // so it passes unchanged through participle when participle calls a
 // reader.
 type syntaxError struct {
-	found    lexer.Token
+	found    Token
 	expected []string // empty where the grammar does not say
 	// worded is a message participle words itself, with no token found;
-	// it is reported at found.Pos as it stands.
+	// it is reported at found.Offset as it stands (nowhere where that is
+	// negative).
 	worded string
 	// glued is set where found is one token that holds two terms joined
 	// by "+" without spaces ("CO(g)+O2(g)"): left and right are the two.
@@ -30,7 +31,7 @@ type syntaxError struct {
 // joined by "+" with no spaces, as in CO(g)+O2(g); nil for any other token.
 // A "+" right after a closing parenthesis cannot be a charge, which stands
 // before the state tag (Na+(aq)).
-func gluedTerms(t lexer.Token) error {
+func gluedTerms(t Token) error {
 	i := strings.Index(t.Value, ")+")
 	if i < 0 || i+2 >= len(t.Value) {
 		return nil
@@ -44,8 +45,14 @@ func expecting(lex tokenStream, x expr) error {
 	return &syntaxError{found: *lex.Peek(), expected: x.words()}
 }
 
-func (e *syntaxError) Error() string            { return participle.FormatError(e) }
-func (e *syntaxError) Position() lexer.Position { return e.found.Pos }
+func (e *syntaxError) Error() string { return participle.FormatError(e) }
+
+// Position is where the error is, as participle asks for it: its byte
+// offset only, since a token does not know its line; the parser reports the
+// error with the line and column its Source resolves.
+func (e *syntaxError) Position() lexer.Position {
+	return lexer.Position{Offset: int(e.found.Offset)}
+}
 
 func (e *syntaxError) Message() string {
 	if e.worded != "" {
@@ -57,7 +64,7 @@ func (e *syntaxError) Message() string {
 // message says what was expected and what was found. toks are the
 // statement's tokens, which name what may stand inside a block where the
 // error expects only its end.
-func (e *syntaxError) message(toks []lexer.Token) string {
+func (e *syntaxError) message(toks []Token) string {
 	if e.glued != nil {
 		return fmt.Sprintf("%s is two terms: terms need spaces around \"+\" (write %s + %s)", describe(e.found), e.glued[0], e.glued[1])
 	}
@@ -87,9 +94,13 @@ func toSyntaxError(err error) *syntaxError {
 	case errors.As(err, &se):
 		return se
 	case errors.As(err, &ute):
-		return &syntaxError{found: ute.Unexpected, expected: participleExpected(ute)}
+		return &syntaxError{found: fromLexer(ute.Unexpected), expected: participleExpected(ute)}
 	case errors.As(err, &perr):
-		return &syntaxError{found: lexer.Token{Pos: perr.Position()}, worded: strings.ToLower(perr.Message())}
+		found := Token{Offset: int32(perr.Position().Offset)}
+		if perr.Position().Line == 0 {
+			found.Offset = -1
+		}
+		return &syntaxError{found: found, worded: strings.ToLower(perr.Message())}
 	}
 	return nil
 }
@@ -140,8 +151,8 @@ func firstOfSequence(s string) string {
 
 // syntaxDiag is the diagnostic for a statement that does not parse. toks
 // are the statement's tokens.
-func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
-	stmt := TokenSpan(toks[0]).Join(TokenSpan(toks[len(toks)-1]))
+func syntaxDiag(src *Source, toks []Token, err error) Diagnostic {
+	stmt := src.Span(toks[0]).Join(src.Span(toks[len(toks)-1]))
 	d := Diagnostic{Code: CodeSyntax, Severity: Error, Context: stmt}
 	se := toSyntaxError(err)
 	switch {
@@ -149,12 +160,13 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 		d.Subject = stmt
 		d.Message = err.Error()
 	case se.worded != "":
-		p := se.found.Pos
-		pos := Pos{Line: p.Line, Column: p.Column, Offset: p.Offset}
-		d.Subject = Span{File: p.Filename, Start: pos, End: pos}
+		if se.found.Offset >= 0 {
+			pos := src.Pos(int(se.found.Offset))
+			d.Subject = Span{File: src.name, Start: pos, End: pos}
+		}
 		d.Message = se.worded
 	default:
-		d.Subject = TokenSpan(se.found)
+		d.Subject = src.Span(se.found)
 		d.Message = se.message(toks)
 		if se.glued == nil {
 			d.Message += plusSpacingHint(toks, se.found)
@@ -163,9 +175,9 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 			d.Message += keywordHint(se.found)
 		}
 		if brace, kind, ok := unclosedBlock(toks, se.found); ok && isEnd(se.found) {
-			p := brace.Pos
-			d.Message += fmt.Sprintf(`; the %s block opened at line %d, column %d has no closing "}"`, kind, p.Line, p.Column)
-			d.Related = append(d.Related, Related{Span: TokenSpan(brace), Message: "the " + kind + " block opens here"})
+			span := src.Span(brace)
+			d.Message += fmt.Sprintf(`; the %s block opened at line %d, column %d has no closing "}"`, kind, span.Start.Line, span.Start.Column)
+			d.Related = append(d.Related, Related{Span: span, Message: "the " + kind + " block opens here"})
 		}
 	}
 	return d
@@ -174,13 +186,13 @@ func syntaxDiag(toks []lexer.Token, err error) Diagnostic {
 // plusSpacingHint says that terms need spaces around "+" where the token
 // found, or the one before it, has a "+" stuck to a term: "CO(g) +O2(g)"
 // or "CO(g)+ O2(g)".
-func plusSpacingHint(toks []lexer.Token, at lexer.Token) string {
+func plusSpacingHint(toks []Token, at Token) string {
 	const hint = `; terms need spaces around "+"`
 	if at.Type != Punct && len(at.Value) > 1 && strings.HasPrefix(at.Value, "+") {
 		return hint
 	}
 	for i, t := range toks {
-		if t.Pos.Offset == at.Pos.Offset {
+		if t.Offset == at.Offset {
 			if i > 0 && toks[i-1].Type != Punct && len(toks[i-1].Value) > 1 && strings.HasSuffix(toks[i-1].Value, ")+") {
 				return hint
 			}
@@ -193,14 +205,14 @@ func plusSpacingHint(toks []lexer.Token, at lexer.Token) string {
 // unclosedBlock finds the innermost block still open at token at: its
 // opening brace and its kind (the statement's keyword, "polynomial" inside
 // a species block).
-func unclosedBlock(toks []lexer.Token, at lexer.Token) (lexer.Token, string, bool) {
+func unclosedBlock(toks []Token, at Token) (Token, string, bool) {
 	type open struct {
-		brace lexer.Token
+		brace Token
 		kind  string
 	}
 	var stack []open
 	for _, t := range toks {
-		if t.Pos.Offset >= at.Pos.Offset {
+		if t.Offset >= at.Offset {
 			break
 		}
 		if t.Type != Punct {
@@ -220,7 +232,7 @@ func unclosedBlock(toks []lexer.Token, at lexer.Token) (lexer.Token, string, boo
 		}
 	}
 	if len(stack) == 0 {
-		return lexer.Token{}, "", false
+		return Token{}, "", false
 	}
 	top := stack[len(stack)-1]
 	return top.brace, top.kind, true
@@ -229,11 +241,11 @@ func unclosedBlock(toks []lexer.Token, at lexer.Token) (lexer.Token, string, boo
 // blockItems names what may stand at token at inside the innermost block
 // that is open there, or "" when at is not directly inside a block or the
 // block takes nothing more.
-func blockItems(toks []lexer.Token, at lexer.Token) string {
+func blockItems(toks []Token, at Token) string {
 	var open []string // the kind of each open block
-	prev := lexer.Token{}
+	prev := Token{}
 	for _, t := range toks {
-		if t.Pos.Offset >= at.Pos.Offset {
+		if t.Offset >= at.Offset {
 			break
 		}
 		if t.Type == Punct && t.Value == "{" {
@@ -276,7 +288,7 @@ var blockItem = map[string]string{
 	"mixture":  "MixItem",
 }
 
-func describe(t lexer.Token) string {
+func describe(t Token) string {
 	switch {
 	case isEnd(t):
 		return "end of statement"

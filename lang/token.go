@@ -2,16 +2,37 @@ package lang
 
 import (
 	"sort"
+	"unicode/utf8"
 
 	"github.com/alecthomas/participle/v2/lexer"
 )
 
-// Token types produced by the lexer. Every token is on one line; its Value
-// is the exact source text, so its end follows from its start and Value.
+// Token is one token of a source file: its text and where it starts.
+// Every token is on one line; its Value is the exact source text, so its
+// end follows from its start and Value. A token holds no file name, line
+// or column: the Source of the node that holds it resolves its offset to
+// a line and column when asked (see Source.Pos), as go/token does.
+type Token struct {
+	Value  string
+	Offset int32 // bytes from the start of the file
+	Type   TokenType
+	// FirstOnLine reports that no token stands before this one on its
+	// line: a statement keyword there starts a new statement.
+	FirstOnLine bool
+}
+
+// TokenType is the kind of a token. The values are participle's: lexer.EOF
+// for the end of the input, the negative constants below for the rest.
+type TokenType int8
+
+// EOF is the type of the token after the last.
+const EOF TokenType = TokenType(lexer.EOF)
+
+// Token types produced by the lexer.
 const (
 	// Word is any other run of non-space characters: identifiers, formulas
 	// without a state tag, units.
-	Word lexer.TokenType = -(iota + 2)
+	Word TokenType = -(iota + 2)
 	// Ref is a word that ends in a lower-case state tag, such as CO2(g).
 	Ref
 	// Keyword is a reserved word of the language (statement and property keys).
@@ -25,15 +46,21 @@ const (
 	Punct
 )
 
+// EOF reports whether t is the end of the input.
+func (t Token) EOF() bool { return t.Type == EOF }
+
+// End is the offset just after the token.
+func (t Token) End() int { return int(t.Offset) + len(t.Value) }
+
 func symbols() map[string]lexer.TokenType {
 	return map[string]lexer.TokenType{
 		"EOF":     lexer.EOF,
-		"Word":    Word,
-		"Ref":     Ref,
-		"Keyword": Keyword,
-		"Number":  Number,
-		"String":  String,
-		"Punct":   Punct,
+		"Word":    lexer.TokenType(Word),
+		"Ref":     lexer.TokenType(Ref),
+		"Keyword": lexer.TokenType(Keyword),
+		"Number":  lexer.TokenType(Number),
+		"String":  lexer.TokenType(String),
+		"Punct":   lexer.TokenType(Punct),
 	}
 }
 
@@ -64,7 +91,26 @@ var keywords = map[string]bool{
 }
 
 // IsKeyword reports whether w is a reserved word of the language.
-func IsKeyword(w string) bool { return keywords[w] }
+func IsKeyword(w string) bool {
+	if w == "" || w[0] >= utf8.RuneSelf {
+		return false
+	}
+	for _, k := range keywordsByFirst[w[0]] {
+		if k == w {
+			return true
+		}
+	}
+	return false
+}
+
+// keywordsByFirst lists the keywords by their first byte, which the lexer
+// looks each word up in: faster than hashing every word.
+var keywordsByFirst = func() (t [utf8.RuneSelf][]string) {
+	for k := range keywords {
+		t[k[0]] = append(t[k[0]], k)
+	}
+	return t
+}()
 
 // Keywords lists the reserved words, for completion.
 func Keywords() []string {

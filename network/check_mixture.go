@@ -141,10 +141,10 @@ func brokenMixtureUnits(p *Pass) {
 			continue
 		}
 		for _, st := range f.AST.Statements {
-			if !st.Broken || len(st.Tokens) == 0 || st.Tokens[0].Value != "mixture" {
+			if !st.Broken || len(st.Tokens()) == 0 || st.Tokens()[0].Value != "mixture" {
 				continue
 			}
-			toks := st.Tokens
+			toks := st.Tokens()
 			for i := 1; i+1 < len(toks); i++ {
 				if toks[i-1].Type != lang.Number || toks[i].Type != lang.Word {
 					continue
@@ -156,7 +156,7 @@ func brokenMixtureUnits(p *Pass) {
 				if parts, err := lang.SplitRef(word); err != nil || parts.State != "" {
 					continue
 				}
-				p.Reportf(lang.TokenSpan(toks[i]), "%s", untaggedMessage(p.Net, word, toks[i-1].Value))
+				p.Reportf(st.TokenSpan(i), "%s", untaggedMessage(p.Net, word, toks[i-1].Value))
 			}
 		}
 	}

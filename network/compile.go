@@ -173,10 +173,10 @@ func (c *compiler) each(fn func(*lang.Statement)) {
 
 // keywordSpan is the span of a statement's first token.
 func keywordSpan(n *lang.Node) lang.Span {
-	if len(n.Tokens) == 0 {
+	if len(n.Tokens()) == 0 {
 		return n.Span()
 	}
-	return lang.TokenSpan(n.Tokens[0])
+	return n.TokenSpan(0)
 }
 
 // validName reports whether s is an identifier: a letter or _, then

@@ -104,7 +104,7 @@ func (c *compiler) addReaction(b builtReaction) {
 // also where two terms are written as one token ("CO(g)+O2(g)").
 func (c *compiler) mentioned(st *lang.Statement) []*Species {
 	var out []*Species
-	for _, t := range st.Tokens {
+	for _, t := range st.Tokens() {
 		for _, piece := range strings.Split(t.Value, ")+") {
 			if piece != t.Value {
 				piece = strings.TrimSuffix(piece, ")") + ")"
@@ -256,7 +256,7 @@ func (c *compiler) undefinedSpecies(ref *lang.SpeciesRef) {
 func (c *compiler) reactionProperties(rx *Reaction, props []*lang.ReactionProperty) {
 	var seen givenOnce
 	for _, pr := range props {
-		name := pr.Tokens[0].Value
+		name := pr.Tokens()[0].Value
 		if name != "logk" {
 			if first, dup := seen.add(name, &pr.Node); dup {
 				d := c.report(syntaxCheck, keywordSpan(&pr.Node), "%s is given twice for reaction %s", name, rx.Name)

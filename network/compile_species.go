@@ -171,7 +171,7 @@ func (c *compiler) properties(sp *Species, props []*lang.SpeciesProperty) (strin
 	var formula string
 	var formulaSpan lang.Span
 	for _, pr := range props {
-		name := pr.Tokens[0].Value
+		name := pr.Tokens()[0].Value
 		if name != "shomate" && name != "nasa7" {
 			if first, dup := seen.add(name, &pr.Node); dup {
 				d := c.report(syntaxCheck, keywordSpan(&pr.Node), "%s is given twice for %s", name, sp.Key)
