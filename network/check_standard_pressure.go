@@ -54,7 +54,7 @@ pressures; add standard-pressure to it.`,
 		}
 		for _, rx := range n.Reactions {
 			if rx.Resolved && (rx.Dg != nil || rx.Ds != nil || len(rx.LogK) > 0) && deltaGasMoles(rx.NetTerms()) != 0 {
-				note(rx.Span().File, rx.NameSpan())
+				note(rx.file(), rx.NameSpan())
 			}
 		}
 		for _, file := range files {

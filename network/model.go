@@ -276,6 +276,18 @@ func (rx *Reaction) NameSpan() lang.Span {
 	return rx.node.Name.Span()
 }
 
+// file is the path of the file the reaction was written in (Span().File,
+// without working out the span).
+func (rx *Reaction) file() string {
+	if rx.node == nil {
+		return ""
+	}
+	if src := rx.node.Source(); src != nil {
+		return src.Name()
+	}
+	return rx.Span().File
+}
+
 // Span is the whole reaction statement.
 func (rx *Reaction) Span() lang.Span {
 	if rx.node == nil {

@@ -37,7 +37,7 @@ func (n *Network) pressureLogRatio(file string) float64 {
 // reaction makes; ΔrH° does not move. It returns Δn·ln r, 0 where nothing
 // moves.
 func (n *Network) ownDataShift(rx *Reaction) float64 {
-	lr := n.pressureLogRatio(rx.Span().File)
+	lr := n.pressureLogRatio(rx.file())
 	if lr == 0 {
 		return 0
 	}
