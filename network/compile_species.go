@@ -15,6 +15,11 @@ type preparedRef struct {
 	ref *lang.SpeciesRef
 	sp  *Species // nil when the reference does not split
 	err error
+	// text is ref.Text, copied next to the other references' texts: the
+	// key by which lookup finds the species (see compiler.declared), whose
+	// comparisons then read a few hundred kilobytes rather than the whole
+	// source.
+	text string
 }
 
 // prepareRefs splits every species reference of the network and makes its
@@ -23,10 +28,25 @@ type preparedRef struct {
 // must go in order. broken says, for each reference, that its statement
 // did not parse.
 func prepareRefs(refs []*lang.SpeciesRef, broken []bool) []preparedRef {
+	size := 0
+	for _, ref := range refs {
+		size += len(ref.Text)
+	}
+	var b strings.Builder
+	b.Grow(size)
+	for _, ref := range refs {
+		b.WriteString(ref.Text)
+	}
+	texts := b.String()
 	out := make([]preparedRef, len(refs))
 	parallel(len(refs), 512, func() func(i int) {
 		return func(i int) { out[i] = newSpecies(refs[i], broken[i]) }
 	})
+	at := 0
+	for i, ref := range refs {
+		out[i].text = texts[at : at+len(ref.Text)]
+		at += len(ref.Text)
+	}
 	return out
 }
 
@@ -50,6 +70,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		p, c.prepared = c.prepared[0], c.prepared[1:]
 	} else {
 		p = newSpecies(ref, broken)
+		p.text = ref.Text
 	}
 	if p.err != nil {
 		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, p.err)
@@ -64,7 +85,7 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 	}
 	c.net.speciesByKey[sp.Key] = sp
 	if c.declared != nil {
-		c.declared[ref.Text] = sp
+		c.declared[p.text] = sp
 	}
 	sp.index = len(c.net.Species)
 	c.net.Species = append(c.net.Species, sp)
