@@ -1,6 +1,7 @@
 package network
 
 import (
+	"context"
 	"fmt"
 
 	"hess/lang"
@@ -102,14 +103,17 @@ func LookupCheck(name string) *Check { return checkByName[name] }
 // runChecks runs every enabled check on the compiled network. Checks only
 // read the network, so they run side by side on the available processors,
 // each into its own buffer; the findings are appended in registry order, so
-// the result does not depend on scheduling.
-func runChecks(n *Network) {
-	n.Diagnostics = append(n.Diagnostics, runSome(n, false)...)
+// the result does not depend on scheduling. Once ctx is done no further
+// check starts, and runChecks returns ctx's error.
+func runChecks(ctx context.Context, n *Network) error {
+	found, err := runSome(ctx, n, false)
+	n.Diagnostics = append(n.Diagnostics, found...)
+	return err
 }
 
 // runSome runs the enabled checks whose ApproachOnly is approachOnly and
-// returns their findings.
-func runSome(n *Network, approachOnly bool) lang.Diagnostics {
+// returns their findings, or ctx's error once it is done.
+func runSome(ctx context.Context, n *Network, approachOnly bool) (lang.Diagnostics, error) {
 	var run []*Check
 	for _, c := range checks {
 		if c.Run == nil || c.ApproachOnly != approachOnly {
@@ -122,13 +126,20 @@ func runSome(n *Network, approachOnly bool) lang.Diagnostics {
 	}
 	found := make([]lang.Diagnostics, len(run))
 	parallel(len(run), 1, func() func(i int) {
-		return func(i int) { run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]}) }
+		return func(i int) {
+			if ctx.Err() == nil {
+				run[i].Run(&Pass{Net: n, check: run[i], out: &found[i]})
+			}
+		}
 	})
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
 	var out lang.Diagnostics
 	for _, ds := range found {
 		out = append(out, ds...)
 	}
-	return out
+	return out, nil
 }
 
 // ApproachNotes runs the checks that matter only to hess approach (see
@@ -139,7 +150,8 @@ func (n *Network) ApproachNotes() lang.Diagnostics {
 	if n.Diagnostics.HasErrors() {
 		return nil
 	}
-	notes := &Network{Settings: n.Settings, Diagnostics: runSome(n, true)}
+	found, _ := runSome(context.Background(), n, true)
+	notes := &Network{Settings: n.Settings, Diagnostics: found}
 	finalize(notes)
 	return notes.Diagnostics
 }

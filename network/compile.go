@@ -1,6 +1,7 @@
 package network
 
 import (
+	"context"
 	"fmt"
 
 	"hess/chem"
@@ -39,7 +40,10 @@ var builtinPhases = map[string]Convention{
 	"g": IdealGas, "l": Pure, "s": Pure, "cr": Pure, "aq": Solute,
 }
 
-func compile(n *Network) {
+// compileContext compiles the loaded files of n in passes, giving up with
+// ctx's error between passes once ctx is done (n is then half built and
+// must be dropped).
+func compileContext(ctx context.Context, n *Network) error {
 	c := &compiler{net: n, near: &nearIndexes{}}
 	n.Elements = chem.BuiltinElements()
 	n.Phases = map[string]*Phase{}
@@ -98,14 +102,24 @@ func compile(n *Network) {
 			}
 		}
 	})
+	if err := ctx.Err(); err != nil {
+		return err
+	}
 	c.speciesData(species)
+	if err := ctx.Err(); err != nil {
+		return err
+	}
 	reactions := make([]*lang.Statement, 0, nReactions)
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
 			reactions = append(reactions, st)
 		}
 	})
-	for _, b := range c.buildReactions(reactions) {
+	built := c.buildReactions(reactions)
+	if err := ctx.Err(); err != nil {
+		return err
+	}
+	for _, b := range built {
 		c.addReaction(b)
 	}
 	c.each(func(st *lang.Statement) {
@@ -116,8 +130,12 @@ func compile(n *Network) {
 			c.mixture(st.Mixture)
 		}
 	})
+	if err := ctx.Err(); err != nil {
+		return err
+	}
 	buildModels(n)
 	buildSolutions(n)
+	return nil
 }
 
 // each calls fn for every statement of every file, in load order.
