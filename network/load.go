@@ -123,7 +123,7 @@ func (l *loader) load(path, id string, at lang.Span) {
 		return
 	}
 	l.bytes += int64(len(text))
-	ast, diags := lang.ParseCached(path, text, l.caches.file(id))
+	ast, diags := l.caches.file(id).parse(path, text)
 	f := &File{Path: path, ID: id, Source: text, AST: ast}
 	if included {
 		if why := notNetwork(text, ast, diags); why != "" {
@@ -366,7 +366,7 @@ func describeReadError(err error) string {
 // its include statements name, as the loader would reach them.
 func DirectIncludes(path string, text []byte, caches *ParseCaches) []string {
 	id := PathID(path)
-	ast, _ := lang.ParseCached(path, text, caches.file(id))
+	ast, _ := caches.file(id).parse(path, text)
 	var out []string
 	for _, st := range ast.Statements {
 		if inc := st.Include; inc != nil && inc.Path != nil {
