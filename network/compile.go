@@ -42,8 +42,10 @@ var builtinPhases = map[string]Convention{
 
 // compileContext compiles the loaded files of n in passes, giving up with
 // ctx's error between passes once ctx is done (n is then half built and
-// must be dropped).
-func compileContext(ctx context.Context, n *Network) error {
+// must be dropped). With a memo, reactions compiled by the last compile of
+// the same root are reused where nothing they depend on changed, and the
+// memo is updated once the compile completes.
+func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	c := &compiler{net: n, near: &nearIndexes{}}
 	n.Elements = chem.BuiltinElements()
 	n.Phases = map[string]*Phase{}
@@ -115,7 +117,15 @@ func compileContext(ctx context.Context, n *Network) error {
 			reactions = append(reactions, st)
 		}
 	})
-	built := c.buildReactions(reactions)
+	var built []builtReaction
+	var env string
+	var entries map[*lang.Statement]*memoReaction
+	if memo != nil {
+		env = speciesEnv(n)
+		built, entries = c.buildReactionsReusing(reactions, memo, env)
+	} else {
+		built = c.buildReactions(reactions)
+	}
 	if err := ctx.Err(); err != nil {
 		return err
 	}
@@ -135,6 +145,9 @@ func compileContext(ctx context.Context, n *Network) error {
 	}
 	buildModels(n)
 	buildSolutions(n)
+	if memo != nil {
+		memo.commit(env, entries)
+	}
 	return nil
 }
 

@@ -14,6 +14,7 @@ import (
 	"testing"
 
 	"hess/lang"
+	"hess/synth"
 )
 
 // TestIncrementalLoadMatchesFresh compiles a long sequence of random edits
@@ -31,6 +32,8 @@ func TestIncrementalLoadMatchesFresh(t *testing.T) {
 	}
 	root, src, _ := synthSource(t, 60, 200)
 	t.Run("generated", func(t *testing.T) { editSequence(t, root, src, steps, 1) })
+	root, src, _ = shapeSource(t, synth.Mechanism, 60, 120)
+	t.Run("mechanism", func(t *testing.T) { editSequence(t, root, src, steps, 99) })
 	ex := memSource{}
 	var roots []string
 	err := filepath.WalkDir("../examples", func(p string, d os.DirEntry, err error) error {
@@ -66,6 +69,13 @@ func editSequence(t *testing.T, root string, orig memSource, steps int, seed uin
 	}
 	rng := rand.New(rand.NewPCG(seed, 17))
 	caches := NewParseCaches()
+	reused := 0
+	defer func() {
+		// The sequence must have exercised the reuse it checks.
+		if !t.Failed() && reused == 0 && len(Load(root, orig, Options{}).Reactions) > 0 {
+			t.Errorf("no load reused a compiled reaction")
+		}
+	}()
 	for step := 0; step <= steps; step++ {
 		if step > 0 {
 			name := names[rng.IntN(len(names))]
@@ -86,6 +96,7 @@ func editSequence(t *testing.T, root string, orig memSource, steps int, seed uin
 			cancel()
 		}
 		got := Load(root, src, Options{Caches: caches})
+		reused += caches.memo(PathID(root)).reused
 		want := Load(root, src, Options{})
 		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
 			gl, wl := strings.Split(g, "\n"), strings.Split(w, "\n")
@@ -119,7 +130,38 @@ func (c *cancelAfter) ReadFile(path string) ([]byte, error) {
 func randomEdit(rng *rand.Rand, text []byte) ([]byte, string) {
 	lines := strings.Split(string(text), "\n")
 	i := rng.IntN(len(lines))
-	switch k := rng.IntN(10); k {
+	switch k := rng.IntN(12); k {
+	case 10: // a species' formula changed, or a formula given
+		for _, j := range rng.Perm(len(lines)) {
+			l := lines[j]
+			if f, ok := strings.CutPrefix(strings.TrimSpace(l), "formula "); ok {
+				// Of the same length half the time, so that the
+				// statements after it stay in place.
+				b := []byte(f)
+				switch at := rng.IntN(len(b)); {
+				case rng.IntN(2) == 0:
+					f = []string{f + "H", "CH4", "Qz2", f + "O2"}[rng.IntN(4)]
+				case b[at] >= '0' && b[at] <= '9':
+					b[at] = byte('2' + rng.IntN(8))
+					f = string(b)
+				default:
+					b[at] = "CHNO"[rng.IntN(4)]
+					f = string(b)
+				}
+				lines[j] = "  formula " + f
+				return join(lines), "a formula changed"
+			}
+		}
+		for _, j := range rng.Perm(len(lines)) {
+			if strings.HasPrefix(lines[j], "species ") && strings.HasSuffix(lines[j], "{") {
+				lines = slices.Insert(lines, j+1, "  formula C2H6")
+				return join(lines), "a formula given"
+			}
+		}
+		return text, "nothing"
+	case 11: // an element declared, which formulas may name
+		lines = slices.Insert(lines, i, "element Qz 12.5")
+		return join(lines), "an element declared"
 	case 0: // a digit changed
 		var at []int
 		for j, r := range lines[i] {

@@ -61,7 +61,7 @@ func LoadContext(ctx context.Context, root string, src Source, opts Options) (*N
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	if err := compileContext(ctx, n); err != nil {
+	if err := compileContext(ctx, n, opts.Caches.memo(rootID)); err != nil {
 		return nil, err
 	}
 	n.Temperatures = n.Settings.Temperatures

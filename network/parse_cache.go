@@ -12,12 +12,15 @@ import (
 // path and text are exactly those of its last parse takes that parse
 // whole (syntax tree and diagnostics, nothing lexed), and a file whose
 // text changed re-parses only the statements whose text changed (see
-// lang.Cache). It is safe for concurrent use; each file's cache serves one
+// lang.Cache). It also keeps each root's compiled reactions, which a load
+// reuses for the statements that did not change while the declared
+// species did not (reuse.go). It is safe for concurrent use; each file's cache serves one
 // load at a time. The text a Source returns must not change afterwards
 // (Disk and Overlay return text that does not).
 type ParseCaches struct {
 	mu    sync.Mutex
-	files map[string]*fileParse // by file identity
+	files map[string]*fileParse   // by file identity
+	memos map[string]*compileMemo // compiled reactions, by root identity (reuse.go)
 }
 
 // fileParse is one file's cache: its statements, and its last parse with
@@ -83,6 +86,11 @@ func (p *ParseCaches) Retain(keep func(path string) bool) {
 	for id := range p.files {
 		if !keep(id) {
 			delete(p.files, id)
+		}
+	}
+	for id := range p.memos {
+		if !keep(id) {
+			delete(p.memos, id)
 		}
 	}
 }
