@@ -30,13 +30,13 @@ type compileMemo struct {
 	reused    int // reactions the latest compile took from the memo, for tests
 }
 
-// memoReaction is a built reaction as it left buildReaction, holding no
-// pointer into any network: species are named by key.
+// memoReaction is a built reaction of the last compile, as buildReaction
+// made it: its rx is the network's own, which nothing changes after the
+// build but the combination pass (rx.Combo, cleared in every copy taken).
+// Its species are those of the network it was built for; a copy for
+// another network finds them again by key.
 type memoReaction struct {
-	built     builtReaction // rx is a private copy; mentioned is nil
-	left      []string      // species keys of rx.Left's terms ("" when undefined)
-	right     []string
-	mentioned []string
+	built builtReaction
 }
 
 // memo returns the compile memo of the network rooted at the file with the
@@ -80,7 +80,8 @@ func speciesEnv(n *Network) string {
 
 // buildReactionsReusing is buildReactions taking each statement that the
 // memo compiled under the same species from the memo. It returns the built
-// reactions and the memo entries for the next compile.
+// reactions and the memo entries for the next compile, which refer to
+// this compile's reactions (so that the last network is not kept).
 func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[*lang.Statement]*memoReaction) {
 	memo.mu.Lock()
 	var prev map[*lang.Statement]*memoReaction
@@ -89,25 +90,21 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	}
 	memo.mu.Unlock()
 	out := make([]builtReaction, len(sts))
-	entries := make([]*memoReaction, len(sts))
 	reused := make([]bool, len(sts))
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
 		return func(i int) {
 			if m := prev[sts[i]]; m != nil {
-				out[i], entries[i], reused[i] = m.restore(c.net), m, true
+				out[i], reused[i] = m.restore(c.net), true
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
-			entries[i] = remember(&out[i])
 		}
 	})
 	next := make(map[*lang.Statement]*memoReaction, len(sts))
 	n := 0
 	for i, st := range sts {
-		if entries[i] != nil {
-			next[st] = entries[i]
-		}
+		next[st] = &memoReaction{built: out[i]}
 		if reused[i] {
 			n++
 		}
@@ -125,66 +122,29 @@ func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReacti
 	m.env, m.reactions = env, entries
 }
 
-// remember copies a freshly built reaction into a memo entry, or returns
-// nil when it holds something the memo does not copy (a combination,
-// which the statement's build never sets).
-func remember(b *builtReaction) *memoReaction {
-	if b.rx != nil && b.rx.Combo != nil {
-		return nil
-	}
-	m := &memoReaction{built: *b}
-	m.built.diags = cloneDiagnostics(b.diags)
-	m.built.propDiags = cloneDiagnostics(b.propDiags)
-	m.built.mentioned = nil
-	for _, sp := range b.mentioned {
-		m.mentioned = append(m.mentioned, sp.Key)
-	}
-	if b.rx != nil {
-		m.built.rx = copyReaction(b.rx)
-		m.left, m.right = termKeys(b.rx.Left), termKeys(b.rx.Right)
-		for _, side := range [2][]Term{m.built.rx.Left, m.built.rx.Right} {
-			for i := range side {
-				side[i].Species = nil
-			}
-		}
-	}
-	return m
-}
-
 // restore builds a fresh copy of the entry for the network n, its species
 // found by key among n's (the species signature being equal, each key
 // names the species of the same declaration it named before).
 func (m *memoReaction) restore(n *Network) builtReaction {
 	b := m.built
-	b.diags = cloneDiagnostics(m.built.diags)
-	b.propDiags = cloneDiagnostics(m.built.propDiags)
-	for _, k := range m.mentioned {
-		b.mentioned = append(b.mentioned, n.speciesByKey[k])
+	b.diags = slices.Clone(m.built.diags)
+	b.propDiags = slices.Clone(m.built.propDiags)
+	b.mentioned = nil
+	for _, sp := range m.built.mentioned {
+		b.mentioned = append(b.mentioned, n.speciesByKey[sp.Key])
 	}
-	if m.built.rx != nil {
-		b.rx = copyReaction(m.built.rx)
-		for i, k := range m.left {
-			if k != "" {
-				b.rx.Left[i].Species = n.speciesByKey[k]
-			}
-		}
-		for i, k := range m.right {
-			if k != "" {
-				b.rx.Right[i].Species = n.speciesByKey[k]
+	if rx := m.built.rx; rx != nil {
+		b.rx = copyReaction(rx)
+		b.rx.Combo = nil // set by the combination pass, after the build
+		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
+			for i, t := range side {
+				if t.Species != nil {
+					side[i].Species = n.speciesByKey[t.Species.Key]
+				}
 			}
 		}
 	}
 	return b
-}
-
-func termKeys(ts []Term) []string {
-	out := make([]string, len(ts))
-	for i, t := range ts {
-		if t.Species != nil {
-			out[i] = t.Species.Key
-		}
-	}
-	return out
 }
 
 // copyReaction copies a reaction as built (no combination yet) so that the
@@ -213,17 +173,4 @@ func copyValue(v *Value) *Value {
 	}
 	c := *v
 	return &c
-}
-
-// cloneDiagnostics copies a list of diagnostics with their related
-// information.
-func cloneDiagnostics(ds lang.Diagnostics) lang.Diagnostics {
-	if ds == nil {
-		return nil
-	}
-	out := slices.Clone(ds)
-	for i := range out {
-		out[i].Related = slices.Clone(out[i].Related)
-	}
-	return out
 }
