@@ -107,7 +107,14 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	if err := ctx.Err(); err != nil {
 		return err
 	}
-	c.speciesData(species)
+	var elements string
+	var speciesEntries map[*lang.Species]*memoSpecies
+	if memo != nil {
+		elements = elementsEnv(n)
+		speciesEntries = c.speciesDataReusing(species, memo, elements)
+	} else {
+		c.speciesData(species)
+	}
 	if err := ctx.Err(); err != nil {
 		return err
 	}
@@ -146,7 +153,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	buildModels(n)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries)
+		memo.commit(env, entries, elements, speciesEntries)
 	}
 	return nil
 }

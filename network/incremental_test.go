@@ -69,11 +69,15 @@ func editSequence(t *testing.T, root string, orig memSource, steps int, seed uin
 	}
 	rng := rand.New(rand.NewPCG(seed, 17))
 	caches := NewParseCaches()
-	reused := 0
+	reused, reusedSpecies := 0, 0
 	defer func() {
 		// The sequence must have exercised the reuse it checks.
-		if !t.Failed() && reused == 0 && len(Load(root, orig, Options{}).Reactions) > 0 {
+		n := Load(root, orig, Options{})
+		if !t.Failed() && reused == 0 && len(n.Reactions) > 0 {
 			t.Errorf("no load reused a compiled reaction")
+		}
+		if !t.Failed() && reusedSpecies == 0 && len(n.Species) > 0 {
+			t.Errorf("no load reused a species statement's data")
 		}
 	}()
 	for step := 0; step <= steps; step++ {
@@ -96,7 +100,9 @@ func editSequence(t *testing.T, root string, orig memSource, steps int, seed uin
 			cancel()
 		}
 		got := Load(root, src, Options{Caches: caches})
-		reused += caches.memo(PathID(root)).reused
+		m := caches.memo(PathID(root))
+		reused += m.reused
+		reusedSpecies += m.reusedSpecies
 		want := Load(root, src, Options{})
 		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
 			gl, wl := strings.Split(g, "\n"), strings.Split(w, "\n")
@@ -160,7 +166,12 @@ func randomEdit(rng *rand.Rand, text []byte) ([]byte, string) {
 		}
 		return text, "nothing"
 	case 11: // an element declared, which formulas may name
-		lines = slices.Insert(lines, i, "element Qz 12.5")
+		// At the end half the time, so that the statements before it
+		// stay in place.
+		if rng.IntN(2) == 0 {
+			i = len(lines)
+		}
+		lines = slices.Insert(lines, i, "element Qz {\n  mass 12.5 g/mol\n}")
 		return join(lines), "an element declared"
 	case 0: // a digit changed
 		var at []int
@@ -209,8 +220,8 @@ func randomEdit(rng *rand.Rand, text []byte) ([]byte, string) {
 		lines = slices.Insert(lines, 0, "settings {\n  pressure 1 atm\n}")
 		return join(lines), "settings added"
 	case 7: // a statement added
-		add := []string{"species Zq(g)", "species H2O(g) {\n  hf -241.8 kJ/mol\n}", "element Qz 12.5", "phase melt: pure",
-			"reaction extra: H2(g) + O2(g) <-> H2O(g)", "reaction r1: CO(g) <-> CO(g)", "mixture m1 {\n  T 300 K\n  H2(g) 1\n}",
+		add := []string{"species Zq(g)", "species H2O(g) {\n  hf -241.8 kJ/mol\n}", "element Qz {\n  mass 12.5 g/mol\n}", "phase melt {\n  convention pure\n}", "species CaO(melt)",
+			"reaction extra: H2(g) + O2(g) <-> H2O(g)", "reaction r1: CO(g) <-> CO(g)", "mixture m1 {\n  temperature 300 K\n  pressure 1 bar\n  H2(g) 1 mol\n}",
 			"include \"missing.hess\"", "settings {\n  temperatures 500 K\n}"}
 		lines = slices.Insert(lines, i, add[rng.IntN(len(add))])
 		return join(lines), "a statement added"
@@ -380,5 +391,45 @@ func (d *dumper) value(v reflect.Value, depth int) {
 		fmt.Fprint(&d.b, v.Int())
 	default:
 		fmt.Fprint(&d.b, v.Uint())
+	}
+}
+
+// TestIncrementalLoadTargeted walks edits chosen to change what a reused
+// statement depends on while the statement itself stays in place: an
+// element declared after the species whose formula names it, a duplicate
+// declaration in the root that takes a species from an included file's
+// statement, a species' formula changed under reactions that use it.
+func TestIncrementalLoadTargeted(t *testing.T) {
+	const lib = "species Zz(g) {\n  formula Qz2\n  hf 10 kJ/mol\n  s 200 J/mol/K\n}\nspecies Qz(g) {\n  formula Qz\n}\nspecies CH4(g), H2(g)\nreaction split: Zz(g) <-> 2 Qz(g)\nreaction other: Zz(g) <-> Qz(g)\n"
+	steps := []map[string]string{
+		{"/t/root.hess": "include \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "include \"lib.hess\"\n# a note\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "include \"lib.hess\"\n", "/t/lib.hess": lib + "element Qz {\n  mass 12.5 g/mol\n}\n"},
+		{"/t/root.hess": "include \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\ninclude \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\nspecies Zz(g) {\n  formula C\n}\ninclude \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\nspecies CH4(g)\ninclude \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\ninclude \"lib.hess\"\n", "/t/lib.hess": lib},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\ninclude \"lib.hess\"\n", "/t/lib.hess": strings.Replace(lib, "formula Qz\n", "formula Qy\n", 1)},
+		{"/t/root.hess": "element Qz {\n  mass 20 g/mol\n}\ninclude \"lib.hess\"\n", "/t/lib.hess": strings.Replace(lib, "formula Qz2\n", "formula Qz3\n", 1)},
+		{"/t/root.hess": "settings {\n  pressure 1 atm\n}\nelement Qz 20\ninclude \"lib.hess\"\n", "/t/lib.hess": strings.Replace(lib, "formula Qz2\n", "formula Qz3\n", 1)},
+	}
+	caches := NewParseCaches()
+	reused, reusedSpecies := 0, 0
+	for i, files := range steps {
+		src := memSource{}
+		for k, v := range files {
+			src[k] = []byte(v)
+		}
+		got, want := Load("/t/root.hess", src, Options{Caches: caches}), Load("/t/root.hess", src, Options{})
+		m := caches.memo(PathID("/t/root.hess"))
+		reused += m.reused
+		reusedSpecies += m.reusedSpecies
+		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
+			t.Fatalf("step %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
+		}
+	}
+	if reused == 0 || reusedSpecies == 0 {
+		t.Errorf("%d reactions and %d species statements reused: the sequence does not exercise the reuse", reused, reusedSpecies)
 	}
 }

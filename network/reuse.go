@@ -6,6 +6,7 @@ import (
 	"strings"
 	"sync"
 
+	"hess/chem"
 	"hess/lang"
 )
 
@@ -21,13 +22,17 @@ import (
 // depends on (other reactions: names, combinations, duplicates) is worked
 // out after the build, in the serial passes, every time.
 
-// compileMemo is one root's compiled reactions from its last completed
-// compile. It serves one load at a time.
+// compileMemo is one root's compiled species data and reactions from its
+// last completed compile. It serves one load at a time.
 type compileMemo struct {
 	mu        sync.Mutex
 	env       string // speciesEnv of the compile the reactions are from
 	reactions map[*lang.Statement]*memoReaction
 	reused    int // reactions the latest compile took from the memo, for tests
+
+	elements      string // elementsEnv of the compile the species are from
+	species       map[*lang.Species]*memoSpecies
+	reusedSpecies int // species statements the latest compile took from the memo
 }
 
 // memoReaction is a built reaction of the last compile, as buildReaction
@@ -115,11 +120,13 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	return out, next
 }
 
-// commit keeps the entries of a completed compile under env.
-func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction) {
+// commit keeps the entries of a completed compile: its reactions under
+// env, its species under elements.
+func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	m.env, m.reactions = env, entries
+	m.elements, m.species = elements, species
 }
 
 // restore builds a fresh copy of the entry for the network n, its species
@@ -173,4 +180,96 @@ func copyValue(v *Value) *Value {
 	}
 	c := *v
 	return &c
+}
+
+// A species statement's data (speciesStatement: label, values, ranges,
+// source and note, formula) depend on the statement itself (text, file,
+// place: the pointer the parse caches hand out), on which of its species
+// were declared (not duplicates of earlier ones), and on the element table
+// that formulas are read against (elementsEnv); nothing else of the
+// network. The data are never changed after the statement's compile, so a
+// later network's species may share them with the last one's.
+
+// memoSpecies is a species statement of the last compile: its declared
+// species, as that network holds them, and the diagnostics of its data.
+type memoSpecies struct {
+	declared []*Species
+	diags    lang.Diagnostics
+}
+
+// elementsEnv is the signature of the element table formulas are read
+// against.
+func elementsEnv(n *Network) string {
+	if n.Elements == chem.BuiltinElements() {
+		return "builtin"
+	}
+	return fmt.Sprint(n.Elements.Elements())
+}
+
+// speciesDataReusing is speciesData taking the data of each statement that
+// the memo compiled with the same species declared and the same elements
+// from the memo. It returns the entries for the next compile.
+func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) map[*lang.Species]*memoSpecies {
+	memo.mu.Lock()
+	var prev map[*lang.Species]*memoSpecies
+	if memo.elements == elements {
+		prev = memo.species
+	}
+	memo.mu.Unlock()
+	diags := make([]lang.Diagnostics, len(list))
+	reused := make([]bool, len(list))
+	parallel(len(list), 256, func() func(i int) {
+		w := &compiler{net: c.net}
+		return func(i int) {
+			if m := prev[list[i].st]; m != nil && sameKeys(m.declared, list[i].declared) {
+				for j, sp := range list[i].declared {
+					copySpeciesData(sp, m.declared[j])
+				}
+				diags[i], reused[i] = slices.Clone(m.diags), true
+				return
+			}
+			w.out = &diags[i]
+			w.speciesStatement(list[i])
+		}
+	})
+	next := make(map[*lang.Species]*memoSpecies, len(list))
+	n := 0
+	for i, d := range list {
+		c.net.Diagnostics = append(c.net.Diagnostics, diags[i]...)
+		next[d.st] = &memoSpecies{declared: d.declared, diags: diags[i]}
+		if reused[i] {
+			n++
+		}
+	}
+	memo.mu.Lock()
+	memo.reusedSpecies = n
+	memo.mu.Unlock()
+	return next
+}
+
+// sameKeys reports whether two lists declare the same species keys.
+func sameKeys(a, b []*Species) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i].Key != b[i].Key {
+			return false
+		}
+	}
+	return true
+}
+
+// copySpeciesData gives dst the data that speciesStatement read into src:
+// every field it sets. (TestIncrementalLoadMatchesFresh compares every
+// field of the species with a fresh compile's, so a field added to that
+// statement's compile and not here fails it.)
+func copySpeciesData(dst, src *Species) {
+	dst.Label = src.Label
+	dst.Formula, dst.HasFormula, dst.ints = src.Formula, src.HasFormula, src.ints
+	dst.Hf, dst.Gf, dst.S, dst.Cp = src.Hf, src.Gf, src.S, src.Cp
+	dst.Size, dst.Setschenow = src.Size, src.Setschenow
+	dst.Ranges = slices.Clone(src.Ranges)
+	dst.Source, dst.Note = src.Source, src.Note
+	dst.BrokenData = src.BrokenData
 }
