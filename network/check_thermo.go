@@ -318,13 +318,13 @@ or a mistyped coefficient (the F or H parameter of a Shomate fit, a6 or a7
 of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 	Run: func(p *Pass) {
 		tol := p.Net.Settings.Tolerance
-		for _, sp := range p.Net.Species {
+		p.eachSpecies(p.check.Name, func(sp *Species) {
 			if len(sp.Ranges) == 0 {
-				continue
+				return
 			}
 			m := sp.Model()
 			if m == nil || !covers(m, thermo.T298) {
-				continue
+				return
 			}
 			var related []lang.Related
 			for _, r := range sp.Ranges {
@@ -356,7 +356,7 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 						sp.Key, cp, v.V, 100*math.Abs(d)/math.Abs(cp))})
 				}
 			}
-		}
+		})
 	},
 }
 

@@ -109,9 +109,10 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	}
 	var elements string
 	var speciesEntries map[*lang.Species]*memoSpecies
+	var from map[*Species]*Species
 	if memo != nil {
 		elements = elementsEnv(n)
-		speciesEntries = c.speciesDataReusing(species, memo, elements)
+		speciesEntries, from = c.speciesDataReusing(species, memo, elements)
 	} else {
 		c.speciesData(species)
 	}
@@ -153,7 +154,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	buildModels(n)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries, elements, speciesEntries)
+		memo.commit(env, entries, elements, speciesEntries, from)
 	}
 	return nil
 }

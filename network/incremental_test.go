@@ -433,3 +433,44 @@ func TestIncrementalLoadTargeted(t *testing.T) {
 		t.Errorf("%d reactions and %d species statements reused: the sequence does not exercise the reuse", reused, reusedSpecies)
 	}
 }
+
+// TestIncrementalChecksTargeted changes what the species-local checks
+// depend on besides the species' own statement (the tolerance, the
+// network's standard pressure, a file's standard pressure, a phase's
+// convention) while the species statements stay in place, and requires
+// each load to equal a fresh one, with findings reused in between.
+func TestIncrementalChecksTargeted(t *testing.T) {
+	lib, err := os.ReadFile("testdata/reuse/lib.hess")
+	if err != nil {
+		t.Fatal(err)
+	}
+	const phase = "phase melt {\n  convention ideal-gas\n}\n"
+	const include = "include \"lib.hess\"\n"
+	roots := []string{
+		include,
+		include + "# a note\n",
+		"settings {\n  tolerance 0.001 kJ/mol\n}\n" + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n}\n# a note\n" + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n  pressure 1 atm\n}\n" + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n  pressure 1 atm\n}\n" + phase + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n  pressure 1 atm\n}\n" + strings.Replace(phase, "ideal-gas", "pure", 1) + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n}\n" + phase + include,
+		"settings {\n  tolerance 0.001 kJ/mol\n}\n" + strings.Replace(phase, "ideal-gas", "pure", 1) + include,
+	}
+	caches := NewParseCaches()
+	reused := 0
+	for i, root := range roots {
+		atm := string(lib) + "settings {\n  standard-pressure 1 atm\n}\n"
+		for _, libText := range []string{atm, string(lib), atm} {
+			src := memSource{"/t/root.hess": []byte(root), "/t/lib.hess": []byte(libText)}
+			got, want := Load("/t/root.hess", src, Options{Caches: caches}), Load("/t/root.hess", src, Options{})
+			reused += caches.memo(PathID("/t/root.hess")).checks.reused
+			if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
+				t.Fatalf("root %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
+			}
+		}
+	}
+	if reused == 0 {
+		t.Error("no species-local finding was reused: the sequence does not exercise the reuse")
+	}
+}

@@ -61,14 +61,15 @@ func LoadContext(ctx context.Context, root string, src Source, opts Options) (*N
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	if err := compileContext(ctx, n, opts.Caches.memo(rootID)); err != nil {
+	memo := opts.Caches.memo(rootID)
+	if err := compileContext(ctx, n, memo); err != nil {
 		return nil, err
 	}
 	n.Temperatures = n.Settings.Temperatures
 	if opts.Temperatures != nil {
 		n.Temperatures = opts.Temperatures
 	}
-	if err := runChecks(ctx, n); err != nil {
+	if err := runChecks(ctx, n, memo); err != nil {
 		return nil, err
 	}
 	finalize(n)

@@ -33,6 +33,11 @@ type compileMemo struct {
 	elements      string // elementsEnv of the compile the species are from
 	species       map[*lang.Species]*memoSpecies
 	reusedSpecies int // species statements the latest compile took from the memo
+	// from maps each species of the latest compile whose data were taken
+	// from the memo to the species they were taken from.
+	from map[*Species]*Species
+
+	checks checkMemo // species-local check findings (check_reuse.go)
 }
 
 // memoReaction is a built reaction of the last compile, as buildReaction
@@ -122,11 +127,11 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies) {
+func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	m.env, m.reactions = env, entries
-	m.elements, m.species = elements, species
+	m.elements, m.species, m.from = elements, species, from
 }
 
 // restore builds a fresh copy of the entry for the network n, its species
@@ -208,8 +213,9 @@ func elementsEnv(n *Network) string {
 
 // speciesDataReusing is speciesData taking the data of each statement that
 // the memo compiled with the same species declared and the same elements
-// from the memo. It returns the entries for the next compile.
-func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) map[*lang.Species]*memoSpecies {
+// from the memo. It returns the entries for the next compile, and which
+// species took their data from which of the last compile's.
+func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, map[*Species]*Species) {
 	memo.mu.Lock()
 	var prev map[*lang.Species]*memoSpecies
 	if memo.elements == elements {
@@ -233,18 +239,22 @@ func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo,
 		}
 	})
 	next := make(map[*lang.Species]*memoSpecies, len(list))
+	from := map[*Species]*Species{}
 	n := 0
 	for i, d := range list {
 		c.net.Diagnostics = append(c.net.Diagnostics, diags[i]...)
 		next[d.st] = &memoSpecies{declared: d.declared, diags: diags[i]}
 		if reused[i] {
 			n++
+			for j, sp := range d.declared {
+				from[sp] = prev[d.st].declared[j]
+			}
 		}
 	}
 	memo.mu.Lock()
 	memo.reusedSpecies = n
 	memo.mu.Unlock()
-	return next
+	return next, from
 }
 
 // sameKeys reports whether two lists declare the same species keys.
