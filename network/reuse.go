@@ -3,7 +3,7 @@ package network
 import (
 	"fmt"
 	"slices"
-	"strings"
+	"strconv"
 	"sync"
 
 	"hess/chem"
@@ -69,23 +69,42 @@ func (p *ParseCaches) memo(rootID string) *compileMemo {
 }
 
 // speciesEnv is the signature of what a reaction's compile reads of the
-// declared species: each one's key, charge and formula, in declaration
-// order.
+// declared species: each one's key, charge and formula (as small whole
+// counts when it has them), in declaration order.
 func speciesEnv(n *Network) string {
-	var b strings.Builder
-	b.Grow(len(n.Species) * 24)
+	b := make([]byte, 0, len(n.Species)*32)
 	for _, sp := range n.Species {
-		b.WriteString(sp.Key)
-		fmt.Fprintf(&b, "\x00%d\x00%t%t%t", sp.Charge, sp.HasFormula, sp.ints.known, sp.ints.ok)
+		b = append(b, sp.Key...)
+		b = append(b, 0)
+		b = strconv.AppendInt(b, int64(sp.Charge), 10)
+		b = append(b, 0)
+		for _, f := range [3]bool{sp.HasFormula, sp.ints.known, sp.ints.ok} {
+			b = strconv.AppendBool(b, f)
+		}
+		// Small whole counts (ints.ok) are the formula; else the formula
+		// itself.
 		for _, e := range sp.Formula.Elements {
-			fmt.Fprintf(&b, "\x00%v", e)
+			if sp.ints.ok {
+				break
+			}
+			b = append(b, 0)
+			b = append(b, e.Symbol...)
+			b = append(b, '=')
+			if e.Count != nil {
+				b = e.Count.Num().Append(b, 10)
+				b = append(b, '/')
+				b = e.Count.Denom().Append(b, 10)
+			}
 		}
 		for _, c := range sp.ints.counts {
-			fmt.Fprintf(&b, "\x00%s=%d", c.key, c.n)
+			b = append(b, 0)
+			b = append(b, c.key...)
+			b = append(b, '=')
+			b = strconv.AppendInt(b, c.n, 10)
 		}
-		b.WriteByte('\n')
+		b = append(b, '\n')
 	}
-	return b.String()
+	return string(b)
 }
 
 // buildReactionsReusing is buildReactions taking each statement that the
