@@ -15,14 +15,17 @@ import (
 // is built from besides is the same: the standard pressure of its file
 // (p0), its activity convention (whether its model is shifted to the
 // network's standard pressure), the network's standard pressure and
-// tolerance. Such a check must read nothing else of the network.
+// tolerance; and whether some reaction uses it and the temperatures the
+// network is checked at are the same. Such a check must read nothing else
+// of the network.
 
 // checkMemo holds the last completed check run's per-species findings, by
 // check part; it belongs to a compileMemo.
 type checkMemo struct {
 	mu       sync.Mutex
-	pressure float64 // the network's standard pressure and tolerance then
+	pressure float64 // the network's standard pressure, tolerance and temperatures then
 	tol      float64
+	temps    []float64
 	found    map[string]map[*Species]lang.Diagnostics // by part, then species
 	reused   int                                      // findings lists reused by the latest run, for tests
 }
@@ -51,7 +54,7 @@ func startSpeciesChecks(n *Network, memo *compileMemo) *speciesChecks {
 	cm.mu.Lock()
 	defer cm.mu.Unlock()
 	sc := &speciesChecks{from: from, next: map[string]map[*Species]lang.Diagnostics{}}
-	if cm.pressure == n.StandardPressure() && cm.tol == n.Settings.Tolerance {
+	if cm.pressure == n.StandardPressure() && cm.tol == n.Settings.Tolerance && slices.Equal(cm.temps, n.Temperatures) {
 		sc.prev = cm.found
 	}
 	return sc
@@ -65,7 +68,8 @@ func (sc *speciesChecks) finish(n *Network, memo *compileMemo) {
 	cm := &memo.checks
 	cm.mu.Lock()
 	defer cm.mu.Unlock()
-	cm.pressure, cm.tol, cm.found, cm.reused = n.StandardPressure(), n.Settings.Tolerance, sc.next, sc.reused
+	cm.pressure, cm.tol, cm.temps = n.StandardPressure(), n.Settings.Tolerance, slices.Clone(n.Temperatures)
+	cm.found, cm.reused = sc.next, sc.reused
 }
 
 // eachSpecies calls fn for every species of the network in order, as a
@@ -84,7 +88,7 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 	next := make(map[*Species]lang.Diagnostics, len(p.Net.Species))
 	reused := 0
 	for _, sp := range p.Net.Species {
-		if old := sc.from[sp]; old != nil && old.p0 == sp.p0 && old.Activity() == sp.Activity() {
+		if old := sc.from[sp]; old != nil && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
 			if ds, ok := prev[old]; ok {
 				*p.out = append(*p.out, ds...)
 				next[sp] = ds

@@ -31,10 +31,10 @@ that a reaction evaluated in the mixture uses; hess approach marks those
 values as extrapolated.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
-		for _, sp := range p.Net.Species {
+		p.eachSpecies("extrapolation/species", func(sp *Species) {
 			m := sp.Model()
 			if !sp.Used || m == nil || isGibbsOnly(m) {
-				continue
+				return
 			}
 			var out []float64
 			for _, T := range temps {
@@ -43,7 +43,7 @@ values as extrapolated.`,
 				}
 			}
 			if len(out) == 0 {
-				continue
+				return
 			}
 			verb := "is"
 			if len(out) > 1 {
@@ -51,7 +51,7 @@ values as extrapolated.`,
 			}
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
-		}
+		})
 		for _, rx := range p.Net.Reactions {
 			extrapolatedOwnData(p, rx, temps)
 		}

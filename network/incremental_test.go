@@ -436,9 +436,10 @@ func TestIncrementalLoadTargeted(t *testing.T) {
 
 // TestIncrementalChecksTargeted changes what the species-local checks
 // depend on besides the species' own statement (the tolerance, the
-// network's standard pressure, a file's standard pressure, a phase's
-// convention) while the species statements stay in place, and requires
-// each load to equal a fresh one, with findings reused in between.
+// network's standard pressure and temperatures, a file's standard
+// pressure, a phase's convention, whether a reaction uses the species)
+// while the species statements stay in place, and requires each load to
+// equal a fresh one, with findings reused in between.
 func TestIncrementalChecksTargeted(t *testing.T) {
 	lib, err := os.ReadFile("testdata/reuse/lib.hess")
 	if err != nil {
@@ -446,9 +447,17 @@ func TestIncrementalChecksTargeted(t *testing.T) {
 	}
 	const phase = "phase melt {\n  convention ideal-gas\n}\n"
 	const include = "include \"lib.hess\"\n"
+	const react = "reaction ab: Aa(g) + O2(g) <-> Bb(melt)\n"
+	const temps = "settings {\n  temperatures 298.15 K, 500 K\n}\n"
 	roots := []string{
 		include,
 		include + "# a note\n",
+		temps + include,
+		temps + include + react,
+		temps + include,
+		temps + include + react,
+		include + react,
+		"settings {\n  tolerance 0.001 kJ/mol\n}\n" + include + react,
 		"settings {\n  tolerance 0.001 kJ/mol\n}\n" + include,
 		"settings {\n  tolerance 0.001 kJ/mol\n}\n# a note\n" + include,
 		"settings {\n  tolerance 0.001 kJ/mol\n  pressure 1 atm\n}\n" + include,
