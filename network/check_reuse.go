@@ -26,18 +26,22 @@ type checkMemo struct {
 	pressure float64 // the network's standard pressure, tolerance and temperatures then
 	tol      float64
 	temps    []float64
-	found    map[string]map[*Species]lang.Diagnostics // by part, then species
-	reused   int                                      // findings lists reused by the latest run, for tests
+	found    map[string]map[*Species]lang.Diagnostics  // by part, then species
+	foundRx  map[string]map[*Reaction]lang.Diagnostics // by part, then reaction
+	reused   int                                       // findings lists reused by the latest run, for tests
 }
 
 // speciesChecks is one check run's view of the memo: the previous
 // findings when the network's settings match, and the new ones.
 type speciesChecks struct {
-	from map[*Species]*Species // a species of this network -> the one of the last whose data it took
-	prev map[string]map[*Species]lang.Diagnostics
+	from   map[*Species]*Species   // a species of this network -> the one of the last whose data it took
+	rxFrom map[*Reaction]*Reaction // a reaction of this network -> the one of the last it was copied from
+	prev   map[string]map[*Species]lang.Diagnostics
+	prevRx map[string]map[*Reaction]lang.Diagnostics
 
 	mu     sync.Mutex
 	next   map[string]map[*Species]lang.Diagnostics
+	nextRx map[string]map[*Reaction]lang.Diagnostics
 	reused int
 }
 
@@ -48,14 +52,15 @@ func startSpeciesChecks(n *Network, memo *compileMemo) *speciesChecks {
 		return nil
 	}
 	memo.mu.Lock()
-	from := memo.from
+	from, rxFrom := memo.from, memo.rxFrom
 	memo.mu.Unlock()
 	cm := &memo.checks
 	cm.mu.Lock()
 	defer cm.mu.Unlock()
-	sc := &speciesChecks{from: from, next: map[string]map[*Species]lang.Diagnostics{}}
+	sc := &speciesChecks{from: from, rxFrom: rxFrom,
+		next: map[string]map[*Species]lang.Diagnostics{}, nextRx: map[string]map[*Reaction]lang.Diagnostics{}}
 	if cm.pressure == n.StandardPressure() && cm.tol == n.Settings.Tolerance && slices.Equal(cm.temps, n.Temperatures) {
-		sc.prev = cm.found
+		sc.prev, sc.prevRx = cm.found, cm.foundRx
 	}
 	return sc
 }
@@ -69,7 +74,7 @@ func (sc *speciesChecks) finish(n *Network, memo *compileMemo) {
 	cm.mu.Lock()
 	defer cm.mu.Unlock()
 	cm.pressure, cm.tol, cm.temps = n.StandardPressure(), n.Settings.Tolerance, slices.Clone(n.Temperatures)
-	cm.found, cm.reused = sc.next, sc.reused
+	cm.found, cm.foundRx, cm.reused = sc.next, sc.nextRx, sc.reused
 }
 
 // eachSpecies calls fn for every species of the network in order, as a
@@ -104,4 +109,62 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 	sc.next[part] = next
 	sc.reused += reused
 	sc.mu.Unlock()
+}
+
+// eachReaction calls fn for every reaction of the network in order, as a
+// reaction-local check part named part: fn reports what it finds for that
+// reaction alone, reading nothing but the reaction (its terms, own data,
+// rates, balance facts) and its species' keys, charges, formulas and
+// activity conventions. With a memo, a reaction copied from the last
+// compile (its statement in place, the declared species' keys, charges
+// and formulas the same: buildReactionsReusing) whose species keep their
+// activity conventions, under the same settings, gets last run's findings.
+func (p *Pass) eachReaction(part string, fn func(rx *Reaction)) {
+	sc := p.species
+	if sc == nil || p.out == nil {
+		for _, rx := range p.Net.Reactions {
+			fn(rx)
+		}
+		return
+	}
+	prev := sc.prevRx[part]
+	next := make(map[*Reaction]lang.Diagnostics, len(p.Net.Reactions))
+	reused := 0
+	for _, rx := range p.Net.Reactions {
+		if old := sc.rxFrom[rx]; old != nil && sameActivities(old, rx) {
+			if ds, ok := prev[old]; ok {
+				*p.out = append(*p.out, ds...)
+				next[rx] = ds
+				reused++
+				continue
+			}
+		}
+		start := len(*p.out)
+		fn(rx)
+		next[rx] = slices.Clip((*p.out)[start:len(*p.out):len(*p.out)])
+	}
+	sc.mu.Lock()
+	sc.nextRx[part] = next
+	sc.reused += reused
+	sc.mu.Unlock()
+}
+
+// sameActivities reports whether the species of two copies of a reaction
+// have the same activity conventions, term by term.
+func sameActivities(a, b *Reaction) bool {
+	if len(a.Left) != len(b.Left) || len(a.Right) != len(b.Right) {
+		return false
+	}
+	for _, side := range [2][2][]Term{{a.Left, b.Left}, {a.Right, b.Right}} {
+		for i, t := range side[0] {
+			u := side[1][i]
+			if (t.Species == nil) != (u.Species == nil) {
+				return false
+			}
+			if t.Species != nil && t.Species.Activity() != u.Species.Activity() {
+				return false
+			}
+		}
+	}
+	return true
 }
