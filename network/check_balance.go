@@ -15,7 +15,7 @@ coefficient) must equal the count on the right. Coefficients are exact
 fractions, so 1/2 O2 balances exactly. The message lists each unbalanced
 element with its left and right counts.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, func(rx *Reaction) {
+		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
 			if !rx.Resolved {
 				return
 			}
@@ -45,7 +45,7 @@ The net charge of the left side (each species' charge times its
 coefficient, the electron e- counting -1) must equal that of the right side.
 The message gives both net charges.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, func(rx *Reaction) {
+		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
 			if !rx.Resolved {
 				return
 			}

@@ -12,7 +12,7 @@ coefficient, as in A(g) <-> A(g), so the reaction changes nothing: its
 it carries. Usually a species was written on the wrong side or a state tag
 was left out. A reaction's own data (dg, logk, …) are not used for it.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, func(rx *Reaction) {
+		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
 			if !rx.Resolved || len(rx.Left)+len(rx.Right) == 0 || len(rx.NetTerms()) > 0 {
 				return
 			}

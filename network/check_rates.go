@@ -22,7 +22,7 @@ m3/mol/s) and a termolecular one cm6/mol2/s. A unit of another order means
 the prefactor is off by powers of the concentration unit. A side whose
 coefficients do not add up to a whole number has no such unit.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, func(rx *Reaction) {
+		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
 			if !rx.Resolved {
 				return
 			}

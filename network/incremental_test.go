@@ -483,3 +483,32 @@ func TestIncrementalChecksTargeted(t *testing.T) {
 		t.Error("no species-local finding was reused: the sequence does not exercise the reuse")
 	}
 }
+
+// TestIncrementalReactionChecksTargeted changes what missing-thermo finds
+// for a reaction that stays in place: the data of one of its species, and
+// the own data of the reaction it is a combination of.
+func TestIncrementalReactionChecksTargeted(t *testing.T) {
+	lib, err := os.ReadFile("testdata/reuse/lib.hess")
+	if err != nil {
+		t.Fatal(err)
+	}
+	noS := string(lib) + "species Cc(g) {\n  formula C\n  hf 10 kJ/mol\n}\n"
+	withS := string(lib) + "species Cc(g) {\n  formula C\n  hf 10 kJ/mol\n  s 100 J/mol/K\n}\n"
+	const combo = "include \"lib.hess\"\nreaction c2: Cc(g) <-> Aa(g) = c1\n"
+	plain := combo + "reaction c1: Cc(g) <-> Aa(g)\n"
+	own := combo + "reaction c1: Cc(g) <-> Aa(g) {\n  dg 5 kJ/mol\n}\n"
+	steps := [][2]string{{plain, noS}, {plain + "# a note\n", noS}, {plain, withS}, {plain, noS}, {own, noS}, {plain, noS}, {own, noS}}
+	caches := NewParseCaches()
+	reused := 0
+	for i, st := range steps {
+		src := memSource{"/t/root.hess": []byte(st[0]), "/t/lib.hess": []byte(st[1])}
+		got, want := Load("/t/root.hess", src, Options{Caches: caches}), Load("/t/root.hess", src, Options{})
+		reused += caches.memo(PathID("/t/root.hess")).checks.reused
+		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
+			t.Fatalf("step %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
+		}
+	}
+	if reused == 0 {
+		t.Error("no finding was reused: the sequence does not exercise the reuse")
+	}
+}
