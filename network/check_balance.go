@@ -15,12 +15,12 @@ coefficient) must equal the count on the right. Coefficients are exact
 fractions, so 1/2 O2 balances exactly. The message lists each unbalanced
 element with its left and right counts.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
+		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
-				return
+				continue
 			}
 			if f := rx.facts(); f.intOK && f.elements {
-				return
+				continue
 			}
 			left, right := elementCounts(rx.Left), elementCounts(rx.Right)
 			var parts []string
@@ -33,7 +33,7 @@ element with its left and right counts.`,
 			if len(parts) > 0 {
 				p.Report(lang.Diagnostic{Subject: rx.Equation, Context: rx.Span, Message: strings.Join(parts, "; ")})
 			}
-		})
+		}
 	},
 }
 
@@ -45,20 +45,20 @@ The net charge of the left side (each species' charge times its
 coefficient, the electron e- counting -1) must equal that of the right side.
 The message gives both net charges.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
+		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
-				return
+				continue
 			}
 			if unchargedSpecies(rx) {
-				return
+				continue
 			}
 			if f := rx.facts(); f.intOK && f.charge {
-				return
+				continue
 			}
 			l, r := netCharge(rx.Left), netCharge(rx.Right)
 			if l.Cmp(r) != 0 {
 				p.Reportf(rx.Equation, "net charge: left %s, right %s", chargeText(l), chargeText(r))
 			}
-		})
+		}
 	},
 }

@@ -22,9 +22,9 @@ m3/mol/s) and a termolecular one cm6/mol2/s. A unit of another order means
 the prefactor is off by powers of the concentration unit. A side whose
 coefficients do not add up to a whole number has no such unit.`,
 	Run: func(p *Pass) {
-		p.eachReaction(p.check.Name, false, func(rx *Reaction) {
+		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
-				return
+				continue
 			}
 			if rx.Rate != nil {
 				checkRateUnit(p, rx, rx.Rate, rx.Left, "left")
@@ -32,7 +32,7 @@ coefficients do not add up to a whole number has no such unit.`,
 			if rx.Reverse != nil && rx.TwoWay {
 				checkRateUnit(p, rx, rx.Reverse, rx.Right, "right")
 			}
-		})
+		}
 	},
 }
 

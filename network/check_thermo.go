@@ -52,9 +52,9 @@ values as extrapolated.`,
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
 		})
-		p.eachReaction("extrapolation/own-data", false, func(rx *Reaction) {
+		for _, rx := range p.Net.Reactions {
 			extrapolatedOwnData(p, rx, temps)
-		})
+		}
 		for _, mx := range p.Net.Mixtures {
 			extrapolatedInMixture(p, mx)
 		}
@@ -187,9 +187,9 @@ message, and a reaction whose own data did not compile is not reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
 		known := map[*Species]bool{}
-		p.eachReaction(p.check.Name, true, func(rx *Reaction) {
+		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) || dataBroken(rx) {
-				return
+				continue
 			}
 			c := p.Net.ReactionK(rx)
 			var bad []float64
@@ -213,7 +213,7 @@ message, and a reaction whose own data did not compile is not reported.`,
 				}
 			}
 			if len(bad) == 0 || (brokenLack && len(lacking) == 0) {
-				return
+				continue
 			}
 			msg := fmt.Sprintf("K of %s cannot be computed at %s", rx.Name, kelvinList(bad))
 			var reasons []string
@@ -226,7 +226,7 @@ message, and a reaction whose own data did not compile is not reported.`,
 				msg += ": " + strings.Join(reasons, "; ")
 			}
 			p.Report(lang.Diagnostic{Subject: rx.NameSpan, Context: rx.Span, Message: msg, Related: related})
-		})
+		}
 	},
 }
 

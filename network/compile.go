@@ -128,10 +128,9 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	var built []builtReaction
 	var env string
 	var entries map[*lang.Statement]*memoReaction
-	var rxFrom map[*Reaction]*Reaction
 	if memo != nil {
 		env = speciesEnv(n)
-		built, entries, rxFrom = c.buildReactionsReusing(reactions, memo, env)
+		built, entries = c.buildReactionsReusing(reactions, memo, env)
 	} else {
 		built = c.buildReactions(reactions)
 	}
@@ -155,7 +154,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	buildModels(n)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries, elements, speciesEntries, from, rxFrom)
+		memo.commit(env, entries, elements, speciesEntries, from)
 	}
 	return nil
 }

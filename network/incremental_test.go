@@ -485,8 +485,9 @@ func TestIncrementalChecksTargeted(t *testing.T) {
 }
 
 // TestIncrementalReactionChecksTargeted changes what missing-thermo finds
-// for a reaction that stays in place: the data of one of its species, and
-// the own data of the reaction it is a combination of.
+// for a reaction whose statement stays in place (and whose build is
+// reused): the data of one of its species, and the own data of the
+// reaction it is a combination of.
 func TestIncrementalReactionChecksTargeted(t *testing.T) {
 	lib, err := os.ReadFile("testdata/reuse/lib.hess")
 	if err != nil {

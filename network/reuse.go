@@ -34,10 +34,8 @@ type compileMemo struct {
 	species       map[*lang.Species]*memoSpecies
 	reusedSpecies int // species statements the latest compile took from the memo
 	// from maps each species of the latest compile whose data were taken
-	// from the memo to the species they were taken from; rxFrom each
-	// reaction copied from the memo to the reaction it was copied from.
-	from   map[*Species]*Species
-	rxFrom map[*Reaction]*Reaction
+	// from the memo to the species they were taken from.
+	from map[*Species]*Species
 
 	checks checkMemo // species-local check findings (check_reuse.go)
 }
@@ -113,7 +111,7 @@ func speciesEnv(n *Network) string {
 // memo compiled under the same species from the memo. It returns the built
 // reactions and the memo entries for the next compile, which refer to
 // this compile's reactions (so that the last network is not kept).
-func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[*lang.Statement]*memoReaction, map[*Reaction]*Reaction) {
+func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[*lang.Statement]*memoReaction) {
 	memo.mu.Lock()
 	var prev map[*lang.Statement]*memoReaction
 	if memo.env == env {
@@ -133,29 +131,25 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 		}
 	})
 	next := make(map[*lang.Statement]*memoReaction, len(sts))
-	from := map[*Reaction]*Reaction{}
 	n := 0
 	for i, st := range sts {
 		next[st] = &memoReaction{built: out[i]}
 		if reused[i] {
 			n++
-			if out[i].rx != nil {
-				from[out[i].rx] = prev[st].built.rx
-			}
 		}
 	}
 	memo.mu.Lock()
 	memo.reused = n
 	memo.mu.Unlock()
-	return out, next, from
+	return out, next
 }
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species, rxFrom map[*Reaction]*Reaction) {
+func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
-	m.env, m.reactions, m.rxFrom = env, entries, rxFrom
+	m.env, m.reactions = env, entries
 	m.elements, m.species, m.from = elements, species, from
 }
 
