@@ -52,17 +52,16 @@ func bigNetwork(reactions int) string {
 // document: an incremental change sent, the document compiled, and its
 // diagnostics received by the client. The edit toggles an element
 // imbalance on the last line, so every round publishes a changed list.
-// The debounce delay (DefaultDebounce in an editor) is set to zero here.
 func BenchmarkEditToDiagnostics(b *testing.B) {
 	dir := b.TempDir()
 	text := bigNetwork(5000)
 	uri := fileURI(dir, "unit.hess")
-	c := startServer(b, Options{Debounce: -1})
+	c := startServer(b, Options{})
 	c.initialize()
 	c.open(uri, text, 1)
-	if p := c.waitDiagnostics(uri, atVersion(1)); len(p.Diagnostics) != 0 {
-		b.Fatalf("the generated network has findings: %+v", p.Diagnostics[:min(3, len(p.Diagnostics))])
-	}
+	// Its species hold data near 298 K only, so the settings' higher
+	// temperatures give extrapolation warnings: those are the baseline.
+	base := len(c.waitDiagnostics(uri, atVersion(1)).Diagnostics)
 	last := uint32(strings.Count(text, "\n") - 1)
 	at := uint32(len("reaction last: "))
 	b.ReportMetric(float64(len(text))/1e6, "MB/doc")
@@ -75,8 +74,8 @@ func BenchmarkEditToDiagnostics(b *testing.B) {
 			c.change(uri, v, TextDocumentContentChangeEvent{Range: &Range{Start: pos(last, at), End: pos(last, at+2)}})
 		}
 		p := c.waitDiagnostics(uri, atVersion(v))
-		if broken := i%2 == 0; broken != (len(p.Diagnostics) > 0) {
-			b.Fatalf("round %d: diagnostics %+v", i, p.Diagnostics)
+		if broken := i%2 == 0; broken != (len(p.Diagnostics) > base) {
+			b.Fatalf("round %d: %d diagnostics, %d before the edit", i, len(p.Diagnostics), base)
 		}
 	}
 }

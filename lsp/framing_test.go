@@ -109,7 +109,7 @@ func startRaw(t *testing.T) *rawClient {
 	t.Helper()
 	srvEnd, cliEnd := net.Pipe()
 	rc := &rawClient{conn: cliEnd, messages: make(chan map[string]any, 100), status: make(chan int, 1), log: &syncBuffer{}}
-	srv := newServer(Options{Log: rc.log, Debounce: time.Millisecond})
+	srv := newServer(Options{Log: rc.log})
 	go func() { rc.status <- srv.serve(context.Background(), srvEnd, srvEnd) }()
 	go func() {
 		r := bufio.NewReader(cliEnd)

@@ -61,7 +61,7 @@ func FuzzSession(f *testing.F) {
 		for _, body := range bytes.Split(data, []byte{0}) {
 			in.WriteString(frame(string(body)))
 		}
-		srv := newServer(Options{Debounce: -1, Files: noFiles{}})
+		srv := newServer(Options{Files: noFiles{}})
 		srv.serve(context.Background(), &in, io.Discard)
 		if srv.panics > 0 {
 			t.Fatalf("the server caught %d panics", srv.panics)

@@ -59,9 +59,6 @@ func startServer(t testing.TB, opts Options, setup ...func(*server)) *client {
 	if opts.Log == nil {
 		opts.Log = logs
 	}
-	if opts.Debounce == 0 {
-		opts.Debounce = 10 * time.Millisecond
-	}
 	srvEnd, cliEnd := net.Pipe()
 	srv := newServer(opts)
 	for _, f := range setup {

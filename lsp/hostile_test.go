@@ -1,6 +1,7 @@
 package lsp
 
 import (
+	"context"
 	"fmt"
 	"os"
 	"path/filepath"
@@ -39,7 +40,7 @@ func TestOpenIncludeChainCompilesOnce(t *testing.T) {
 		overlay.Files[d.path] = d.text
 	}
 	start := time.Now()
-	roots := w.chooseRoots(docs, open, overlay)
+	roots := w.chooseRoots(context.Background(), docs, open, overlay)
 	t.Logf("%d open documents in a chain: %d compiles, %v", n, w.compiles.Load(), time.Since(start))
 	if got := w.compiles.Load(); got != 1 {
 		t.Errorf("%d compiles, want 1", got)
@@ -53,7 +54,7 @@ func TestOpenIncludeChainCompilesOnce(t *testing.T) {
 // refusal, and a normal document opened after them gets its diagnostics.
 func TestHostileDocuments(t *testing.T) {
 	dir := t.TempDir()
-	c := startServer(t, Options{Debounce: -1})
+	c := startServer(t, Options{})
 	var res InitializeResult
 	c.mustCall("initialize", map[string]any{
 		"processId": nil, "rootUri": nil, "capabilities": map[string]any{},
@@ -110,7 +111,7 @@ func TestOpenDocumentsIncludingEachOther(t *testing.T) {
 	s := newServer(Options{})
 	open := map[string]document{a: docs[0], b: docs[1]}
 	overlay := network.Overlay{Files: map[string][]byte{a: docs[0].text, b: docs[1].text}, Base: network.Disk{}}
-	roots := s.worker.chooseRoots(docs, open, overlay)
+	roots := s.worker.chooseRoots(context.Background(), docs, open, overlay)
 	if got := s.worker.compiles.Load(); got != 2 || len(roots) != 1 {
 		t.Errorf("%d compiles, %d roots; want 2 and 1", got, len(roots))
 	}
@@ -122,7 +123,7 @@ func TestWorkspaceFolderAdded(t *testing.T) {
 	if err := os.WriteFile(filepath.Join(shared, "gases.hess"), []byte("species H2(g), H(g)\n"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	c := startServer(t, Options{Debounce: -1})
+	c := startServer(t, Options{})
 	var res InitializeResult
 	c.mustCall("initialize", map[string]any{"processId": nil, "rootUri": pathToURI(dir), "capabilities": map[string]any{}}, &res)
 	if res.Capabilities.Workspace == nil || !res.Capabilities.Workspace.WorkspaceFolders.ChangeNotifications {

@@ -17,7 +17,7 @@ var goNames = regexp.MustCompile(`\bGo (struct|value)\b|\blsp\.|\bjson\.|\b(uint
 // TestRequiredParams: a request that lacks a member the protocol requires
 // is answered InvalidParams, naming the member, not read with a zero value.
 func TestRequiredParams(t *testing.T) {
-	c := startServer(t, Options{Debounce: -1})
+	c := startServer(t, Options{})
 	c.initialize()
 	const uri = "file:///work/plant.hess"
 	c.open(uri, "species H2(g) { hf 0 kJ/mol  s 130.68 J/mol/K }\n", 1)
@@ -91,7 +91,7 @@ func TestJSONErrorText(t *testing.T) {
 // pseudo-folder for such buffers.
 func TestUntitledIncludeMessage(t *testing.T) {
 	const uri = "untitled:Untitled-1"
-	c := startServer(t, Options{Debounce: -1})
+	c := startServer(t, Options{})
 	c.initialize()
 	c.open(uri, "include \"lib/gases.hess\"\nspecies H2(g) { hf 0 kJ/mol  s 130.68 J/mol/K }\n", 1)
 	p := c.waitDiagnostics(uri, atVersion(1))

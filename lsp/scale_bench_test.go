@@ -31,7 +31,7 @@ func BenchmarkEditToDiagnosticsSynthetic(b *testing.B) {
 	}
 	at := uint32(strings.Index(lines[line], ": ") + 2)
 	uri := fileURI(b.TempDir(), "mechanism.hess")
-	c := startServer(b, Options{Debounce: -1})
+	c := startServer(b, Options{})
 	c.initialize()
 	c.open(uri, text, 1)
 	base := len(c.waitDiagnostics(uri, atVersion(1)).Diagnostics)

@@ -9,24 +9,16 @@ import (
 	"log"
 	"runtime/debug"
 	"sync"
-	"time"
 
 	"github.com/sourcegraph/jsonrpc2"
 
 	"hess/network"
 )
 
-// DefaultDebounce is how long the server waits after the last change to a
-// document before it compiles.
-const DefaultDebounce = 150 * time.Millisecond
-
 // Options configure a server.
 type Options struct {
 	// Version is reported to the client in serverInfo.
 	Version string
-	// Debounce is the wait after a change before compiling; zero means
-	// DefaultDebounce, a negative value compiles at once.
-	Debounce time.Duration
 	// Log receives the server's log (never the protocol stream); nil
 	// discards it.
 	Log io.Writer
@@ -86,9 +78,6 @@ func Serve(ctx context.Context, in io.Reader, out io.Writer, opts Options) int {
 }
 
 func newServer(opts Options) *server {
-	if opts.Debounce == 0 {
-		opts.Debounce = DefaultDebounce
-	}
 	if opts.Files == nil {
 		opts.Files = network.Disk{}
 	}
@@ -391,7 +380,7 @@ func (s *server) didChangeWorkspaceFolders(ctx context.Context, req *jsonrpc2.Re
 	s.docs.invalidate()
 	docs, _ := s.docs.snapshot()
 	for _, d := range docs {
-		s.worker.schedule(d.path, false, true)
+		s.worker.schedule(d.path, true)
 	}
 	return nil, nil
 }

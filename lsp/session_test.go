@@ -255,7 +255,7 @@ func TestUntitledBuffer(t *testing.T) {
 		"species O2(g) { hf 0 kJ/mol  s 205.15 J/mol/K }\n" +
 		"species H2O(g) { hf -241.826 kJ/mol  s 188.835 J/mol/K }\n" +
 		"reaction burn: H2(g) + O2(g) -> H2O(g)\n"
-	c := startServer(t, Options{Debounce: -1})
+	c := startServer(t, Options{})
 	c.initialize()
 	c.open(uri, text, 1)
 	p := c.waitDiagnostics(uri, atVersion(1))

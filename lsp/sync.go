@@ -20,7 +20,7 @@ func (s *server) didOpen(ctx context.Context, req *jsonrpc2.Request) (any, error
 		return nil, fmt.Errorf("opening a document: %w", err)
 	}
 	s.docs.open(p.TextDocument.URI, path, p.TextDocument.Version, []byte(p.TextDocument.Text))
-	s.worker.schedule(path, false, true)
+	s.worker.schedule(path, true)
 	return nil, nil
 }
 
@@ -33,7 +33,7 @@ func (s *server) didChange(ctx context.Context, req *jsonrpc2.Request) (any, err
 		return nil, fmt.Errorf("ignoring a change: %w", err)
 	}
 	path, _ := s.docs.pathOf(p.TextDocument.URI)
-	s.worker.schedule(path, true, false)
+	s.worker.schedule(path, false)
 	return nil, nil
 }
 
@@ -46,7 +46,7 @@ func (s *server) didSave(ctx context.Context, req *jsonrpc2.Request) (any, error
 		return nil, fmt.Errorf("save of %s, which is not open", p.TextDocument.URI)
 	}
 	path, _ := s.docs.pathOf(p.TextDocument.URI)
-	s.worker.schedule(path, false, true)
+	s.worker.schedule(path, true)
 	return nil, nil
 }
 
@@ -59,6 +59,6 @@ func (s *server) didClose(ctx context.Context, req *jsonrpc2.Request) (any, erro
 	if !ok {
 		return nil, fmt.Errorf("close of %s, which is not open", p.TextDocument.URI)
 	}
-	s.worker.schedule(path, false, true)
+	s.worker.schedule(path, true)
 	return nil, nil
 }

@@ -8,7 +8,6 @@ import (
 	"strings"
 	"sync"
 	"sync/atomic"
-	"time"
 
 	"github.com/sourcegraph/jsonrpc2"
 
@@ -16,17 +15,18 @@ import (
 )
 
 // worker compiles the open documents off the read loop and publishes their
-// diagnostics. Handlers only schedule it: a change starts (or restarts) a
-// timer for its document, open, save and close wake it at once. Each
-// cycle compiles the latest text of every open document, so a burst of
-// changes costs one compile.
+// diagnostics. Handlers only schedule it: every change, open, save and
+// close wakes it at once and cancels the cycle in progress, which then
+// publishes nothing. Each cycle compiles the latest text of every open
+// document, so a burst of changes that arrives faster than a compile
+// costs one finished compile, of the last text.
 type worker struct {
 	s    *server
 	wake chan struct{} // capacity 1: a pending wake-up
 
 	mu       sync.Mutex
-	timers   map[string]*time.Timer // by path: debounce timers
-	force    map[string]bool        // paths to publish even when unchanged
+	force    map[string]bool    // paths to publish even when unchanged
+	cancel   context.CancelFunc // cancels the cycle in progress
 	stopped  bool
 	done     chan struct{}
 	stopOnce sync.Once
@@ -64,7 +64,6 @@ func newWorker(s *server) *worker {
 	return &worker{
 		s:         s,
 		wake:      make(chan struct{}, 1),
-		timers:    map[string]*time.Timer{},
 		force:     map[string]bool{},
 		done:      make(chan struct{}),
 		cache:     map[string]*compiled{},
@@ -74,10 +73,11 @@ func newWorker(s *server) *worker {
 	}
 }
 
-// schedule asks for a compile: after the debounce delay when debounce is
-// set (each call restarts the document's timer), else at once. force makes
-// the next cycle publish the document's diagnostics even when unchanged.
-func (w *worker) schedule(path string, debounce, force bool) {
+// schedule asks for a compile at once: the cycle in progress, which may
+// have read the text before this change, is cancelled, and the next one
+// starts over with the latest text. force makes the next finished cycle
+// publish the document's diagnostics even when unchanged.
+func (w *worker) schedule(path string, force bool) {
 	w.mu.Lock()
 	defer w.mu.Unlock()
 	if w.stopped {
@@ -86,15 +86,10 @@ func (w *worker) schedule(path string, debounce, force bool) {
 	if force {
 		w.force[path] = true
 	}
-	if t := w.timers[path]; t != nil {
-		t.Stop()
-		delete(w.timers, path)
-	}
-	if debounce && w.s.opts.Debounce > 0 {
-		w.timers[path] = time.AfterFunc(w.s.opts.Debounce, w.kick)
-		return
-	}
 	w.kick()
+	if w.cancel != nil {
+		w.cancel()
+	}
 }
 
 func (w *worker) kick() {
@@ -104,14 +99,14 @@ func (w *worker) kick() {
 	}
 }
 
-// stop ends the worker: no timer fires and no cycle starts after it.
+// stop ends the worker: the cycle in progress is cancelled and no cycle
+// starts after it.
 func (w *worker) stop() {
 	w.stopOnce.Do(func() {
 		w.mu.Lock()
 		w.stopped = true
-		for p, t := range w.timers {
-			t.Stop()
-			delete(w.timers, p)
+		if w.cancel != nil {
+			w.cancel()
 		}
 		w.mu.Unlock()
 		close(w.done)
@@ -128,12 +123,16 @@ func (w *worker) run(ctx context.Context, conn *jsonrpc2.Conn) {
 			return
 		case <-w.wake:
 		}
-		select {
-		case <-w.done:
+		w.mu.Lock()
+		if w.stopped {
+			w.mu.Unlock()
 			return
-		default:
 		}
-		w.cycle(ctx, conn)
+		cycleCtx, cancel := context.WithCancel(ctx)
+		w.cancel = cancel
+		w.mu.Unlock()
+		w.cycle(ctx, cycleCtx, conn)
+		cancel()
 	}
 }
 
@@ -142,13 +141,26 @@ func (w *worker) run(ctx context.Context, conn *jsonrpc2.Conn) {
 func (w *worker) current() *snapshot { return w.cur.Load() }
 
 // cycle compiles every open document's network and publishes the
-// diagnostics that changed.
-func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
+// diagnostics that changed. Once cycleCtx is done (a newer change came)
+// the cycle stops compiling and publishes nothing; what it was asked to
+// publish is left for the next cycle. ctx is the session's.
+func (w *worker) cycle(ctx, cycleCtx context.Context, conn *jsonrpc2.Conn) {
 	docs, epoch := w.s.docs.snapshot()
 	w.mu.Lock()
 	force := w.force
 	w.force = map[string]bool{}
 	w.mu.Unlock()
+	cancelled := func() bool {
+		if cycleCtx.Err() == nil {
+			return false
+		}
+		w.mu.Lock()
+		for p := range force {
+			w.force[p] = true
+		}
+		w.mu.Unlock()
+		return true
+	}
 
 	open := make(map[string]document, len(docs))
 	overlay := network.Overlay{Files: make(map[string][]byte, len(docs)), Base: w.s.opts.Files}
@@ -163,7 +175,10 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 		w.cacheEpoch = epoch
 	}
 
-	roots := w.chooseRoots(docs, open, overlay)
+	roots := w.chooseRoots(cycleCtx, docs, open, overlay)
+	if cancelled() {
+		return
+	}
 	owners := map[string]string{}
 	for _, r := range roots {
 		for _, f := range r.net.Files {
@@ -195,6 +210,9 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 		return pathToURI(path)
 	}
 	diags := collect(roots, snap, uriOf, w.s.encoding())
+	if cancelled() {
+		return
+	}
 	w.cur.Store(snap)
 	w.publish(ctx, conn, diags, open, uriOf, force)
 	w.solveFeeds(roots)
@@ -205,8 +223,8 @@ func (w *worker) cycle(ctx context.Context, conn *jsonrpc2.Conn) {
 // network includes it. A document that was included last time is first
 // assumed to be included still; if its includer no longer reads it, it is
 // compiled as a root of its own in a second round.
-func (w *worker) chooseRoots(docs []document, open map[string]document, src network.Source) []*compiled {
-	rc := &rootChoice{w: w, open: open, src: src, nets: map[string]*compiled{}, tried: map[string]bool{},
+func (w *worker) chooseRoots(ctx context.Context, docs []document, open map[string]document, src network.Source) []*compiled {
+	rc := &rootChoice{ctx: ctx, w: w, open: open, src: src, nets: map[string]*compiled{}, tried: map[string]bool{},
 		chosen: map[string]bool{}, covered: map[string]bool{}}
 	rc.compileFirstRound(docs)
 	rc.pick()
@@ -219,6 +237,7 @@ func (w *worker) chooseRoots(docs []document, open map[string]document, src netw
 // rootChoice is one choice of roots in progress: the networks compiled so
 // far, and those chosen for publishing with the files they cover.
 type rootChoice struct {
+	ctx   context.Context // the cycle's: once done, nothing more compiles
 	w     *worker
 	open  map[string]document
 	src   network.Source
@@ -233,7 +252,7 @@ type rootChoice struct {
 // compileRoot compiles path as a root, keeping the network when it loads.
 func (rc *rootChoice) compileRoot(path string) {
 	rc.tried[path] = true
-	if c := rc.w.compile(path, rc.open, rc.src); c != nil {
+	if c := rc.w.compile(rc.ctx, path, rc.open, rc.src); c != nil {
 		rc.nets[path] = c
 	}
 }
@@ -343,8 +362,11 @@ func withoutIncluded(roots []*compiled) []*compiled {
 
 // compile loads the network rooted at path, or reuses the last one when
 // none of its open files changed. A compile that fails inside the compiler
-// is logged and yields nil.
-func (w *worker) compile(path string, open map[string]document, src network.Source) (c *compiled) {
+// is logged and yields nil, and so does one cancelled through ctx.
+func (w *worker) compile(ctx context.Context, path string, open map[string]document, src network.Source) (c *compiled) {
+	if ctx.Err() != nil {
+		return nil
+	}
 	if old := w.cache[path]; old != nil && old.key == inputKey(old.net, open) {
 		return old
 	}
@@ -361,7 +383,10 @@ func (w *worker) compile(path string, open map[string]document, src network.Sour
 	if w.beforeCompile != nil {
 		w.beforeCompile(path)
 	}
-	net := network.Load(path, src, network.Options{Caches: w.parsed, IncludePaths: w.s.includePaths()})
+	net, err := network.LoadContext(ctx, path, src, network.Options{Caches: w.parsed, IncludePaths: w.s.includePaths()})
+	if err != nil {
+		return nil
+	}
 	c = &compiled{net: net, key: inputKey(net, open), feeds: &feedResults{byName: map[string]feedResult{}}}
 	w.cache[path] = c
 	return c

@@ -1,9 +1,9 @@
 package lsp
 
 import (
-	"fmt"
 	"slices"
 	"strings"
+	"sync"
 	"testing"
 	"time"
 )
@@ -104,25 +104,54 @@ func TestUTF8Negotiated(t *testing.T) {
 	}
 }
 
-// TestChangesWaitForTheDebounce: changes alone do not compile before the
-// debounce delay ends; a save compiles at once.
-func TestChangesWaitForTheDebounce(t *testing.T) {
+// TestNewerChangeCancelsCompile: a change compiles at once; changes that
+// arrive while it runs cancel it, so that nothing is published for the
+// text it read, and the next compile, of the latest text, is published.
+func TestNewerChangeCancelsCompile(t *testing.T) {
 	dir := t.TempDir()
 	writeFile(t, dir, "gases.hess", gasesLib)
 	plant := fileURI(dir, "plant.hess")
-	c := startServer(t, Options{Debounce: time.Hour})
+	hold := make(chan struct{})
+	holding := make(chan struct{}, 10)
+	var mu sync.Mutex
+	calls := 0
+	c := startServer(t, Options{}, func(s *server) {
+		s.worker.beforeCompile = func(string) {
+			mu.Lock()
+			calls++
+			n := calls
+			mu.Unlock()
+			if n == 2 { // the compile of version 2
+				holding <- struct{}{}
+				<-hold
+			}
+		}
+	})
 	c.initialize()
 	c.open(plant, shiftPlant, 1)
 	c.waitDiagnostics(plant, atVersion(1))
-	for v := int32(2); v <= 4; v++ {
-		c.change(plant, v, insert(pos(2, 0), fmt.Sprintf("# edit %d\n", v)))
+	c.change(plant, 2, insert(pos(2, 0), "# edit 2\n"))
+	select {
+	case <-holding:
+	case <-time.After(waitLimit):
+		t.Fatal("the change did not start a compile at once")
 	}
-	c.notify("textDocument/didSave", DidSaveTextDocumentParams{TextDocument: TextDocumentIdentifier{URI: plant}})
-	if p := c.waitDiagnostics(plant, anyPublish); p.Version == nil || *p.Version != 4 {
-		t.Errorf("publish after save: %+v, want version 4", p)
+	c.change(plant, 3, insert(pos(2, 0), "# edit 3\n"))
+	c.change(plant, 4, insert(pos(2, 0), "reaction split: H2(g) <-> 2 H2O(g)\n"))
+	// A request is answered after the changes: they have been stored and
+	// the compile of version 2 cancelled before it is let go.
+	var syms []DocumentSymbol
+	c.mustCall("textDocument/documentSymbol", DocumentSymbolParams{TextDocument: TextDocumentIdentifier{URI: plant}}, &syms)
+	close(hold)
+	p := c.waitDiagnostics(plant, anyPublish)
+	if p.Version == nil || *p.Version != 4 {
+		t.Fatalf("first publish after the changes: version %v, want 4 (2 was cancelled, 3 never compiled)", p.Version)
 	}
-	if n := c.srv.worker.compiles.Load(); n != 2 {
-		t.Errorf("%d compiles, want 2 (open and save; the changes wait for the debounce)", n)
+	if got := codes(p); !contains(got, "element-imbalance") {
+		t.Errorf("diagnostics of version 4: %v", got)
+	}
+	if n := c.srv.worker.compiles.Load(); n != 3 {
+		t.Errorf("%d compiles started, want 3 (version 1, version 2 cancelled, version 4)", n)
 	}
 }
 
@@ -135,7 +164,7 @@ func TestRequestsDoNotWaitForCompiles(t *testing.T) {
 	hold := make(chan struct{})
 	holding := make(chan struct{}, 10)
 	first := true
-	c := startServer(t, Options{Debounce: -1}, func(s *server) {
+	c := startServer(t, Options{}, func(s *server) {
 		s.worker.beforeCompile = func(string) {
 			if first {
 				first = false

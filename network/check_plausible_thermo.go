@@ -14,7 +14,7 @@ import (
 // value of each kind, found exactly (thermo.RangeExtremes): at a bound, or
 // where Cp° or its slope changes sign.
 func implausiblePolynomials(p *Pass) {
-	for _, sp := range p.Net.Species {
+	p.eachSpecies("implausible-value/polynomials", func(sp *Species) {
 		for _, r := range sp.Ranges {
 			m, ok := r.model().(thermo.Polynomial)
 			if !ok {
@@ -50,5 +50,5 @@ func implausiblePolynomials(p *Pass) {
 				p.Reportf(r.Header(), "%s gives H° = %.4g kJ/mol at %s, beyond ±%g kJ/mol; check the coefficients", where(), maxH/1000, kelvin(tMaxH), maxFormationEnergy/1000)
 			}
 		}
-	}
+	})
 }

@@ -53,15 +53,15 @@ const cpJumpFraction = 0.01
 // eachJoin reports the joins of the given kind between the ranges of every
 // species.
 func eachJoin(p *Pass, kind thermo.JoinKind) {
-	for _, sp := range p.Net.Species {
+	p.eachSpecies(p.check.Name, func(sp *Species) {
 		if len(sp.Ranges) < 2 {
-			continue
+			return
 		}
 		// The species' model is its ranges in sortedRanges order, built
 		// once for the network; it is nil when some range is unusable.
 		pw, ok := sp.Model().(*thermo.Piecewise)
 		if !ok {
-			continue
+			return
 		}
 		ranges := sortedRanges(sp.Ranges)
 		for _, j := range pw.Joins() {
@@ -92,7 +92,7 @@ func eachJoin(p *Pass, kind thermo.JoinKind) {
 					sp.Key, kelvin(j.T), signed(j.DCp), signed(j.DH/1000), signed(j.DS))})
 			}
 		}
-	}
+	})
 }
 
 // jumps reports whether a join's steps exceed what range-discontinuity

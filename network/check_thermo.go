@@ -31,10 +31,10 @@ that a reaction evaluated in the mixture uses; hess approach marks those
 values as extrapolated.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
-		for _, sp := range p.Net.Species {
+		p.eachSpecies("extrapolation/species", func(sp *Species) {
 			m := sp.Model()
 			if !sp.Used || m == nil || isGibbsOnly(m) {
-				continue
+				return
 			}
 			var out []float64
 			for _, T := range temps {
@@ -43,7 +43,7 @@ values as extrapolated.`,
 				}
 			}
 			if len(out) == 0 {
-				continue
+				return
 			}
 			verb := "is"
 			if len(out) > 1 {
@@ -51,7 +51,7 @@ values as extrapolated.`,
 			}
 			p.Reportf(sp.Span, "%s %s outside the data of %s (%s); values there are extrapolated",
 				kelvinList(out), verb, sp.Key, coverageText(sp, m))
-		}
+		})
 		for _, rx := range p.Net.Reactions {
 			extrapolatedOwnData(p, rx, temps)
 		}
@@ -318,13 +318,13 @@ or a mistyped coefficient (the F or H parameter of a Shomate fit, a6 or a7
 of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 	Run: func(p *Pass) {
 		tol := p.Net.Settings.Tolerance
-		for _, sp := range p.Net.Species {
+		p.eachSpecies(p.check.Name, func(sp *Species) {
 			if len(sp.Ranges) == 0 {
-				continue
+				return
 			}
 			m := sp.Model()
 			if m == nil || !covers(m, thermo.T298) {
-				continue
+				return
 			}
 			// The range that answers at 298.15 K, named beside each
 			// disagreement; worked out only for a species that has one.
@@ -359,7 +359,7 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 						sp.Key, cp, v.V, 100*math.Abs(d)/math.Abs(cp))})
 				}
 			}
-		}
+		})
 	},
 }
 

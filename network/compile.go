@@ -1,6 +1,7 @@
 package network
 
 import (
+	"context"
 	"fmt"
 	"strings"
 
@@ -71,7 +72,12 @@ var builtinPhases = map[string]Convention{
 	"g": IdealGas, "l": Pure, "s": Pure, "cr": Pure, "aq": Solute,
 }
 
-func compile(n *Network) {
+// compileContext compiles the loaded files of n in passes, giving up with
+// ctx's error between passes once ctx is done (n is then half built and
+// must be dropped). With a memo, reactions compiled by the last compile of
+// the same root are reused where nothing they depend on changed, and the
+// memo is updated once the compile completes.
+func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	c := &compiler{net: n, near: &nearIndexes{}}
 	n.Elements = chem.BuiltinElements()
 	n.Phases = map[string]*Phase{}
@@ -140,14 +146,40 @@ func compile(n *Network) {
 			}
 		}
 	})
-	c.speciesData(species)
+	if err := ctx.Err(); err != nil {
+		return err
+	}
+	var elements string
+	var speciesEntries map[*lang.Species]*memoSpecies
+	var from map[*Species]*Species
+	if memo != nil {
+		elements = elementsEnv(n)
+		speciesEntries, from = c.speciesDataReusing(species, memo, elements)
+	} else {
+		c.speciesData(species)
+	}
+	if err := ctx.Err(); err != nil {
+		return err
+	}
 	reactions := make([]*lang.Statement, 0, nReactions)
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
 			reactions = append(reactions, st)
 		}
 	})
-	for _, b := range c.buildReactions(reactions) {
+	var built []builtReaction
+	var env string
+	var entries map[*lang.Statement]*memoReaction
+	if memo != nil {
+		env = speciesEnv(n)
+		built, entries = c.buildReactionsReusing(reactions, memo, env)
+	} else {
+		built = c.buildReactions(reactions)
+	}
+	if err := ctx.Err(); err != nil {
+		return err
+	}
+	for _, b := range built {
 		c.addReaction(b)
 	}
 	c.each(func(st *lang.Statement) {
@@ -158,8 +190,15 @@ func compile(n *Network) {
 			c.mixture(st.Mixture)
 		}
 	})
+	if err := ctx.Err(); err != nil {
+		return err
+	}
 	buildModels(n)
 	buildSolutions(n)
+	if memo != nil {
+		memo.commit(env, entries, elements, speciesEntries, from)
+	}
+	return nil
 }
 
 // each calls fn for every statement of every file, in load order.

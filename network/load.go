@@ -2,6 +2,7 @@ package network
 
 import (
 	"bytes"
+	"context"
 	"errors"
 	"fmt"
 	"io/fs"
@@ -37,8 +38,17 @@ type Options struct {
 // tree or a folder of opts.IncludePaths (symbolic links followed), and
 // within the limits of limits.go.
 func Load(root string, src Source, opts Options) *Network {
+	n, _ := LoadContext(context.Background(), root, src, opts)
+	return n
+}
+
+// LoadContext is Load that gives up when ctx is done: it looks at ctx
+// between files, between the compiler's passes and before each check, and
+// then returns a nil network and ctx's error. A load that is not cancelled
+// returns exactly what Load returns.
+func LoadContext(ctx context.Context, root string, src Source, opts Options) (*Network, error) {
 	n := &Network{Root: root, files: map[string]*File{}}
-	l := &loader{net: n, src: src, caches: opts.Caches, onStack: map[string]int{}}
+	l := &loader{ctx: ctx, net: n, src: src, caches: opts.Caches, onStack: map[string]int{}}
 	rootID := PathID(root)
 	l.allowed = append(l.allowed, realPath(filepath.Dir(rootID)))
 	shown := []string{filepath.Dir(root)}
@@ -48,17 +58,26 @@ func Load(root string, src Source, opts Options) *Network {
 	}
 	l.shown = strings.Join(shown, ", ")
 	l.load(root, rootID, lang.Span{})
-	compile(n)
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	memo := opts.Caches.memo(rootID)
+	if err := compileContext(ctx, n, memo); err != nil {
+		return nil, err
+	}
 	n.Temperatures = n.Settings.Temperatures
 	if opts.Temperatures != nil {
 		n.Temperatures = opts.Temperatures
 	}
-	runChecks(n)
+	if err := runChecks(ctx, n, memo); err != nil {
+		return nil, err
+	}
 	finalize(n)
-	return n
+	return n, nil
 }
 
 type loader struct {
+	ctx     context.Context // the load stops reading files once it is done
 	net     *Network
 	src     Source
 	caches  *ParseCaches
@@ -79,6 +98,9 @@ type chainLink struct {
 // load reads one file and, depth first, the files it includes. at is the
 // include that asked for it (none for the root).
 func (l *loader) load(path, id string, at lang.Span) {
+	if l.ctx.Err() != nil {
+		return
+	}
 	if i, ok := l.onStack[id]; ok {
 		l.cycle(i, path, at)
 		return
@@ -102,7 +124,7 @@ func (l *loader) load(path, id string, at lang.Span) {
 		return
 	}
 	l.bytes += int64(len(text))
-	ast, diags := lang.ParseCached(path, text, l.caches.file(id))
+	ast, diags := l.caches.file(id).parse(path, text)
 	f := &File{Path: path, ID: id, Source: text, AST: ast}
 	if included {
 		if why := notNetwork(text, ast, diags); why != "" {
@@ -345,7 +367,7 @@ func describeReadError(err error) string {
 // its include statements name, as the loader would reach them.
 func DirectIncludes(path string, text []byte, caches *ParseCaches) []string {
 	id := PathID(path)
-	ast, _ := lang.ParseCached(path, text, caches.file(id))
+	ast, _ := caches.file(id).parse(path, text)
 	var out []string
 	for _, st := range ast.Statements {
 		if inc := st.Include; inc != nil && inc.Path != nil {

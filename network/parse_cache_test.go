@@ -35,9 +35,12 @@ func TestLoadCachedMatchesLoad(t *testing.T) {
 	if !found {
 		t.Error("the edited reaction does not show as unbalanced")
 	}
-	hits, parsed := caches.file(PathID(name)).Reused()
-	if parsed != 0 || hits == 0 {
-		t.Errorf("third load of an unchanged file parsed %d statements and reused %d", parsed, hits)
+	if whole := caches.file(PathID(name)).whole; whole != 1 {
+		t.Errorf("third load of an unchanged file took its last parse whole %d times, want 1", whole)
+	}
+	hits, parsed := caches.file(PathID(name)).stmts.Reused()
+	if parsed != 1 || hits == 0 {
+		t.Errorf("the load of the edited file parsed %d statements and reused %d, want 1 parsed", parsed, hits)
 	}
 }
 

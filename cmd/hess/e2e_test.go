@@ -20,7 +20,7 @@ var (
 )
 
 // hessBinary builds the command once per test run.
-func hessBinary(t *testing.T) string {
+func hessBinary(t testing.TB) string {
 	t.Helper()
 	buildOnce.Do(func() {
 		dir, err := os.MkdirTemp("", "hess-e2e")

@@ -1,0 +1,304 @@
+package network
+
+import (
+	"fmt"
+	"slices"
+	"strconv"
+	"sync"
+
+	"hess/chem"
+	"hess/lang"
+)
+
+// Reuse of compiled reactions between loads (the language server's loads
+// through ParseCaches). A reaction statement's compiled form depends on
+// the statement itself (its text, file and place) and on the species the
+// network declares: which keys, in which order, with which formula and
+// charge (lookups, the balance facts, the hints of undefined-species). The
+// parse caches hand out the same *lang.Statement for a statement whose
+// text, file and place did not change, so a compile keyed by that pointer
+// and by a signature of the declared species (speciesEnv) is exactly what
+// compiling the statement again would give. Everything else a reaction
+// depends on (other reactions: names, combinations, duplicates) is worked
+// out after the build, in the serial passes, every time.
+
+// compileMemo is one root's compiled species data and reactions from its
+// last completed compile. It serves one load at a time.
+type compileMemo struct {
+	mu        sync.Mutex
+	env       string // speciesEnv of the compile the reactions are from
+	reactions map[*lang.Statement]*memoReaction
+	reused    int // reactions the latest compile took from the memo, for tests
+
+	elements      string // elementsEnv of the compile the species are from
+	species       map[*lang.Species]*memoSpecies
+	reusedSpecies int // species statements the latest compile took from the memo
+	// from maps each species of the latest compile whose data were taken
+	// from the memo to the species they were taken from.
+	from map[*Species]*Species
+
+	checks checkMemo // species-local check findings (check_reuse.go)
+}
+
+// memoReaction is a built reaction of the last compile, as buildReaction
+// made it: its rx is the network's own, which nothing changes after the
+// build but the combination pass (rx.Combo, cleared in every copy taken).
+// Its species are those of the network it was built for; a copy for
+// another network finds them again by key.
+type memoReaction struct {
+	built builtReaction
+}
+
+// memo returns the compile memo of the network rooted at the file with the
+// given identity; nil caches give nil.
+func (p *ParseCaches) memo(rootID string) *compileMemo {
+	if p == nil {
+		return nil
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	if p.memos == nil {
+		p.memos = map[string]*compileMemo{}
+	}
+	m := p.memos[rootID]
+	if m == nil {
+		m = &compileMemo{}
+		p.memos[rootID] = m
+	}
+	return m
+}
+
+// speciesEnv is the signature of what a reaction's compile reads of the
+// declared species: each one's key, charge and formula (as small whole
+// counts when it has them), in declaration order.
+func speciesEnv(n *Network) string {
+	b := make([]byte, 0, len(n.Species)*32)
+	for _, sp := range n.Species {
+		b = append(b, sp.Key...)
+		b = append(b, 0)
+		b = strconv.AppendInt(b, int64(sp.Charge), 10)
+		b = append(b, 0)
+		for _, f := range [3]bool{sp.HasFormula, sp.ints.known, sp.ints.ok} {
+			b = strconv.AppendBool(b, f)
+		}
+		// Small whole counts (ints.ok) are the formula; else the formula
+		// itself.
+		for _, e := range sp.Formula.Elements {
+			if sp.ints.ok {
+				break
+			}
+			b = append(b, 0)
+			b = append(b, e.Symbol...)
+			b = append(b, '=')
+			if e.Count != nil {
+				b = e.Count.Num().Append(b, 10)
+				b = append(b, '/')
+				b = e.Count.Denom().Append(b, 10)
+			}
+		}
+		for _, c := range sp.ints.counts {
+			b = append(b, 0)
+			b = append(b, c.key...)
+			b = append(b, '=')
+			b = strconv.AppendInt(b, c.n, 10)
+		}
+		b = append(b, '\n')
+	}
+	return string(b)
+}
+
+// buildReactionsReusing is buildReactions taking each statement that the
+// memo compiled under the same species from the memo. It returns the built
+// reactions and the memo entries for the next compile, which refer to
+// this compile's reactions (so that the last network is not kept).
+func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[*lang.Statement]*memoReaction) {
+	memo.mu.Lock()
+	var prev map[*lang.Statement]*memoReaction
+	if memo.env == env {
+		prev = memo.reactions
+	}
+	memo.mu.Unlock()
+	out := make([]builtReaction, len(sts))
+	reused := make([]bool, len(sts))
+	parallel(len(sts), 512, func() func(i int) {
+		w := c.worker(nil)
+		return func(i int) {
+			if m := prev[sts[i]]; m != nil {
+				out[i], reused[i] = m.restore(c.net), true
+				return
+			}
+			w.buildReaction(sts[i], &out[i])
+		}
+	})
+	next := make(map[*lang.Statement]*memoReaction, len(sts))
+	n := 0
+	for i, st := range sts {
+		next[st] = &memoReaction{built: out[i]}
+		if reused[i] {
+			n++
+		}
+	}
+	memo.mu.Lock()
+	memo.reused = n
+	memo.mu.Unlock()
+	return out, next
+}
+
+// commit keeps the entries of a completed compile: its reactions under
+// env, its species under elements.
+func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	m.env, m.reactions = env, entries
+	m.elements, m.species, m.from = elements, species, from
+}
+
+// restore builds a fresh copy of the entry for the network n, its species
+// found by key among n's (the species signature being equal, each key
+// names the species of the same declaration it named before).
+func (m *memoReaction) restore(n *Network) builtReaction {
+	b := m.built
+	b.diags = slices.Clone(m.built.diags)
+	b.propDiags = slices.Clone(m.built.propDiags)
+	b.mentioned = nil
+	for _, sp := range m.built.mentioned {
+		b.mentioned = append(b.mentioned, n.speciesByKey[sp.Key])
+	}
+	if rx := m.built.rx; rx != nil {
+		b.rx = copyReaction(rx)
+		b.rx.Combo = nil // set by the combination pass, after the build
+		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
+			for i, t := range side {
+				if t.Species != nil {
+					side[i].Species = n.speciesByKey[t.Species.Key]
+				}
+			}
+		}
+	}
+	return b
+}
+
+// copyReaction copies a reaction as built (no combination yet) so that the
+// copy shares nothing that may change: terms, values, logk and rates are
+// copied; coefficients are shared, as they are never changed in place.
+func copyReaction(rx *Reaction) *Reaction {
+	out := *rx
+	out.Left = slices.Clone(rx.Left)
+	out.Right = slices.Clone(rx.Right)
+	out.Dg, out.Dh, out.Ds = copyValue(rx.Dg), copyValue(rx.Dh), copyValue(rx.Ds)
+	out.LogK = slices.Clone(rx.LogK)
+	if rx.Rate != nil {
+		r := *rx.Rate
+		out.Rate = &r
+	}
+	if rx.Reverse != nil {
+		r := *rx.Reverse
+		out.Reverse = &r
+	}
+	return &out
+}
+
+func copyValue(v *Value) *Value {
+	if v == nil {
+		return nil
+	}
+	c := *v
+	return &c
+}
+
+// A species statement's data (speciesStatement: label, values, ranges,
+// source and note, formula) depend on the statement itself (text, file,
+// place: the pointer the parse caches hand out), on which of its species
+// were declared (not duplicates of earlier ones), and on the element table
+// that formulas are read against (elementsEnv); nothing else of the
+// network. The data are never changed after the statement's compile, so a
+// later network's species may share them with the last one's.
+
+// memoSpecies is a species statement of the last compile: its declared
+// species, as that network holds them, and the diagnostics of its data.
+type memoSpecies struct {
+	declared []*Species
+	diags    lang.Diagnostics
+}
+
+// elementsEnv is the signature of the element table formulas are read
+// against.
+func elementsEnv(n *Network) string {
+	if n.Elements == chem.BuiltinElements() {
+		return "builtin"
+	}
+	return fmt.Sprint(n.Elements.Elements())
+}
+
+// speciesDataReusing is speciesData taking the data of each statement that
+// the memo compiled with the same species declared and the same elements
+// from the memo. It returns the entries for the next compile, and which
+// species took their data from which of the last compile's.
+func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, map[*Species]*Species) {
+	memo.mu.Lock()
+	var prev map[*lang.Species]*memoSpecies
+	if memo.elements == elements {
+		prev = memo.species
+	}
+	memo.mu.Unlock()
+	diags := make([]lang.Diagnostics, len(list))
+	reused := make([]bool, len(list))
+	parallel(len(list), 256, func() func(i int) {
+		w := &compiler{net: c.net}
+		return func(i int) {
+			if m := prev[list[i].st]; m != nil && sameKeys(m.declared, list[i].declared) {
+				for j, sp := range list[i].declared {
+					copySpeciesData(sp, m.declared[j])
+				}
+				diags[i], reused[i] = slices.Clone(m.diags), true
+				return
+			}
+			w.out = &diags[i]
+			w.speciesStatement(list[i])
+		}
+	})
+	next := make(map[*lang.Species]*memoSpecies, len(list))
+	from := map[*Species]*Species{}
+	n := 0
+	for i, d := range list {
+		c.net.Diagnostics = append(c.net.Diagnostics, diags[i]...)
+		next[d.st] = &memoSpecies{declared: d.declared, diags: diags[i]}
+		if reused[i] {
+			n++
+			for j, sp := range d.declared {
+				from[sp] = prev[d.st].declared[j]
+			}
+		}
+	}
+	memo.mu.Lock()
+	memo.reusedSpecies = n
+	memo.mu.Unlock()
+	return next, from
+}
+
+// sameKeys reports whether two lists declare the same species keys.
+func sameKeys(a, b []*Species) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i].Key != b[i].Key {
+			return false
+		}
+	}
+	return true
+}
+
+// copySpeciesData gives dst the data that speciesStatement read into src:
+// every field it sets. (TestIncrementalLoadMatchesFresh compares every
+// field of the species with a fresh compile's, so a field added to that
+// statement's compile and not here fails it.)
+func copySpeciesData(dst, src *Species) {
+	dst.Label = src.Label
+	dst.Formula, dst.HasFormula, dst.ints = src.Formula, src.HasFormula, src.ints
+	dst.Hf, dst.Gf, dst.S, dst.Cp = src.Hf, src.Gf, src.S, src.Cp
+	dst.Size, dst.Setschenow = src.Size, src.Setschenow
+	dst.Ranges = slices.Clone(src.Ranges)
+	dst.Source, dst.Note = src.Source, src.Note
+	dst.BrokenData = src.BrokenData
+}
