@@ -317,6 +317,17 @@ func (d *dumper) value(v reflect.Value, depth int) {
 				return
 			}
 		}
+		if v.Type().Elem().PkgPath() == "hess/lang" {
+			// A syntax-tree node the model keeps (a reaction's statement,
+			// a range's polynomial) counts by where it is, not by how the
+			// parse that made it grouped its tokens: a statement taken
+			// from the cache and a fresh parse of it must compare equal.
+			p := reflect.NewAt(v.Type().Elem(), v.UnsafePointer()) // readable even through an unexported field
+			if s, ok := p.Interface().(interface{ Span() lang.Span }); ok {
+				fmt.Fprintf(&d.b, "&node(%v)", s.Span())
+				return
+			}
+		}
 		if d.seen[v.Pointer()] {
 			d.b.WriteString("&seen")
 			return

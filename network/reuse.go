@@ -295,7 +295,8 @@ func sameKeys(a, b []*Species) bool {
 // statement's compile and not here fails it.)
 func copySpeciesData(dst, src *Species) {
 	dst.Label = src.Label
-	dst.Formula, dst.HasFormula, dst.ints = src.Formula, src.HasFormula, src.ints
+	dst.Formula, dst.HasFormula = src.Formula, src.HasFormula
+	dst.ints.copyFrom(&src.ints)
 	dst.Hf, dst.Gf, dst.S, dst.Cp = src.Hf, src.Gf, src.S, src.Cp
 	dst.Size, dst.Setschenow = src.Size, src.Setschenow
 	dst.Ranges = slices.Clone(src.Ranges)

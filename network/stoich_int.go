@@ -139,6 +139,17 @@ func (si *speciesInts) setFormula(f chem.Formula) {
 	si.known = true
 }
 
+// copyFrom makes si a copy of src whose counts, when src keeps them
+// inline, are si's own inline ones (a copy must not point into the
+// species it was copied from, or a chain of copies would keep every one
+// before it alive).
+func (si *speciesInts) copyFrom(src *speciesInts) {
+	*si = *src
+	if n := len(src.counts); n > 0 && n <= len(src.inline) && &src.counts[0] == &src.inline[0] {
+		si.counts = si.inline[:n:n]
+	}
+}
+
 // unchargedSpecies reports whether every species of the reaction is
 // neutral, so that it balances in charge whatever its coefficients.
 func unchargedSpecies(rx *Reaction) bool {

@@ -3,6 +3,8 @@ package network
 import (
 	"math/big"
 	"testing"
+
+	"hess/chem"
 )
 
 // TestIntegerFastPathsAgree compares the integer fast paths with the exact
@@ -90,5 +92,23 @@ func TestUnchargedSpecies(t *testing.T) {
 	}
 	if unchargedSpecies(n.LookupReaction("r2")) {
 		t.Error("r2 has a cation")
+	}
+}
+
+// TestSpeciesIntsCopyOwnsItsCounts checks that a copy of a species'
+// inline counts reads its own array, not the original's.
+func TestSpeciesIntsCopyOwnsItsCounts(t *testing.T) {
+	f, err := chem.ParseFormula("CH4", chem.BuiltinElements())
+	if err != nil {
+		t.Fatal(err)
+	}
+	var src, dst speciesInts
+	src.setFormula(f)
+	dst.copyFrom(&src)
+	if len(dst.counts) != 2 || &dst.counts[0] != &dst.inline[0] {
+		t.Fatalf("copy's counts %v do not lie in its own inline array", dst.counts)
+	}
+	if dst.counts[0] != src.counts[0] || dst.counts[1] != src.counts[1] || !dst.ok || !dst.known {
+		t.Fatalf("copy %+v differs from %+v", dst, src)
 	}
 }
