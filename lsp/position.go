@@ -1,6 +1,7 @@
 package lsp
 
 import (
+	"bytes"
 	"sort"
 	"unicode/utf8"
 )
@@ -43,6 +44,18 @@ type lines struct {
 
 func newLines(text []byte) *lines {
 	starts := make([]int, 1, 1+len(text)/32)
+	if bytes.IndexByte(text, '\r') < 0 {
+		// Only \n ends a line: find each with the library's fast search
+		// (a document of megabytes is indexed on every change).
+		for at := 0; ; {
+			i := bytes.IndexByte(text[at:], '\n')
+			if i < 0 {
+				return &lines{text: text, starts: starts}
+			}
+			at += i + 1
+			starts = append(starts, at)
+		}
+	}
 	for i := 0; i < len(text); i++ {
 		switch text[i] {
 		case '\n':

@@ -1,7 +1,9 @@
 package lsp
 
 import (
+	"math/rand/v2"
 	"path/filepath"
+	"slices"
 	"testing"
 	"unicode/utf16"
 	"unicode/utf8"
@@ -132,6 +134,27 @@ func TestURIs(t *testing.T) {
 	for _, bad := range []string{"untitled:", "git:/x.hess", "file://elsewhere/x.hess", "file:x.hess", "%zz"} {
 		if _, err := uriToPath(bad); err == nil {
 			t.Errorf("%q accepted", bad)
+		}
+	}
+}
+
+// TestNewLinesFastPath checks the index of a text without carriage
+// returns, found with bytes.IndexByte, against a byte-by-byte count.
+func TestNewLinesFastPath(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	for n := range 300 {
+		text := make([]byte, n)
+		for i := range text {
+			text[i] = "ab\n é"[r.IntN(5)]
+		}
+		want := []int{0}
+		for i, c := range text {
+			if c == '\n' {
+				want = append(want, i+1)
+			}
+		}
+		if got := newLines(text).starts; !slices.Equal(got, want) {
+			t.Fatalf("%q: line starts %v, want %v", text, got, want)
 		}
 	}
 }
