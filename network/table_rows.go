@@ -95,6 +95,17 @@ func modelGivesG(m thermo.Model, temps []float64) bool {
 	if m == nil || isGibbsOnly(m) {
 		return false
 	}
+	// Most models are finite by their form over the whole span of temps
+	// (thermo.FiniteOn); only the others are evaluated at each.
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, T := range temps {
+		if T > 0 {
+			lo, hi = math.Min(lo, T), math.Max(hi, T)
+		}
+	}
+	if lo <= hi && thermo.FiniteOn(m, lo, hi) {
+		return true
+	}
 	for _, T := range temps {
 		if !(T > 0) {
 			continue
