@@ -483,11 +483,7 @@ func TestIncrementalChecksTargeted(t *testing.T) {
 		atm := string(lib) + "settings {\n  standard-pressure 1 atm\n}\n"
 		for _, libText := range []string{atm, string(lib), atm} {
 			src := memSource{"/t/root.hess": []byte(root), "/t/lib.hess": []byte(libText)}
-			got, want := Load("/t/root.hess", src, Options{Caches: caches}), Load("/t/root.hess", src, Options{})
-			reused += caches.memo(PathID("/t/root.hess")).checks.reused
-			if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
-				t.Fatalf("root %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
-			}
+			reused += loadBothWays(t, caches, src, fmt.Sprintf("root %d", i))
 		}
 	}
 	if reused == 0 {
@@ -514,13 +510,23 @@ func TestIncrementalReactionChecksTargeted(t *testing.T) {
 	reused := 0
 	for i, st := range steps {
 		src := memSource{"/t/root.hess": []byte(st[0]), "/t/lib.hess": []byte(st[1])}
-		got, want := Load("/t/root.hess", src, Options{Caches: caches}), Load("/t/root.hess", src, Options{})
-		reused += caches.memo(PathID("/t/root.hess")).checks.reused
-		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
-			t.Fatalf("step %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
-		}
+		reused += loadBothWays(t, caches, src, fmt.Sprintf("step %d", i))
 	}
 	if reused == 0 {
 		t.Error("no finding was reused: the sequence does not exercise the reuse")
 	}
+}
+
+// loadBothWays loads /t/root.hess of src through caches and afresh, fails
+// the test (naming the step) when the two differ, and returns how many
+// species-local findings the load through the caches reused.
+func loadBothWays(t *testing.T, caches *ParseCaches, src memSource, step string) int {
+	t.Helper()
+	got := Load("/t/root.hess", src, Options{Caches: caches})
+	reused := caches.memo(PathID("/t/root.hess")).checks.reused
+	want := Load("/t/root.hess", src, Options{})
+	if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
+		t.Fatalf("%s: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", step, g, w)
+	}
+	return reused
 }

@@ -7,7 +7,6 @@ import (
 	"context"
 	"encoding/json"
 	"fmt"
-	"io"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -136,17 +135,7 @@ func TestHostileLanguageServer(t *testing.T) {
 	ctx, cancel := context.WithTimeout(context.Background(), hostileDeadline)
 	defer cancel()
 	cmd := exec.CommandContext(ctx, hessBinary(t), "lsp")
-	stdin, err := cmd.StdinPipe()
-	if err != nil {
-		t.Fatal(err)
-	}
-	stdout, err := cmd.StdoutPipe()
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := cmd.Start(); err != nil {
-		t.Fatal(err)
-	}
+	stdin, stdout := startWithPipes(t, cmd)
 	defer cmd.Wait()
 	defer stdin.Close()
 	send := func(msg map[string]any) {
@@ -159,20 +148,8 @@ func TestHostileLanguageServer(t *testing.T) {
 		defer close(frames)
 		r := bufio.NewReader(stdout)
 		for {
-			var n int
-			for {
-				line, err := r.ReadString('\n')
-				if err != nil {
-					return
-				}
-				line = strings.TrimSpace(line)
-				if line == "" {
-					break
-				}
-				fmt.Sscanf(line, "Content-Length: %d", &n)
-			}
-			body := make([]byte, n)
-			if _, err := io.ReadFull(r, body); err != nil {
+			body, err := readFrame(r)
+			if err != nil {
 				return
 			}
 			var m map[string]any

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"bytes"
 	"encoding/json"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -117,17 +118,7 @@ func benchEdits(b *testing.B, g *synth.Network) {
 	edits := roundOfEdits(b, g)
 	cmd := exec.Command(hessBinary(b), "lsp")
 	cmd.Env = os.Environ()
-	stdin, err := cmd.StdinPipe()
-	if err != nil {
-		b.Fatal(err)
-	}
-	stdout, err := cmd.StdoutPipe()
-	if err != nil {
-		b.Fatal(err)
-	}
-	if err := cmd.Start(); err != nil {
-		b.Fatal(err)
-	}
+	stdin, stdout := startWithPipes(b, cmd)
 	defer func() {
 		stdin.Close()
 		cmd.Wait()
@@ -215,25 +206,8 @@ func (c *stdioClient) read(out io.Reader) {
 	defer close(c.frames)
 	r := bufio.NewReaderSize(out, 1<<20)
 	for {
-		n := -1
-		for {
-			line, err := r.ReadString('\n')
-			if err != nil {
-				return
-			}
-			line = strings.TrimSpace(line)
-			if line == "" {
-				break
-			}
-			if v, ok := strings.CutPrefix(line, "Content-Length: "); ok {
-				n, _ = strconv.Atoi(v)
-			}
-		}
-		if n < 0 {
-			return
-		}
-		body := make([]byte, n)
-		if _, err := io.ReadFull(r, body); err != nil {
+		body, err := readFrame(r)
+		if err != nil {
 			return
 		}
 		at := time.Now()
@@ -303,4 +277,49 @@ func procHWM(b *testing.B, pid int) int {
 		}
 	}
 	return 0
+}
+
+// startWithPipes starts cmd with pipes to its standard input and from its
+// standard output, as an editor starts the language server.
+func startWithPipes(tb testing.TB, cmd *exec.Cmd) (io.WriteCloser, io.ReadCloser) {
+	tb.Helper()
+	stdin, err := cmd.StdinPipe()
+	if err != nil {
+		tb.Fatal(err)
+	}
+	stdout, err := cmd.StdoutPipe()
+	if err != nil {
+		tb.Fatal(err)
+	}
+	if err := cmd.Start(); err != nil {
+		tb.Fatal(err)
+	}
+	return stdin, stdout
+}
+
+// readFrame reads one message of the language server's framing: header
+// lines up to an empty one, then Content-Length bytes of body.
+func readFrame(r *bufio.Reader) ([]byte, error) {
+	n := -1
+	for {
+		line, err := r.ReadString('\n')
+		if err != nil {
+			return nil, err
+		}
+		line = strings.TrimSpace(line)
+		if line == "" {
+			break
+		}
+		if v, ok := strings.CutPrefix(line, "Content-Length: "); ok {
+			n, _ = strconv.Atoi(v)
+		}
+	}
+	if n < 0 {
+		return nil, errors.New("a frame without Content-Length")
+	}
+	body := make([]byte, n)
+	if _, err := io.ReadFull(r, body); err != nil {
+		return nil, err
+	}
+	return body, nil
 }
