@@ -23,7 +23,7 @@ func (c *compiler) prefactor(q *lang.Quantity) (*Value, bool) {
 		c.report(missingUnitCheck, q.Value.Span(), "A needs a rate unit, such as 1/s or cm3/mol/s")
 		return nil, false
 	}
-	u, err := thermo.ParseUnit(q.Unit.Text)
+	u, err := c.parseUnit(q.Unit.Text)
 	if err != nil {
 		c.report(unitMismatchCheck, q.Unit.Span(), "A takes a rate unit (such as 1/s or cm3/mol/s): %s", unitErrorMessage(err, prefactorDims()...))
 		return nil, false

@@ -4,6 +4,8 @@ import (
 	"math/big"
 	"strconv"
 	"strings"
+	"sync"
+	"sync/atomic"
 
 	"hess/thermo"
 )
@@ -48,7 +50,39 @@ func concDeltaN(rx *Reaction) *big.Rat {
 }
 
 // prefactorOrder returns the reaction order a prefactor unit belongs to.
+// A network writes the same few rate units thousands of times, so the
+// answers for short units are kept (prefactorOrders).
 func prefactorOrder(unit string) (int, bool) {
+	if v, ok := prefactorOrders.Load(unit); ok {
+		o := v.(int)
+		return o, o >= 0
+	}
+	o, ok := parsePrefactorOrder(unit)
+	if len(unit) <= maxKeptUnit && prefactorKept.Add(1) <= maxKeptUnits {
+		v := o
+		if !ok {
+			v = -1
+		}
+		prefactorOrders.Store(strings.Clone(unit), v)
+	}
+	return o, ok
+}
+
+// prefactorOrders maps a prefactor unit as written to its order (-1: none);
+// it keeps at most maxKeptUnits units of at most maxKeptUnit bytes, so a
+// file of made-up units cannot grow it without bound.
+var (
+	prefactorOrders sync.Map
+	prefactorKept   atomic.Int64
+)
+
+const (
+	maxKeptUnits = 256
+	maxKeptUnit  = 32
+)
+
+// parsePrefactorOrder is prefactorOrder without the cache.
+func parsePrefactorOrder(unit string) (int, bool) {
 	u, err := thermo.ParseUnit(unit)
 	if err != nil {
 		return 0, false
