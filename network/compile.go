@@ -169,7 +169,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	})
 	var built []builtReaction
 	var env string
-	var entries map[*lang.Statement]*memoReaction
+	var entries reactionEntries
 	if memo != nil {
 		env = speciesEnv(n)
 		built, entries = c.buildReactionsReusing(reactions, memo, env)

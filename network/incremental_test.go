@@ -530,3 +530,44 @@ func loadBothWays(t *testing.T, caches *ParseCaches, src memSource, step string)
 	}
 	return reused
 }
+
+// TestIncrementalMovedReactions edits above reactions so that every one of
+// them moves (a new statement of the same text): the position-free builds
+// are taken from the memo with their node replaced, those with own data
+// or rates (whose values keep spans) are built afresh, and every load
+// equals a fresh one.
+func TestIncrementalMovedReactions(t *testing.T) {
+	const species = "species A(g) {\n  formula C\n  hf 1 kJ/mol\n  s 100 J/mol/K\n}\nspecies B(g) {\n  formula C\n  hf 2 kJ/mol\n  s 110 J/mol/K\n}\nspecies C2(g) {\n  formula C2\n  hf 3 kJ/mol\n  s 120 J/mol/K\n}\n"
+	var rx strings.Builder
+	for i := range 20 {
+		fmt.Fprintf(&rx, "reaction p%d: 2 A(g) <-> C2(g)\n", i)
+	}
+	rx.WriteString("reaction own: 2 B(g) <-> C2(g) {\n  dg 5 kJ/mol\n}\nreaction q: A(g) <-> B(g)\n")
+	steps := []string{
+		species + rx.String(),
+		"# moved down by a line\n" + species + rx.String(),
+		"# moved down\n# by two lines\n" + species + rx.String(),
+		species + "\n\n" + rx.String(),
+		species + rx.String(),
+	}
+	caches := NewParseCaches()
+	for i, text := range steps {
+		src := memSource{"/t/root.hess": []byte(text)}
+		got := Load("/t/root.hess", src, Options{Caches: caches})
+		reused := caches.memo(PathID("/t/root.hess")).reused
+		want := Load("/t/root.hess", src, Options{})
+		if g, w := dumpNetwork(got), dumpNetwork(want); g != w {
+			t.Fatalf("step %d: the incremental load differs from a fresh one:\n%s\nfresh:\n%s", i, g, w)
+		}
+		// 21 plain reactions move with every edit; the one with own data
+		// is built again.
+		if i > 0 && reused != 21 {
+			t.Errorf("step %d: %d reactions reused, want the 21 without own data", i, reused)
+		}
+		for _, r := range got.Reactions {
+			if r.Span() != r.node.Span() || r.Span().Start.Offset != strings.Index(text, "reaction "+r.Name+":") {
+				t.Errorf("step %d: %s spans %v, written at offset %d", i, r.Name, r.Span(), strings.Index(text, "reaction "+r.Name+":"))
+			}
+		}
+	}
+}

@@ -28,7 +28,12 @@ type compileMemo struct {
 	mu        sync.Mutex
 	env       string // speciesEnv of the compile the reactions are from
 	reactions map[*lang.Statement]*memoReaction
-	reused    int // reactions the latest compile took from the memo, for tests
+	// moved are the reactions of reactions that refer to no
+	// position but their statement's (positionFree), by file and statement
+	// text: a statement that an edit before it moved is a new statement
+	// with the same text, whose build is the same but for its node.
+	moved  map[statementText]*memoReaction
+	reused int // reactions the latest compile took from the memo, for tests
 
 	elements      string // elementsEnv of the compile the species are from
 	species       map[*lang.Species]*memoSpecies
@@ -111,29 +116,44 @@ func speciesEnv(n *Network) string {
 // memo compiled under the same species from the memo. It returns the built
 // reactions and the memo entries for the next compile, which refer to
 // this compile's reactions (so that the last network is not kept).
-func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[*lang.Statement]*memoReaction) {
+func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, reactionEntries) {
 	memo.mu.Lock()
 	var prev map[*lang.Statement]*memoReaction
+	var prevMoved map[statementText]*memoReaction
 	if memo.env == env {
-		prev = memo.reactions
+		prev, prevMoved = memo.reactions, memo.moved
 	}
 	memo.mu.Unlock()
 	out := make([]builtReaction, len(sts))
 	reused := make([]bool, len(sts))
+	texts := make([]statementText, len(sts))
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
 		return func(i int) {
+			texts[i] = textOf(sts[i])
 			if m := prev[sts[i]]; m != nil {
 				out[i], reused[i] = m.restore(c.net), true
+				return
+			}
+			if m := prevMoved[texts[i]]; m != nil && texts[i].text != "" {
+				out[i], reused[i] = m.restore(c.net), true
+				out[i].rx.node = sts[i].Reaction
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
 		}
 	})
-	next := make(map[*lang.Statement]*memoReaction, len(sts))
+	next := reactionEntries{
+		byStatement: make(map[*lang.Statement]*memoReaction, len(sts)),
+		moved:       make(map[statementText]*memoReaction, len(sts)),
+	}
 	n := 0
 	for i, st := range sts {
-		next[st] = &memoReaction{built: out[i]}
+		e := &memoReaction{built: out[i]}
+		next.byStatement[st] = e
+		if texts[i].text != "" && positionFree(out[i]) {
+			next.moved[texts[i]] = e
+		}
 		if reused[i] {
 			n++
 		}
@@ -144,12 +164,50 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	return out, next
 }
 
+// reactionEntries are the memo entries of one compile's reactions.
+type reactionEntries struct {
+	byStatement map[*lang.Statement]*memoReaction
+	moved       map[statementText]*memoReaction
+}
+
+// statementText is a statement's file and exact text: what its build
+// depends on besides its position and the species.
+type statementText struct {
+	file, text string
+}
+
+// textOf is the statement's statementText (text "" when it has no tokens).
+func textOf(st *lang.Statement) statementText {
+	toks := st.Tokens()
+	src := st.Source()
+	if len(toks) == 0 || src == nil {
+		return statementText{}
+	}
+	first, last := int(toks[0].Offset), int(toks[len(toks)-1].Offset)+len(toks[len(toks)-1].Value)
+	text := src.Text()
+	if first < 0 || last > len(text) || first > last {
+		return statementText{}
+	}
+	return statementText{file: src.Name(), text: text[first:last]}
+}
+
+// positionFree reports whether a built reaction refers to no position but
+// its statement's node: no diagnostics, no species mentioned by a broken
+// statement, no own data or rates (whose values keep their spans). Such a
+// build is the same for any statement of the same text, once its node is
+// the new statement's.
+func positionFree(b builtReaction) bool {
+	rx := b.rx
+	return rx != nil && len(b.diags) == 0 && len(b.propDiags) == 0 && len(b.mentioned) == 0 &&
+		rx.Dg == nil && rx.Dh == nil && rx.Ds == nil && len(rx.LogK) == 0 && rx.Rate == nil && rx.Reverse == nil
+}
+
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries map[*lang.Statement]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
+func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
-	m.env, m.reactions = env, entries
+	m.env, m.reactions, m.moved = env, entries.byStatement, entries.moved
 	m.elements, m.species, m.from = elements, species, from
 }
 
