@@ -129,14 +129,15 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	texts := make([]statementText, len(sts))
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
+		same := speciesRemap{}
 		return func(i int) {
 			texts[i] = textOf(sts[i])
 			if m := prev[sts[i]]; m != nil {
-				out[i], reused[i] = m.restore(c.net), true
+				out[i], reused[i] = m.restore(c.net, same), true
 				return
 			}
 			if m := prevMoved[texts[i]]; m != nil && texts[i].text != "" {
-				out[i], reused[i] = m.restore(c.net), true
+				out[i], reused[i] = m.restore(c.net, same), true
 				out[i].rx.node = sts[i].Reaction
 				return
 			}
@@ -214,13 +215,13 @@ func (m *compileMemo) commit(env string, entries reactionEntries, elements strin
 // restore builds a fresh copy of the entry for the network n, its species
 // found by key among n's (the species signature being equal, each key
 // names the species of the same declaration it named before).
-func (m *memoReaction) restore(n *Network) builtReaction {
+func (m *memoReaction) restore(n *Network, same speciesRemap) builtReaction {
 	b := m.built
 	b.diags = slices.Clone(m.built.diags)
 	b.propDiags = slices.Clone(m.built.propDiags)
 	b.mentioned = nil
 	for _, sp := range m.built.mentioned {
-		b.mentioned = append(b.mentioned, n.speciesByKey[sp.Key])
+		b.mentioned = append(b.mentioned, same.of(n, sp))
 	}
 	if rx := m.built.rx; rx != nil {
 		b.rx = copyReaction(rx)
@@ -228,12 +229,28 @@ func (m *memoReaction) restore(n *Network) builtReaction {
 		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
 			for i, t := range side {
 				if t.Species != nil {
-					side[i].Species = n.speciesByKey[t.Species.Key]
+					side[i].Species = same.of(n, t.Species)
 				}
 			}
 		}
 	}
 	return b
+}
+
+// speciesRemap is one worker's record of which species of this compile
+// has the key of a species of the last: a reaction taken from the memo
+// finds its species again through it, by pointer, looking a key up only
+// once per species.
+type speciesRemap map[*Species]*Species
+
+// of is the species of n with sp's key.
+func (r speciesRemap) of(n *Network, sp *Species) *Species {
+	if to, ok := r[sp]; ok {
+		return to
+	}
+	to := n.speciesByKey[sp.Key]
+	r[sp] = to
+	return to
 }
 
 // copyReaction copies a reaction as built (no combination yet) so that the
