@@ -84,21 +84,27 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 		}
 		return
 	}
-	prev := sc.prev[part]
-	next := make(map[*Species]lang.Diagnostics, len(p.Net.Species))
+	// The findings of a run are kept for the species that had some: every
+	// species of the last run was looked at (or its findings taken), so a
+	// species of it that is not in prev had none. prev is nil when the
+	// part did not run last time.
+	prev, ran := sc.prev[part]
+	next := map[*Species]lang.Diagnostics{}
 	reused := 0
 	for _, sp := range p.Net.Species {
-		if old := sc.from[sp]; old != nil && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
-			if ds, ok := prev[old]; ok {
+		if old := sc.from[sp]; ran && old != nil && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
+			if ds := prev[old]; len(ds) > 0 {
 				*p.out = append(*p.out, ds...)
 				next[sp] = ds
-				reused++
-				continue
 			}
+			reused++
+			continue
 		}
 		start := len(*p.out)
 		fn(sp)
-		next[sp] = slices.Clip((*p.out)[start:len(*p.out):len(*p.out)])
+		if len(*p.out) > start {
+			next[sp] = slices.Clip((*p.out)[start:len(*p.out):len(*p.out)])
+		}
 	}
 	sc.mu.Lock()
 	sc.next[part] = next
