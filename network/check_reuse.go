@@ -26,15 +26,21 @@ type checkMemo struct {
 	pressure float64 // the network's standard pressure, tolerance and temperatures then
 	tol      float64
 	temps    []float64
-	found    map[string]map[*Species]lang.Diagnostics // by part, then species
-	reused   int                                      // findings lists reused by the latest run, for tests
+	found    map[string]map[*Species]lang.Diagnostics // by part, then species: only those with findings
+	// species are the species of the network the findings are of: each
+	// was looked at, so one of them absent from found had none. (The
+	// species a compile took its data from may be of a network whose
+	// checks never completed; those are not among these.)
+	species []*Species
+	reused  int // findings lists reused by the latest run, for tests
 }
 
 // speciesChecks is one check run's view of the memo: the previous
 // findings when the network's settings match, and the new ones.
 type speciesChecks struct {
-	from map[*Species]*Species // a species of this network -> the one of the last whose data it took
-	prev map[string]map[*Species]lang.Diagnostics
+	from        map[*Species]*Species // a species of this network -> the one of the last whose data it took
+	prev        map[string]map[*Species]lang.Diagnostics
+	prevSpecies []*Species // the species prev is of (checkMemo.species)
 
 	mu     sync.Mutex
 	next   map[string]map[*Species]lang.Diagnostics
@@ -55,7 +61,7 @@ func startSpeciesChecks(n *Network, memo *compileMemo) *speciesChecks {
 	defer cm.mu.Unlock()
 	sc := &speciesChecks{from: from, next: map[string]map[*Species]lang.Diagnostics{}}
 	if cm.pressure == n.StandardPressure() && cm.tol == n.Settings.Tolerance && slices.Equal(cm.temps, n.Temperatures) {
-		sc.prev = cm.found
+		sc.prev, sc.prevSpecies = cm.found, cm.species
 	}
 	return sc
 }
@@ -69,7 +75,7 @@ func (sc *speciesChecks) finish(n *Network, memo *compileMemo) {
 	cm.mu.Lock()
 	defer cm.mu.Unlock()
 	cm.pressure, cm.tol, cm.temps = n.StandardPressure(), n.Settings.Tolerance, slices.Clone(n.Temperatures)
-	cm.found, cm.reused = sc.next, sc.reused
+	cm.found, cm.species, cm.reused = sc.next, n.Species, sc.reused
 }
 
 // eachSpecies calls fn for every species of the network in order, as a
@@ -85,14 +91,14 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 		return
 	}
 	// The findings of a run are kept for the species that had some: every
-	// species of the last run was looked at (or its findings taken), so a
-	// species of it that is not in prev had none. prev is nil when the
+	// species of that run's network was looked at (or its findings taken),
+	// so one of them that is not in prev had none. ran is false when the
 	// part did not run last time.
 	prev, ran := sc.prev[part]
 	next := map[*Species]lang.Diagnostics{}
 	reused := 0
 	for _, sp := range p.Net.Species {
-		if old := sc.from[sp]; ran && old != nil && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
+		if old := sc.from[sp]; ran && old != nil && sc.lookedAt(old) && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
 			if ds := prev[old]; len(ds) > 0 {
 				*p.out = append(*p.out, ds...)
 				next[sp] = ds
@@ -110,4 +116,11 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 	sc.next[part] = next
 	sc.reused += reused
 	sc.mu.Unlock()
+}
+
+// lookedAt reports whether sp is a species of the network whose findings
+// prev holds.
+func (sc *speciesChecks) lookedAt(sp *Species) bool {
+	i := sp.index
+	return i >= 0 && i < len(sc.prevSpecies) && sc.prevSpecies[i] == sp
 }
