@@ -3,6 +3,7 @@ package lang
 import (
 	"reflect"
 	"sync"
+	"unsafe"
 
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -20,6 +21,23 @@ type Cache struct {
 	next   map[cacheKey]*Statement
 	hits   int // statements reused by the latest parse
 	misses int // statements it parsed
+	gen    int // parses made through the cache
+}
+
+// maxSourceAge is how many parses a statement shared in place may stay
+// with the text of the parse that made it. A shared statement keeps that
+// whole text alive (its tokens are slices of it), so after edits all over
+// a file every parse's text would stay alive; one older than this is
+// copied onto the latest text instead, which bounds the texts kept to
+// maxSourceAge+1 and copies each unchanged statement once every
+// maxSourceAge parses.
+const maxSourceAge = 8
+
+// generation is the number of the parse under way.
+func (c *Cache) generation() int {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.gen
 }
 
 type cacheKey struct {
@@ -46,6 +64,7 @@ func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 	}
 	c.mu.Lock()
 	c.next, c.hits, c.misses = make(map[cacheKey]*Statement, len(c.last)), 0, 0
+	c.gen++
 	c.mu.Unlock()
 	f, diags := parse(file, src, c)
 	c.mu.Lock()
@@ -78,7 +97,8 @@ func (c *Cache) lookup(k cacheKey, src *Source, at int) *Statement {
 	if st == nil {
 		return nil
 	}
-	if first, _ := st.at(); int(first.Offset) != at || st.Source().Name() != src.Name() || st.Source().Pos(at).Line != src.Pos(at).Line {
+	if first, _ := st.at(); int(first.Offset) != at || st.Source().Name() != src.Name() || st.Source().Pos(at).Line != src.Pos(at).Line ||
+		st.Source().gen+maxSourceAge < src.gen {
 		st = moved(st, src, at)
 	}
 	c.mu.Lock()
@@ -108,6 +128,7 @@ func moved(st *Statement, src *Source, at int) *Statement {
 	m.g = &tokenGroup{src: src, toks: make([]Token, last-first)}
 	for i, t := range old.toks[first:last] {
 		t.Offset += int32(m.dOff)
+		t.Value = m.rebase(t.Value)
 		m.g.toks[i] = t
 	}
 	out := reflect.New(reflect.TypeFor[Statement]())
@@ -120,6 +141,26 @@ type mover struct {
 	first  int         // index in old of the statement's first token
 	dOff   int
 	src    *Source
+}
+
+// rebase is s, when it is a slice of the old text, as the same slice of
+// the new text (where the statement's text is the same, dOff further on),
+// so that the moved statement keeps no part of the old text alive; other
+// strings are kept.
+func (m *mover) rebase(s string) string {
+	old := m.old.src.text
+	if len(s) == 0 || len(old) == 0 {
+		return s
+	}
+	p, base := uintptr(unsafe.Pointer(unsafe.StringData(s))), uintptr(unsafe.Pointer(unsafe.StringData(old)))
+	if p < base || p-base+uintptr(len(s)) > uintptr(len(old)) {
+		return s
+	}
+	at := int(p-base) + m.dOff
+	if at < 0 || at+len(s) > len(m.src.text) || m.src.text[at:at+len(s)] != s {
+		return s
+	}
+	return m.src.text[at : at+len(s)]
 }
 
 func (m *mover) pos(p lexer.Position) lexer.Position {
@@ -174,6 +215,8 @@ func (m *mover) copyStruct(dst, src reflect.Value) {
 				}
 				d.Set(s)
 			}
+		case f.Kind() == reflect.String:
+			d.SetString(m.rebase(f.String()))
 		default:
 			d.Set(f)
 		}

@@ -305,6 +305,9 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		return f, Diagnostics{tooLarge(file)}
 	}
 	source := NewSource(file, string(src))
+	if cache != nil {
+		source.gen = cache.generation()
+	}
 	f.Source = source
 	l := newLexState(source)
 	var diags Diagnostics

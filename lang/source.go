@@ -19,8 +19,11 @@ const MaxSourceBytes = math.MaxInt32
 // a line and column only when a span is asked for. Every node of a parsed
 // file points to the file's Source. A Source does not change once built.
 type Source struct {
-	name  string
-	text  string
+	name string
+	text string
+	// gen is the number of the cached parse that made the source (see
+	// Cache): how old the statements that still resolve through it are.
+	gen   int
 	lines []int32 // offset where each line starts; line 1 starts after a byte order mark
 	// wide has a bit set for each line that holds a byte outside ASCII,
 	// whose columns are counted rune by rune; on the others a column

@@ -138,7 +138,10 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 			}
 			if m := prevMoved[texts[i]]; m != nil && texts[i].text != "" {
 				out[i], reused[i] = m.restore(c.net, same), true
+				// The node and the name of the statement now: the old
+				// statement's text is not kept alive through them.
 				out[i].rx.node = sts[i].Reaction
+				out[i].rx.Name = sts[i].Reaction.Name.Name
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
@@ -194,13 +197,14 @@ func textOf(st *lang.Statement) statementText {
 
 // positionFree reports whether a built reaction refers to no position but
 // its statement's node: no diagnostics, no species mentioned by a broken
-// statement, no own data or rates (whose values keep their spans). Such a
-// build is the same for any statement of the same text, once its node is
-// the new statement's.
+// statement, no own data or rates (whose values keep their spans), no
+// source note. Such a build is the same for any statement of the same
+// text, once its node and name are the new statement's.
 func positionFree(b builtReaction) bool {
 	rx := b.rx
 	return rx != nil && len(b.diags) == 0 && len(b.propDiags) == 0 && len(b.mentioned) == 0 &&
-		rx.Dg == nil && rx.Dh == nil && rx.Ds == nil && len(rx.LogK) == 0 && rx.Rate == nil && rx.Reverse == nil
+		rx.Dg == nil && rx.Dh == nil && rx.Ds == nil && len(rx.LogK) == 0 && rx.Rate == nil && rx.Reverse == nil &&
+		rx.Source == "" && rx.node != nil && rx.node.Name != nil
 }
 
 // commit keeps the entries of a completed compile: its reactions under
