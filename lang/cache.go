@@ -76,11 +76,11 @@ func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 // statementKey is the cache key of the statement made of toks, tokens
 // of src.
 func statementKey(src *Source, toks []Token) (cacheKey, bool) {
-	first, end := int(toks[0].Offset), toks[len(toks)-1].End()
-	if first < 0 || end > len(src.text) || first > end {
+	text, ok := src.textOf(toks)
+	if !ok {
 		return cacheKey{}, false
 	}
-	return cacheKey{text: src.text[first:end], column: src.Pos(first).Column}, true
+	return cacheKey{text: text, column: src.Pos(int(toks[0].Offset)).Column}, true
 }
 
 // lookup returns the cached statement with the key, moved to offset at of

@@ -119,6 +119,19 @@ func (s *Source) Name() string {
 	return s.name
 }
 
+// textOf is the text of src from the start of the first of toks to the
+// end of the last; ok is false when there are none or they are not of src.
+func (s *Source) textOf(toks []Token) (text string, ok bool) {
+	if s == nil || len(toks) == 0 {
+		return "", false
+	}
+	first, end := int(toks[0].Offset), toks[len(toks)-1].End()
+	if first < 0 || end > len(s.text) || first > end {
+		return "", false
+	}
+	return s.text[first:end], true
+}
+
 // Text is the file's text, which token values and comments are slices of.
 func (s *Source) Text() string {
 	if s == nil {

@@ -23,6 +23,13 @@ func (n *Node) Source() *Source {
 	return n.g.src
 }
 
+// Text is the node's source text, from the start of its first token to
+// the end of its last ("" for a node without tokens).
+func (n *Node) Text() string {
+	text, _ := n.Source().textOf(n.Tokens())
+	return text
+}
+
 // TokenSpan is the exact source range of the node's i-th token.
 func (n *Node) TokenSpan(i int) Span { return n.g.src.Span(n.Tokens()[i]) }
 

@@ -120,7 +120,4 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 
 // lookedAt reports whether sp is a species of the network whose findings
 // prev holds.
-func (sc *speciesChecks) lookedAt(sp *Species) bool {
-	i := sp.index
-	return i >= 0 && i < len(sc.prevSpecies) && sc.prevSpecies[i] == sp
-}
+func (sc *speciesChecks) lookedAt(sp *Species) bool { return declaredIn(sc.prevSpecies, sp) }

@@ -38,7 +38,7 @@ values as extrapolated.`,
 			}
 			var out []float64
 			for _, T := range temps {
-				if T > 0 && !covers(m, T) {
+				if T > 0 && !sp.DataAt(T) {
 					out = append(out, T)
 				}
 			}
@@ -121,7 +121,7 @@ func extrapolatedInMixture(p *Pass, mx *Mixture) {
 		if sp == nil || !used[sp] {
 			continue
 		}
-		if m := sp.Model(); m != nil && !isGibbsOnly(m) && !covers(m, T) {
+		if m := sp.Model(); m != nil && !isGibbsOnly(m) && !sp.DataAt(T) {
 			p.Reportf(mm.Span, "%s, the temperature of mixture %s, is outside the data of %s (%s); its approach values are extrapolated",
 				kelvin(T), mx.Name, sp.Key, coverageText(sp, m))
 		}
@@ -323,7 +323,7 @@ of a NASA fit). gf is not compared, since that needs the elements' entropies.`,
 				return
 			}
 			m := sp.Model()
-			if m == nil || !covers(m, thermo.T298) {
+			if m == nil || !sp.DataAt(thermo.T298) {
 				return
 			}
 			// The range that answers at 298.15 K, named beside each

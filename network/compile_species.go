@@ -55,11 +55,11 @@ func prepareRefs(refs []*lang.SpeciesRef, broken []bool) []preparedRef {
 func newSpecies(ref *lang.SpeciesRef, broken bool) preparedRef {
 	parts, err := lang.SplitRef(ref.Text)
 	if err != nil {
-		return preparedRef{ref: ref, err: err}
+		return preparedRef{ref: ref, err: err, text: ref.Text}
 	}
 	// A statement that did not parse has data that were never read.
 	sp := &Species{Key: parts.Canonical(), Parts: parts, Span: ref.Span(), Charge: parts.Charge, BrokenData: broken}
-	return preparedRef{ref: ref, sp: sp}
+	return preparedRef{ref: ref, sp: sp, text: ref.Text}
 }
 
 // declare registers one species reference of a species statement, taking
@@ -70,7 +70,6 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		p, c.prepared = c.prepared[0], c.prepared[1:]
 	} else {
 		p = newSpecies(ref, broken)
-		p.text = ref.Text
 	}
 	if p.err != nil {
 		c.report(badFormulaCheck, ref.Span(), "%s: %v", ref.Text, p.err)
@@ -133,9 +132,7 @@ func (c *compiler) declareAll(s *lang.Species, broken bool) declaredSpecies {
 func (c *compiler) speciesData(list []declaredSpecies) {
 	diags := make([]lang.Diagnostics, len(list))
 	parallel(len(list), 256, func() func(i int) {
-		// A worker of its own, as c.worker's but without the lookup
-		// cache and near-miss index, which species data do not use.
-		w := &compiler{net: c.net, units: map[string]thermo.Unit{}, declared: c.declared}
+		w := c.speciesWorker()
 		return func(i int) {
 			w.out = &diags[i]
 			w.speciesStatement(list[i])
@@ -144,6 +141,13 @@ func (c *compiler) speciesData(list []declaredSpecies) {
 	for _, ds := range diags {
 		c.net.Diagnostics = append(c.net.Diagnostics, ds...)
 	}
+}
+
+// speciesWorker is a compiler for one worker reading species data: as
+// c.worker's but without the lookup cache and near-miss index, which
+// species data do not use.
+func (c *compiler) speciesWorker() *compiler {
+	return &compiler{net: c.net, units: map[string]thermo.Unit{}, declared: c.declared}
 }
 
 // speciesStatement reads one statement's data and formulas.

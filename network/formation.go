@@ -79,7 +79,7 @@ func formationAt298(sp *Species) (h, sigmaH, s, sigmaS float64, ok bool) {
 	switch {
 	case sp.Hf != nil:
 		h, sigmaH = sp.Hf.V, sp.Hf.Sigma
-	case m != nil && covers(m, thermo.T298):
+	case m != nil && sp.DataAt(thermo.T298):
 		h = m.H(thermo.T298)
 	default:
 		return 0, 0, 0, 0, false
@@ -87,7 +87,7 @@ func formationAt298(sp *Species) (h, sigmaH, s, sigmaS float64, ok bool) {
 	switch {
 	case sp.S != nil:
 		s, sigmaS = sp.S.V, sp.S.Sigma
-	case m != nil && covers(m, thermo.T298):
+	case m != nil && sp.DataAt(thermo.T298):
 		s = m.S(thermo.T298)
 	default:
 		return 0, 0, 0, 0, false

@@ -187,14 +187,13 @@ func (m *Mixture) mixesMoles() bool {
 // extrapolation: what a feed member, and every species of an equilibrium
 // calculation on the elements, needs.
 func (s *Species) DataAt(T float64) bool {
-	m := s.Model()
-	return m != nil && covers(m, T)
+	return s.Model() != nil && coveredBy(s.coverage(), T)
 }
 
 // DataSpan is the lowest and highest temperature where the species' data
 // hold (they may have gaps between); ok is false without a model.
 func (s *Species) DataSpan() (lo, hi float64, ok bool) {
-	spans := coverage(s.Model())
+	spans := s.coverage()
 	if len(spans) == 0 {
 		return 0, 0, false
 	}

@@ -132,16 +132,12 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 		same := speciesRemap{}
 		return func(i int) {
 			texts[i] = textOf(sts[i])
-			if m := prev[sts[i]]; m != nil {
-				out[i], reused[i] = m.restore(c.net, same), true
-				return
+			m := prev[sts[i]]
+			if m == nil {
+				m = prevMoved[texts[i]] // only position-free builds are there
 			}
-			if m := prevMoved[texts[i]]; m != nil && texts[i].text != "" {
-				out[i], reused[i] = m.restore(c.net, same), true
-				// The node and the name of the statement now: the old
-				// statement's text is not kept alive through them.
-				out[i].rx.node = sts[i].Reaction
-				out[i].rx.Name = sts[i].Reaction.Name.Name
+			if m != nil {
+				out[i], reused[i] = m.restore(c.net, same, sts[i].Reaction), true
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
@@ -182,17 +178,7 @@ type statementText struct {
 
 // textOf is the statement's statementText (text "" when it has no tokens).
 func textOf(st *lang.Statement) statementText {
-	toks := st.Tokens()
-	src := st.Source()
-	if len(toks) == 0 || src == nil {
-		return statementText{}
-	}
-	first, last := int(toks[0].Offset), int(toks[len(toks)-1].Offset)+len(toks[len(toks)-1].Value)
-	text := src.Text()
-	if first < 0 || last > len(text) || first > last {
-		return statementText{}
-	}
-	return statementText{file: src.Name(), text: text[first:last]}
+	return statementText{file: st.Source().Name(), text: st.Text()}
 }
 
 // positionFree reports whether a built reaction refers to no position but
@@ -204,7 +190,7 @@ func positionFree(b builtReaction) bool {
 	rx := b.rx
 	return rx != nil && len(b.diags) == 0 && len(b.propDiags) == 0 && len(b.mentioned) == 0 &&
 		rx.Dg == nil && rx.Dh == nil && rx.Ds == nil && len(rx.LogK) == 0 && rx.Rate == nil && rx.Reverse == nil &&
-		rx.Source == "" && rx.node != nil && rx.node.Name != nil
+		rx.Source == ""
 }
 
 // commit keeps the entries of a completed compile: its reactions under
@@ -216,10 +202,12 @@ func (m *compileMemo) commit(env string, entries reactionEntries, elements strin
 	m.elements, m.species, m.from = elements, species, from
 }
 
-// restore builds a fresh copy of the entry for the network n, its species
-// found by key among n's (the species signature being equal, each key
-// names the species of the same declaration it named before).
-func (m *memoReaction) restore(n *Network, same speciesRemap) builtReaction {
+// restore builds a fresh copy of the entry for the network n and the
+// statement st (the one it was built from, or a moved one of the same
+// text), its species found by key among n's (the species signature being
+// equal, each key names the species of the same declaration it named
+// before).
+func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction) builtReaction {
 	b := m.built
 	b.diags = slices.Clone(m.built.diags)
 	b.propDiags = slices.Clone(m.built.propDiags)
@@ -230,6 +218,9 @@ func (m *memoReaction) restore(n *Network, same speciesRemap) builtReaction {
 	if rx := m.built.rx; rx != nil {
 		b.rx = copyReaction(rx)
 		b.rx.Combo = nil // set by the combination pass, after the build
+		// The statement's node and name now, so that a moved statement's
+		// build resolves its spans there and keeps no older text alive.
+		b.rx.node, b.rx.Name = st, st.Name.Name
 		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
 			for i, t := range side {
 				if t.Species != nil {
@@ -323,7 +314,7 @@ func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo,
 	diags := make([]lang.Diagnostics, len(list))
 	reused := make([]bool, len(list))
 	parallel(len(list), 256, func() func(i int) {
-		w := &compiler{net: c.net}
+		w := c.speciesWorker()
 		return func(i int) {
 			if m := prev[list[i].st]; m != nil && sameKeys(m.declared, list[i].declared) {
 				for j, sp := range list[i].declared {

@@ -17,7 +17,7 @@ import (
 // not give G° at T.
 func (sp *Species) StandardGibbs(T float64) (g float64, ok bool) {
 	if m := sp.Model(); m != nil {
-		if _, only := m.(thermo.GibbsOnly); !only && covers(m, T) {
+		if _, only := m.(thermo.GibbsOnly); !only && sp.DataAt(T) {
 			if g := m.G(T); !math.IsNaN(g) && !math.IsInf(g, 0) {
 				return g, true
 			}

@@ -76,10 +76,10 @@ func newGivesG(n *Network) *givesG {
 // of is modelGivesG(sp.Model(), temps), worked out once per species of the
 // network (a species from elsewhere is worked out every time).
 func (g *givesG) of(sp *Species, temps []float64) bool {
-	i := sp.index
-	if i < 0 || i >= len(g.species) || g.species[i] != sp {
+	if !declaredIn(g.species, sp) {
 		return modelGivesG(sp.Model(), temps)
 	}
+	i := sp.index
 	if g.answer[i] == 0 {
 		g.answer[i] = -1
 		if modelGivesG(sp.Model(), temps) {
@@ -115,4 +115,11 @@ func modelGivesG(m thermo.Model, temps []float64) bool {
 		}
 	}
 	return true
+}
+
+// declaredIn reports whether sp is one of a network's species, list being
+// that network's Species (a species' index is its place there).
+func declaredIn(list []*Species, sp *Species) bool {
+	i := sp.index
+	return i >= 0 && i < len(list) && list[i] == sp
 }

@@ -221,23 +221,6 @@ func isGibbsOnly(m thermo.Model) bool {
 	return lo == hi
 }
 
-// covers reports whether the model's data (not an extrapolation) hold at T:
-// inside one of a piecewise model's ranges, inside a range-less model's
-// span, or at 298.15 K for gf alone.
-func covers(m thermo.Model, T float64) bool {
-	if pw, ok := m.(*thermo.Piecewise); ok {
-		// As coverage, without building the list: checks ask this of
-		// every species at every temperature.
-		for _, b := range pw.Bounds() {
-			if T >= b[0]-thermo.JoinTolerance && T <= b[1]+thermo.JoinTolerance {
-				return true
-			}
-		}
-		return false
-	}
-	return coveredBy(coverage(m), T)
-}
-
 // coverage is coverage(s.Model()), worked out once when the models are
 // built. Callers must not change it.
 func (s *Species) coverage() [][2]float64 {
