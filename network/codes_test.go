@@ -21,14 +21,7 @@ func TestLangCodesRegistered(t *testing.T) {
 // seeds carries a registered code. (FuzzCompile checks the same of every
 // input it tries.)
 func TestReportedCodesRegistered(t *testing.T) {
-	var roots []string
-	for _, pattern := range []string{"../testdata/check/*.hess", "../examples/*/*.hess", "testdata/*/*.hess"} {
-		m, err := filepath.Glob(pattern)
-		if err != nil {
-			t.Fatal(err)
-		}
-		roots = append(roots, m...)
-	}
+	roots := globRoots(t, "../testdata/check/*.hess", "../examples/*/*.hess", "testdata/*/*.hess")
 	if len(roots) == 0 {
 		t.Fatal("no networks found")
 	}
@@ -57,4 +50,18 @@ func TestReportedCodesRegistered(t *testing.T) {
 			}
 		}
 	}
+}
+
+// globRoots lists the files the patterns match, in pattern order.
+func globRoots(t *testing.T, patterns ...string) []string {
+	t.Helper()
+	var roots []string
+	for _, pattern := range patterns {
+		m, err := filepath.Glob(pattern)
+		if err != nil {
+			t.Fatal(err)
+		}
+		roots = append(roots, m...)
+	}
+	return roots
 }

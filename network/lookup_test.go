@@ -2,7 +2,6 @@ package network
 
 import (
 	"math/rand/v2"
-	"path/filepath"
 	"testing"
 
 	"hess/lang"
@@ -16,14 +15,7 @@ import (
 // by the canonical key: on the test networks, the examples (hostile and
 // odd spellings among them) and a generated network.
 func TestLookupByDeclaredText(t *testing.T) {
-	var roots []string
-	for _, pattern := range []string{"../testdata/check/*.hess", "../examples/*.hess", "../examples/*/*.hess"} {
-		m, err := filepath.Glob(pattern)
-		if err != nil {
-			t.Fatal(err)
-		}
-		roots = append(roots, m...)
-	}
+	roots := globRoots(t, "../testdata/check/*.hess", "../examples/*.hess", "../examples/*/*.hess")
 	if len(roots) < 10 {
 		t.Fatalf("only %d networks found", len(roots))
 	}
