@@ -16,12 +16,19 @@ import (
 // A Cache serves one file, one parse at a time; it keeps only what the
 // latest parse used.
 type Cache struct {
-	mu     sync.Mutex
-	last   map[cacheKey]*Statement
-	next   map[cacheKey]*Statement
-	hits   int // statements reused by the latest parse
-	misses int // statements it parsed
-	gen    int // parses made through the cache
+	mu sync.Mutex
+	// prev is what the latest parse gave, for re-parsing an edit of its
+	// text (reparse.go).
+	prev *lastParse
+	// last holds the statements a parse may take by text, next those it
+	// took or parsed so far; both are set only during a parse.
+	last    map[cacheKey]*Statement
+	next    map[cacheKey]*Statement
+	hits    int  // statements reused by the latest parse
+	misses  int  // statements it parsed
+	gen     int  // parses made through the cache
+	lexed   int  // bytes the latest parse lexed, for tests
+	partial bool // the latest parse was a re-parse (reparse.go), for tests
 }
 
 // maxSourceAge is how many parses a statement shared in place may stay
@@ -57,20 +64,54 @@ func (c *Cache) Reused() (hits, parsed int) {
 }
 
 // ParseCached is Parse, taking unchanged statements from the cache and
-// storing the new ones; a nil cache parses everything.
+// storing the new ones; a nil cache parses everything. A text that is an
+// edit of the one the cache last parsed is lexed and parsed only where
+// the edit touched it (reparse.go).
 func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 	if c == nil {
 		return Parse(file, src)
 	}
 	c.mu.Lock()
-	c.next, c.hits, c.misses = make(map[cacheKey]*Statement, len(c.last)), 0, 0
 	c.gen++
+	c.hits, c.misses = 0, 0
 	c.mu.Unlock()
-	f, diags := parse(file, src, c)
+	if len(src) > MaxSourceBytes {
+		c.prev = nil
+		return Parse(file, src)
+	}
+	source := NewSource(file, string(src))
+	source.gen = c.generation()
+	if f, diags, ok := c.reparse(source); ok {
+		return f, diags
+	}
+	keys := map[cacheKey]*Statement{}
+	if c.prev != nil {
+		for _, ch := range c.prev.chunks {
+			if k, ok := recordKey(ch); ok {
+				keys[k] = ch.st
+			}
+		}
+	}
 	c.mu.Lock()
-	c.last, c.next = c.next, nil
+	c.last, c.next, c.hits, c.misses = keys, make(map[cacheKey]*Statement, len(keys)), 0, 0
+	c.mu.Unlock()
+	f, diags, last := parseSource(source, c)
+	c.lexed, c.partial = len(src), false
+	c.mu.Lock()
+	c.prev, c.last, c.next = last, nil, nil
 	c.mu.Unlock()
 	return f, diags
+}
+
+// count counts a statement the latest parse reused (hit) or parsed.
+func (c *Cache) count(hit bool) {
+	c.mu.Lock()
+	if hit {
+		c.hits++
+	} else {
+		c.misses++
+	}
+	c.mu.Unlock()
 }
 
 // statementKey is the cache key of the statement made of toks, tokens

@@ -48,6 +48,9 @@ type lexState struct {
 	comments []Comment
 	diags    Diagnostics
 	badRuns  int // runs of invalid characters seen
+	// runs are where the first maxLexDiagnostics of them start, for
+	// re-parsing (reparse.go).
+	runs []int32
 }
 
 func newLexState(src *Source) *lexState {
@@ -148,6 +151,9 @@ func (l *lexState) badRun(bad func(string) bool, one, many, first string) {
 	}
 	l.advance(n)
 	l.badRuns++
+	if l.badRuns <= maxLexDiagnostics {
+		l.runs = append(l.runs, int32(start))
+	}
 	switch {
 	case l.badRuns > maxLexDiagnostics:
 		return

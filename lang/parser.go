@@ -143,7 +143,12 @@ type groupLexer struct {
 	depth    int   // brace depth in the open statement
 	junk     bool  // the open statement does not start with a statement keyword
 	full     bool  // the group is full
-	finished bool  // the input is exhausted
+	finished bool  // the input is exhausted, or stop accepted a statement
+	// stop, when set, ends the input before the first statement whose
+	// first token it accepts (a re-parse lexes only part of a file);
+	// stopped is then that token's offset, else -1.
+	stop    func(Token) bool
+	stopped int
 }
 
 // A group is full after groupStatements statements, or once its
@@ -196,6 +201,10 @@ func (b *groupLexer) next() Token {
 	}
 	if b.open && b.startsStatement(t) {
 		return b.end()
+	}
+	if !b.open && b.stop != nil && b.stop(t) {
+		b.finished, b.stopped = true, int(t.Offset)
+		return b.insert(Token{Type: EOF, Offset: t.Offset})
 	}
 	if b.open && b.junk && b.queue-b.chunks[len(b.chunks)-1].start >= junkTokens {
 		b.skipStatement(false)
@@ -295,22 +304,29 @@ func (b *groupLexer) end() Token {
 // first on its line, so a block missing its `}` ends where the next
 // statement begins on a new line.
 func Parse(file string, src []byte) (*File, Diagnostics) {
-	return parse(file, src, nil)
+	f, diags, _ := parse(file, src, nil)
+	return f, diags
 }
 
-// parse is Parse with an optional statement cache.
-func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
-	f := &File{Name: file}
+// parse is Parse with an optional statement cache. With a cache it also
+// returns what the cache keeps of the parse for re-parsing an edit of the
+// text (see Cache.reparse).
+func parse(file string, src []byte, cache *Cache) (*File, Diagnostics, *lastParse) {
 	if len(src) > MaxSourceBytes {
-		return f, Diagnostics{tooLarge(file)}
+		return &File{Name: file}, Diagnostics{tooLarge(file)}, nil
 	}
 	source := NewSource(file, string(src))
 	if cache != nil {
 		source.gen = cache.generation()
 	}
-	f.Source = source
+	return parseSource(source, cache)
+}
+
+// parseSource is parse of the text of source, at most MaxSourceBytes
+// long.
+func parseSource(source *Source, cache *Cache) (*File, Diagnostics, *lastParse) {
+	f := &File{Name: source.Name(), Source: source}
 	l := newLexState(source)
-	var diags Diagnostics
 	// The input is lexed on this goroutine, a small group of statements at
 	// a time, while workers parse the groups already lexed. Groups are
 	// small so that each one's tokens stay in the cache from lexing to
@@ -332,7 +348,40 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		}()
 	}
 	var order []*lexedGroup
-	b := &groupLexer{l: l}
+	lexGroups(&groupLexer{l: l}, func(g *lexedGroup) {
+		order = append(order, g)
+		groups <- g
+	})
+	close(groups)
+	wg.Wait()
+	var diags Diagnostics
+	var last *lastParse
+	if cache != nil {
+		last = &lastParse{src: source, comments: l.comments, badRuns: l.badRuns, runs: l.runs}
+	}
+	for _, g := range order {
+		for i, r := range g.results {
+			if r.st != nil {
+				f.Statements = append(f.Statements, r.st)
+			}
+			diags = append(diags, r.diags...)
+			if last != nil {
+				last.chunks = append(last.chunks, g.record(i, r))
+			}
+		}
+	}
+	if last != nil {
+		last.head = attributeLex(last.chunks, l.diags)
+	}
+	f.Comments = l.comments
+	return f, append(l.diags, diags...), last
+}
+
+// lexGroups lexes with b into groups of statements, handing each to emit
+// once lexed, until the input ends or b.stop accepts a statement.
+func lexGroups(b *groupLexer, emit func(*lexedGroup)) {
+	l := b.l
+	b.stopped = -1
 	last := 0 // tokens in the group before
 	for !b.finished {
 		b.chunks, b.full = make([]chunk, 0, groupStatements), false
@@ -347,22 +396,11 @@ func parse(file string, src []byte, cache *Cache) (*File, Diagnostics) {
 		for b.next().Type != EOF {
 		}
 		last = b.queue
-		g := &lexedGroup{g: &tokenGroup{src: source, toks: l.toks[:b.queue:b.queue]}, chunks: b.chunks}
-		order = append(order, g)
-		groups <- g
-	}
-	close(groups)
-	wg.Wait()
-	for _, g := range order {
-		for _, r := range g.results {
-			if r.st != nil {
-				f.Statements = append(f.Statements, r.st)
-			}
-			diags = append(diags, r.diags...)
+		if len(b.chunks) == 0 {
+			continue
 		}
+		emit(&lexedGroup{g: &tokenGroup{src: l.src, toks: l.toks[:b.queue:b.queue]}, chunks: b.chunks})
 	}
-	f.Comments = l.comments
-	return f, append(l.diags, diags...)
 }
 
 // lexAhead is how many lexed groups may wait for a worker.

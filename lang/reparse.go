@@ -1,0 +1,325 @@
+package lang
+
+import (
+	"sort"
+)
+
+// Re-parsing an edit. An editor's change touches a few statements of a
+// file: the cache keeps its last parse (lastParse: each statement's place,
+// tree and diagnostics, the comments), and a parse of an edited text lexes
+// only from the statement the edit starts in to the first statement after
+// it that starts where an old one did (shifted by the edit's length):
+// from there on the lexer reads the same bytes in the same state as
+// before, so the old statements are the statements, moved. Statements
+// before the edit are the old ones in place. What comes out is exactly
+// what parsing the whole text gives (TestReparseMatchesParse,
+// FuzzReparse).
+//
+// Why the cut points are safe: a statement starts at a statement keyword
+// that stands at brace depth 0 or first on its line, and the lexer's only
+// state between tokens is whether a token already stood on the current
+// line. A statement whose first token, and the byte after it, come before
+// the first changed byte starts in the new text exactly where it did,
+// with the same first token, because everything the lexer read to get
+// there is unchanged; lexing from it with that token's FirstOnLine is
+// lexing the whole text from there. After the edit, a statement the new
+// lexing starts at offset X, where the text from X on is the old text
+// from X-d on (d the change in length) and where an old statement
+// started with the same FirstOnLine, is the old statement shifted: each
+// statement's brace depth starts at 0, and the bytes and state from there
+// are the same. Every diagnostic of the lexer belongs to the statement
+// whose text holds it, and such statements are lexed again; the one state
+// of the lexer that spans statements is its count of runs of invalid
+// characters, which it reports only up to maxLexDiagnostics: a re-parse
+// counts on from the runs before the edit, and a text where the lexer
+// reached the limit is parsed whole next time.
+
+// lastParse is what a Cache keeps of its latest parse for re-parsing an
+// edited text.
+type lastParse struct {
+	src      *Source
+	chunks   []chunkRecord // every statement of the file, in order, including those that did not parse
+	comments []Comment
+	head     Diagnostics // the lexer's, before the first statement
+	badRuns  int         // runs of invalid characters the lexer met
+	runs     []int32     // where they start
+}
+
+// chunkRecord is one statement of a parse: where its first token starts
+// and ends, whether it stood first on its line, what parsing the
+// statement gave (st nil for text that did not start with a statement
+// keyword) and what the lexer reported in its text (up to the next
+// statement).
+type chunkRecord struct {
+	start, firstEnd int32
+	firstOnLine     bool
+	st              *Statement
+	diags, lex      Diagnostics
+}
+
+// clean reports whether the statement parsed and nothing was reported in
+// its text: it can move with its text.
+func (ch *chunkRecord) clean() bool { return ch.st != nil && len(ch.diags) == 0 && len(ch.lex) == 0 }
+
+// attributeLex gives each of the lexer's diagnostics, in the order
+// reported, to the statement whose text holds it, and returns those
+// before the first statement.
+func attributeLex(chunks []chunkRecord, diags Diagnostics) (head Diagnostics) {
+	for _, d := range diags {
+		at := d.Subject.Start.Offset
+		j := sort.Search(len(chunks), func(i int) bool { return int(chunks[i].start) > at }) - 1
+		if j < 0 {
+			head = append(head, d)
+			continue
+		}
+		chunks[j].lex = append(chunks[j].lex, d)
+	}
+	return head
+}
+
+// record is the chunkRecord of the group's i-th statement, which parsed
+// to r.
+func (g *lexedGroup) record(i int, r result) chunkRecord {
+	first := g.g.toks[g.chunks[i].start]
+	return chunkRecord{start: first.Offset, firstEnd: int32(first.End()), firstOnLine: first.FirstOnLine, st: r.st, diags: r.diags}
+}
+
+// maxReparseWindow is how many bytes from the start of the first
+// statement an edit touches to the end of the edit a re-parse lexes on
+// one goroutine; a larger edit parses the whole file, in parallel.
+const maxReparseWindow = 256 << 10
+
+// reparse parses source, an edit of the text of the cache's last parse,
+// lexing and parsing only the statements the edit touched (see the top of
+// this file). It reports false, having changed nothing, when it cannot:
+// no last parse of the same file, a last parse whose lexer reported as
+// many runs of invalid characters as it reports, or an edit too large for
+// maxReparseWindow.
+func (c *Cache) reparse(source *Source) (*File, Diagnostics, bool) {
+	old := c.prev
+	if old == nil || old.badRuns >= maxLexDiagnostics || old.src.Name() != source.Name() || len(old.chunks) == 0 {
+		return nil, nil, false
+	}
+	ot, nt := old.src.text, source.text
+	p := commonPrefix(ot, nt)
+	s := commonSuffix(ot[p:], nt[p:])
+	d := len(nt) - len(ot)
+	newEnd := len(nt) - s // the new text differs from the old in [p, newEnd)
+	chunks := old.chunks
+	// r is the last statement whose first token, and the byte after it,
+	// are before the edit.
+	r := sort.Search(len(chunks), func(i int) bool { return int(chunks[i].firstEnd) >= p }) - 1
+	if r < 0 || newEnd-int(chunks[r].start) > maxReparseWindow {
+		return nil, nil, false
+	}
+
+	out := &reparsed{c: c, old: old, src: source, d: d, f: &File{Name: source.Name(), Source: source}}
+	// The runs of invalid characters before the edit, which the lexer
+	// counts on from.
+	for _, at := range old.runs {
+		if at < chunks[r].start {
+			out.runs = append(out.runs, at)
+		}
+	}
+	out.chunks = make([]chunkRecord, 0, len(chunks)+8)
+	out.f.Statements = make([]*Statement, 0, len(chunks)+8)
+	// The statements before the edit, in place: everything before them
+	// is the same text, so they resolve to the same positions.
+	for _, ch := range chunks[:r] {
+		out.keep(ch, 0, false)
+	}
+	// Their comments, re-sliced from the new text so that they keep no
+	// old text alive.
+	for _, cm := range old.comments[:commentsFrom(old.comments, int(chunks[r].start))] {
+		at := cm.Span.Start.Offset
+		out.comments = append(out.comments, Comment{Span: cm.Span, Text: nt[at : at+len(cm.Text)]})
+	}
+
+	// The edit: from statement r to the first statement after the edit
+	// that starts where an old one did.
+	sync := len(chunks)
+	window := c.windowKeys(chunks[r:])
+	stop := func(t Token) bool {
+		at := int(t.Offset)
+		if at < newEnd {
+			return false
+		}
+		j := r + 1 + sort.Search(len(chunks)-r-1, func(i int) bool { return int(chunks[r+1+i].start) >= at-d })
+		if j < len(chunks) && int(chunks[j].start) == at-d && chunks[j].firstOnLine == t.FirstOnLine {
+			sync = j
+			return true
+		}
+		return false
+	}
+	c.mu.Lock()
+	c.last, c.next = window, map[cacheKey]*Statement{}
+	c.mu.Unlock()
+	defer func() {
+		c.mu.Lock()
+		c.last, c.next = nil, nil
+		c.mu.Unlock()
+	}()
+	if stopped := out.lex(int(chunks[r].start), chunks[r].firstOnLine, stop); stopped >= 0 && sync == len(chunks) {
+		return nil, nil, false // cannot happen: stop set sync
+	}
+
+	// The statements after the edit, moved; those that did not parse
+	// cleanly are read again, since their messages may name places.
+	for j := sync; j < len(chunks); j++ {
+		ch := chunks[j]
+		next := len(ot) // where the next statement starts
+		if j+1 < len(chunks) {
+			next = int(chunks[j+1].start)
+		}
+		// A statement with diagnostics at the same place as before keeps
+		// them: every position in it is the same.
+		if ch.clean() || (d == 0 && ch.st != nil && ch.st.Source().Pos(int(ch.start)) == source.Pos(int(ch.start))) {
+			out.keep(ch, d, true)
+			from, to := commentsFrom(old.comments, int(ch.start)), commentsFrom(old.comments, next)
+			for _, cm := range old.comments[from:to] {
+				out.comments = append(out.comments, out.movedComment(cm))
+			}
+			continue
+		}
+		want := -1
+		if j+1 < len(chunks) {
+			want = next + d
+		}
+		stopped := out.lex(int(ch.start)+d, ch.firstOnLine, func(t Token) bool { return int(t.Offset) >= next+d })
+		if stopped != want {
+			return nil, nil, false // cannot happen: the same bytes lex the same
+		}
+	}
+	lexDiags := old.head
+	var diags Diagnostics
+	for _, ch := range out.chunks {
+		lexDiags = append(lexDiags, ch.lex...)
+		diags = append(diags, ch.diags...)
+	}
+	c.lexed, c.partial = out.lexed, true
+	c.prev = &lastParse{src: source, chunks: out.chunks, comments: out.comments, head: old.head, badRuns: len(out.runs), runs: out.runs}
+	out.f.Comments = out.comments
+	return out.f, append(lexDiags, diags...), true
+}
+
+// reparsed is a re-parse being put together.
+type reparsed struct {
+	c        *Cache
+	old      *lastParse
+	src      *Source
+	d        int // the edit's change in length
+	f        *File
+	chunks   []chunkRecord
+	comments []Comment
+	runs     []int32 // where the runs of invalid characters start
+	slab     nodeSlab
+	lexed    int // bytes lexed
+}
+
+// keep takes the old statement ch, whose text is now delta bytes further
+// on: in place when it resolves to the same position in the new text
+// (which, unless check, the caller knows) and is not too old, else moved.
+func (o *reparsed) keep(ch chunkRecord, delta int, check bool) {
+	at := int(ch.start) + delta
+	st := ch.st
+	if st != nil {
+		old := st.Source()
+		if delta != 0 || old.gen+maxSourceAge < o.src.gen || old.Name() != o.src.Name() ||
+			(check && old.Pos(int(ch.start)) != o.src.Pos(at)) {
+			st = moved(st, o.src, at)
+		}
+		o.f.Statements = append(o.f.Statements, st)
+		o.c.count(true)
+	}
+	ch.start, ch.firstEnd, ch.st = int32(at), ch.firstEnd+int32(delta), st
+	o.chunks = append(o.chunks, ch)
+}
+
+// movedComment is the old comment cm, d bytes further on in the new text.
+func (o *reparsed) movedComment(cm Comment) Comment {
+	at := cm.Span.Start.Offset + o.d
+	text := o.src.text[at : at+len(cm.Text)]
+	return Comment{Span: o.src.Span(Token{Value: text, Offset: int32(at)}), Text: text}
+}
+
+// lex lexes and parses the new text from offset from, where a statement
+// starts whose first token has FirstOnLine nl, up to the first statement
+// stop accepts, and returns where that starts (-1 at the end of the
+// text).
+func (o *reparsed) lex(from int, nl bool, stop func(Token) bool) int {
+	l := newLexState(o.src)
+	l.off, l.nl = from, nl
+	l.badRuns, l.runs = len(o.runs), o.runs
+	b := &groupLexer{l: l, stop: stop}
+	first := len(o.chunks)
+	lexGroups(b, func(g *lexedGroup) {
+		for i, r := range parseGroup(g.g, g.chunks, o.c, &o.slab) {
+			if r.st != nil {
+				o.f.Statements = append(o.f.Statements, r.st)
+			}
+			o.chunks = append(o.chunks, g.record(i, r))
+		}
+	})
+	o.lexed += l.off - from
+	o.comments = append(o.comments, l.comments...)
+	o.runs = l.runs
+	attributeLex(o.chunks[first:], l.diags) // a segment starts with a statement: none before it
+	return b.stopped
+}
+
+// windowKeys are the cache keys of the statements that parsed cleanly
+// among chunks, up to maxReparseWindow bytes on, so that a statement the
+// edit moved within its window is found again.
+func (c *Cache) windowKeys(chunks []chunkRecord) map[cacheKey]*Statement {
+	keys := map[cacheKey]*Statement{}
+	for _, ch := range chunks {
+		if int(ch.start-chunks[0].start) > maxReparseWindow {
+			break
+		}
+		if k, ok := recordKey(ch); ok {
+			keys[k] = ch.st
+		}
+	}
+	return keys
+}
+
+// recordKey is the cache key of a statement of a parse that parsed
+// cleanly.
+func recordKey(ch chunkRecord) (cacheKey, bool) {
+	if !ch.clean() || ch.st.Broken || ch.st.g == nil {
+		return cacheKey{}, false
+	}
+	return statementKey(ch.st.g.src, ch.st.g.toks[ch.st.start:ch.st.end])
+}
+
+// commentsFrom is the index of the first of comments (in file order) at
+// or after offset at.
+func commentsFrom(comments []Comment, at int) int {
+	return sort.Search(len(comments), func(i int) bool { return comments[i].Span.Start.Offset >= at })
+}
+
+// commonPrefix is the length of the longest common prefix of a and b.
+func commonPrefix(a, b string) int {
+	n := min(len(a), len(b))
+	i := 0
+	for i+8 <= n && a[i:i+8] == b[i:i+8] {
+		i += 8
+	}
+	for i < n && a[i] == b[i] {
+		i++
+	}
+	return i
+}
+
+// commonSuffix is the length of the longest common suffix of a and b.
+func commonSuffix(a, b string) int {
+	n := min(len(a), len(b))
+	i := 0
+	for i+8 <= n && a[len(a)-i-8:len(a)-i] == b[len(b)-i-8:len(b)-i] {
+		i += 8
+	}
+	for i < n && a[len(a)-1-i] == b[len(b)-1-i] {
+		i++
+	}
+	return i
+}

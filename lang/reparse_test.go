@@ -1,0 +1,175 @@
+package lang
+
+import (
+	"bytes"
+	"fmt"
+	"math/rand/v2"
+	"reflect"
+	"strings"
+	"testing"
+	"unsafe"
+)
+
+// checkReparse parses src through the cache and whole, and fails unless
+// the trees, the diagnostics and the comments are the same.
+func checkReparse(t testing.TB, c *Cache, src []byte) {
+	t.Helper()
+	got, gotDiags := ParseCached("f.hess", src, c)
+	want, wantDiags := Parse("f.hess", src)
+	if fmt.Sprint(gotDiags) != fmt.Sprint(wantDiags) {
+		t.Fatalf("diagnostics differ\n got  %v\n want %v\ntext:\n%s", gotDiags, wantDiags, src)
+	}
+	if len(got.Statements) != len(want.Statements) {
+		t.Fatalf("%d statements, want %d\ntext:\n%s", len(got.Statements), len(want.Statements), src)
+	}
+	for i := range got.Statements {
+		if !sameTree(reflect.ValueOf(got.Statements[i]), reflect.ValueOf(want.Statements[i])) {
+			t.Fatalf("statement %d at %v differs from a fresh parse\ntext:\n%s", i, want.Statements[i].Position(), src)
+		}
+		if got.Statements[i].Source().Text()[got.Statements[i].Span().Start.Offset:got.Statements[i].Span().End.Offset] != got.Statements[i].Text() {
+			t.Fatalf("statement %d does not resolve through its own text", i)
+		}
+	}
+	if !reflect.DeepEqual(got.Comments, want.Comments) {
+		t.Fatalf("comments differ\n got  %v\n want %v\ntext:\n%s", got.Comments, want.Comments, src)
+	}
+	for _, cm := range got.Comments {
+		if !sameString(cm.Text, got.Source.Text()[cm.Span.Start.Offset:]) {
+			t.Fatalf("comment %q is not a slice of the latest text", cm.Text)
+		}
+	}
+}
+
+// sameString reports whether s starts at the first byte of t.
+func sameString(s, t string) bool {
+	return len(s) == 0 || (strings.HasPrefix(t, s) && unsafeData(s) == unsafeData(t))
+}
+
+// editPieces are what the random edits insert: statement keywords, braces
+// and line ends that move statement boundaries, strings and comments that
+// run to the end of the line, a keyword cut short, non-ASCII text, and
+// now and then a byte the lexer reports.
+var editPieces = []string{
+	"\n", "\n", " ", "{", "}", "{\n", "}\n", ":", "2 ", "x", "H2O(g)", " + ", "<->", "->",
+	"reaction ", "reaction r: A(g) <-> B(g)\n", "species ", "species Q(g) { hf 1 kJ/mol }\n", "mixture m {\n",
+	"reac", "spec", "#", "# note\n", "\"", "\"text\"", "±", "é", "\r\n", "\t", "1.5e3", "kJ/mol", "include ",
+}
+
+// randomEdit deletes up to 12 bytes at a random place of src and inserts
+// up to three pieces there; hostile adds a byte the lexer reports.
+func randomEdit(r *rand.Rand, src []byte, hostile bool) []byte {
+	at := r.IntN(len(src) + 1)
+	del := min(r.IntN(13), len(src)-at)
+	if r.IntN(3) == 0 {
+		del = 0
+	}
+	var ins []byte
+	for range r.IntN(4) {
+		ins = append(ins, editPieces[r.IntN(len(editPieces))]...)
+	}
+	if hostile {
+		ins = append(ins, "\xff\x01"[r.IntN(2)])
+	}
+	out := append([]byte(nil), src[:at]...)
+	out = append(out, ins...)
+	return append(out, src[at+del:]...)
+}
+
+// TestReparseMatchesParse makes random edits, one after the other, to
+// texts with every kind of statement, comments, blocks, a byte order
+// mark and CR LF line ends, and checks after each that parsing through
+// the cache gives what parsing the whole text does; it also checks that
+// most edits were re-parsed only where they touched the text.
+func TestReparseMatchesParse(t *testing.T) {
+	gen, _ := generateNetwork(12 << 10)
+	bases := map[string][]byte{
+		"generated":  gen,
+		"bom-crlf":   append([]byte("\ufeff"), bytes.ReplaceAll(gen[:4<<10], []byte("\n"), []byte("\r\n"))...),
+		"one-line":   []byte("species A(g) { hf 1 kJ/mol } species B(g) { hf 2 kJ/mol } reaction r: A(g) <-> B(g) reaction s: B(g) -> A(g) { rate A 1 1/s n 0 Ea 1 kJ/mol }\n"),
+		"bad-runs":   []byte(strings.Repeat("species A(g) { hf 1 kJ/mol }\n\xff\x01 x\n", 60)),
+		"near-limit": []byte(strings.Repeat("species A(g) { hf 1 kJ/mol }\n\xff\x01 x\n", 49)),
+		"broken":     []byte("species A(g) {\n  hf 1\nreaction r: A(g) <-> \nspecies é(g) { s 1 J/mol/K }\n# c\njunk words here\nmixture m {\n  A(g) 1\n}\nreaction q A(g)\n"),
+	}
+	for name, base := range bases {
+		t.Run(name, func(t *testing.T) {
+			r := rand.New(rand.NewPCG(1, uint64(len(base))))
+			c := NewCache()
+			src := base
+			checkReparse(t, c, src)
+			short := 0
+			const edits = 400
+			for i := range edits {
+				// Now and then a byte the lexer reports as a bad run,
+				// after which the file is parsed whole until the text
+				// starts over.
+				src = randomEdit(r, src, i%100 == 90)
+				if len(src) > 3*len(base) || i%100 == 99 {
+					src = base
+				}
+				checkReparse(t, c, src)
+				if c.partial {
+					short++
+				}
+			}
+			// A tenth of the edits come after a bad run, and a few touch
+			// the first statement; past 100 runs of invalid characters,
+			// every parse is whole.
+			if !strings.HasSuffix(name, "runs") && !strings.HasSuffix(name, "limit") && short < edits*3/4 {
+				t.Errorf("only %d of %d edits were re-parsed where they touched the text", short, edits)
+			}
+			t.Logf("%d of %d edits re-parsed", short, edits)
+		})
+	}
+}
+
+// TestReparseLexesOnlyTheEdit checks that one-line edits in the middle of
+// a large file lex a few hundred bytes and parse one statement, and that
+// the statements before and after are the old ones, in place or moved.
+func TestReparseLexesOnlyTheEdit(t *testing.T) {
+	src, n := generateNetwork(256 << 10)
+	c := NewCache()
+	first, _ := ParseCached("f.hess", src, c)
+	mid := bytes.Index(src[len(src)/2:], []byte("\nreaction r")) + len(src)/2 + 1
+	colon := mid + bytes.IndexByte(src[mid:], ':') + 2
+	for _, e := range []struct {
+		name string
+		text []byte
+	}{
+		{"same length", append(append(append([]byte(nil), src[:colon]...), 'Z'), src[colon+1:]...)},
+		{"insert", append(append(append([]byte(nil), src[:colon]...), "2 "...), src[colon:]...)},
+		{"undo", src},
+	} {
+		f, _ := ParseCached("f.hess", e.text, c)
+		hits, parsed := c.Reused()
+		if c.lexed > 1000 || parsed != 1 || hits != n-1 {
+			t.Errorf("%s: lexed %d bytes, parsed %d statements, reused %d; want < 1000, 1 and %d", e.name, c.lexed, parsed, hits, n-1)
+		}
+		if f.Statements[0] != first.Statements[0] {
+			t.Errorf("%s: the first statement was not shared", e.name)
+		}
+		checkReparse(t, NewCache(), e.text)
+	}
+}
+
+// FuzzReparse parses a text, then an edit of it, through one cache, and
+// checks the second parse against a parse of the whole edited text.
+func FuzzReparse(f *testing.F) {
+	gen, _ := generateNetwork(2 << 10)
+	f.Add(string(gen), uint16(300), uint8(3), "2 ")
+	f.Add(string(gen), uint16(0), uint8(0), "reaction ")
+	f.Add("species A(g) { hf 1 kJ/mol }\nreaction r: A(g) <-> B(g)\n", uint16(13), uint8(1), "}\nspecies ")
+	f.Add("reaction r: A(g) <-> B(g) { dg 1 kJ/mol }\n# c\nreaction s: B(g) <-> C(g)\n", uint16(40), uint8(2), "\"")
+	f.Fuzz(func(t *testing.T, base string, at uint16, del uint8, ins string) {
+		if len(base) > 1<<16 || len(ins) > 256 {
+			return
+		}
+		c := NewCache()
+		ParseCached("f.hess", []byte(base), c)
+		i := min(int(at), len(base))
+		j := min(i+int(del), len(base))
+		checkReparse(t, c, []byte(base[:i]+ins+base[j:]))
+	})
+}
+
+// unsafeData is the address of the first byte of s.
+func unsafeData(s string) *byte { return unsafe.StringData(s) }
