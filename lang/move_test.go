@@ -477,9 +477,9 @@ func TestMovedMatchesReflectiveCopy(t *testing.T) {
 		}
 	}
 	if total < 5000 || broken < 50 {
-		t.Fatalf("moved %d statements (%d broken) of %d texts: too few to mean anything", total, broken, len(ins))
+		t.Fatalf("moved %d statements of %d texts holding %d broken ones: too few to mean anything", total, len(ins), broken)
 	}
-	t.Logf("moved %d statements (%d broken ones, each of three shifts) of %d texts", total, broken, len(ins))
+	t.Logf("moved %d statements (each text's three times) of %d texts holding %d broken ones", total, len(ins), broken)
 }
 
 // TestMovedCoversEveryField moves statements in which every field of every
