@@ -216,6 +216,7 @@ func (w *worker) cycle(ctx, cycleCtx context.Context, conn *jsonrpc2.Conn) {
 	w.cur.Store(snap)
 	w.publish(ctx, conn, diags, open, uriOf, force)
 	w.solveFeeds(roots)
+	collectAfterCycle()
 }
 
 // chooseRoots compiles the networks whose diagnostics are published: each
