@@ -173,3 +173,47 @@ func FuzzReparse(f *testing.F) {
 
 // unsafeData is the address of the first byte of s.
 func unsafeData(s string) *byte { return unsafe.StringData(s) }
+
+// TestLineageFollowsMovedStatements checks that a statement an edit moved
+// keeps its Lineage, that one in place is the same statement, and that a
+// statement parsed anew has a Lineage no other has.
+func TestLineageFollowsMovedStatements(t *testing.T) {
+	src, _ := generateNetwork(32 << 10)
+	c := NewCache()
+	before, _ := ParseCached("f.hess", src, c)
+	mid := bytes.Index(src[len(src)/2:], []byte("\nreaction ")) + len(src)/2 + 1
+	edited := append(append(append([]byte(nil), src[:mid]...), "reaction new: A(g) <-> B(g)\n"...), src[mid:]...)
+	after, _ := ParseCached("f.hess", edited, c)
+	if len(after.Statements) != len(before.Statements)+1 {
+		t.Fatalf("%d statements, want %d", len(after.Statements), len(before.Statements)+1)
+	}
+	seen := map[uint64]bool{}
+	for _, st := range before.Statements {
+		if seen[st.Lineage()] || st.Lineage() == 0 {
+			t.Fatalf("lineage %d given twice or zero", st.Lineage())
+		}
+		seen[st.Lineage()] = true
+	}
+	inserted := 0
+	for i, st := range after.Statements {
+		switch {
+		case st.Text() == "reaction new: A(g) <-> B(g)":
+			inserted = i
+			if seen[st.Lineage()] {
+				t.Errorf("the new statement has an old statement's lineage")
+			}
+		case inserted == 0:
+			if st != before.Statements[i] {
+				t.Errorf("statement %d before the edit is not the one of the last parse", i)
+			}
+		default:
+			old := before.Statements[i-1]
+			if st == old || st.Lineage() != old.Lineage() || st.Text() != old.Text() {
+				t.Errorf("statement %d after the edit: moved %v, lineage %d, want a moved copy of lineage %d", i, st != old, st.Lineage(), old.Lineage())
+			}
+		}
+	}
+	if inserted == 0 {
+		t.Fatal("the inserted statement is not there")
+	}
+}

@@ -28,11 +28,11 @@ type compileMemo struct {
 	mu        sync.Mutex
 	env       string // speciesEnv of the compile the reactions are from
 	reactions map[*lang.Statement]*memoReaction
-	// moved are the reactions of reactions that refer to no
-	// position but their statement's (positionFree), by file and statement
-	// text: a statement that an edit before it moved is a new statement
-	// with the same text, whose build is the same but for its node.
-	moved  map[statementText]*memoReaction
+	// moved are the reactions that refer to no position but their
+	// statement's (positionFree), by the statement's lineage: a statement
+	// that an edit before it moved is a copy with the same text and
+	// lineage, whose build is the same but for its node.
+	moved  map[uint64]*memoReaction
 	reused int // reactions the latest compile took from the memo, for tests
 
 	elements      string // elementsEnv of the compile the species are from
@@ -119,25 +119,22 @@ func speciesEnv(n *Network) string {
 func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, reactionEntries) {
 	memo.mu.Lock()
 	var prev map[*lang.Statement]*memoReaction
-	var prevMoved map[statementText]*memoReaction
+	var prevMoved map[uint64]*memoReaction
 	if memo.env == env {
 		prev, prevMoved = memo.reactions, memo.moved
 	}
 	memo.mu.Unlock()
 	out := make([]builtReaction, len(sts))
 	reused := make([]bool, len(sts))
-	texts := make([]statementText, len(sts))
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
-		same := speciesRemap{}
 		return func(i int) {
-			texts[i] = textOf(sts[i])
 			m := prev[sts[i]]
 			if m == nil {
-				m = prevMoved[texts[i]] // only position-free builds are there
+				m = prevMoved[sts[i].Lineage()] // only position-free builds are there
 			}
 			if m != nil {
-				out[i], reused[i] = m.restore(c.net, same, sts[i].Reaction), true
+				out[i], reused[i] = m.restore(c.net, sts[i].Reaction), true
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
@@ -145,14 +142,16 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	})
 	next := reactionEntries{
 		byStatement: make(map[*lang.Statement]*memoReaction, len(sts)),
-		moved:       make(map[statementText]*memoReaction, len(sts)),
+		moved:       make(map[uint64]*memoReaction, len(sts)),
 	}
+	entries := make([]memoReaction, len(sts)) // one allocation for all
 	n := 0
 	for i, st := range sts {
-		e := &memoReaction{built: out[i]}
+		e := &entries[i]
+		e.built = out[i]
 		next.byStatement[st] = e
-		if texts[i].text != "" && positionFree(out[i]) {
-			next.moved[texts[i]] = e
+		if positionFree(out[i]) {
+			next.moved[st.Lineage()] = e
 		}
 		if reused[i] {
 			n++
@@ -167,18 +166,7 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 // reactionEntries are the memo entries of one compile's reactions.
 type reactionEntries struct {
 	byStatement map[*lang.Statement]*memoReaction
-	moved       map[statementText]*memoReaction
-}
-
-// statementText is a statement's file and exact text: what its build
-// depends on besides its position and the species.
-type statementText struct {
-	file, text string
-}
-
-// textOf is the statement's statementText (text "" when it has no tokens).
-func textOf(st *lang.Statement) statementText {
-	return statementText{file: st.Source().Name(), text: st.Text()}
+	moved       map[uint64]*memoReaction
 }
 
 // positionFree reports whether a built reaction refers to no position but
@@ -204,16 +192,14 @@ func (m *compileMemo) commit(env string, entries reactionEntries, elements strin
 
 // restore builds a fresh copy of the entry for the network n and the
 // statement st (the one it was built from, or a moved one of the same
-// text), its species found by key among n's (the species signature being
-// equal, each key names the species of the same declaration it named
-// before).
-func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction) builtReaction {
+// text), its species those of n declared where they were (sameSpecies).
+func (m *memoReaction) restore(n *Network, st *lang.Reaction) builtReaction {
 	b := m.built
 	b.diags = slices.Clone(m.built.diags)
 	b.propDiags = slices.Clone(m.built.propDiags)
 	b.mentioned = nil
 	for _, sp := range m.built.mentioned {
-		b.mentioned = append(b.mentioned, same.of(n, sp))
+		b.mentioned = append(b.mentioned, sameSpecies(n, sp))
 	}
 	if rx := m.built.rx; rx != nil {
 		b.rx = copyReaction(rx)
@@ -224,7 +210,7 @@ func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction)
 		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
 			for i, t := range side {
 				if t.Species != nil {
-					side[i].Species = same.of(n, t.Species)
+					side[i].Species = sameSpecies(n, t.Species)
 				}
 			}
 		}
@@ -232,20 +218,15 @@ func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction)
 	return b
 }
 
-// speciesRemap is one worker's record of which species of this compile
-// has the key of a species of the last: a reaction taken from the memo
-// finds its species again through it, by pointer, looking a key up only
-// once per species.
-type speciesRemap map[*Species]*Species
-
-// of is the species of n with sp's key.
-func (r speciesRemap) of(n *Network, sp *Species) *Species {
-	if to, ok := r[sp]; ok {
-		return to
+// sameSpecies is the species of n declared where sp was declared in the
+// network it is of: the species signatures of the two networks being
+// equal (speciesEnv), that is the species with sp's key, found by
+// declaration index rather than by key.
+func sameSpecies(n *Network, sp *Species) *Species {
+	if i := sp.index; i >= 0 && i < len(n.Species) && n.Species[i].Key == sp.Key {
+		return n.Species[i]
 	}
-	to := n.speciesByKey[sp.Key]
-	r[sp] = to
-	return to
+	return n.speciesByKey[sp.Key]
 }
 
 // copyReaction copies a reaction as built (no combination yet) so that the
