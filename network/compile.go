@@ -151,7 +151,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	}
 	var elements string
 	var speciesEntries map[*lang.Species]*memoSpecies
-	var from map[*Species]*Species
+	var from *speciesOrigins
 	if memo != nil {
 		elements = elementsEnv(n)
 		speciesEntries, from = c.speciesDataReusing(species, memo, elements)
@@ -193,10 +193,16 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	if err := ctx.Err(); err != nil {
 		return err
 	}
-	buildModels(n)
+	var reuse *modelReuse
+	if memo != nil {
+		memo.mu.Lock()
+		reuse = &modelReuse{from: from, pressure: memo.pressure}
+		memo.mu.Unlock()
+	}
+	buildModels(n, reuse)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries, elements, speciesEntries, from)
+		memo.commit(env, entries, elements, speciesEntries, from, n.StandardPressure())
 	}
 	return nil
 }

@@ -40,7 +40,10 @@ type compileMemo struct {
 	reusedSpecies int // species statements the latest compile took from the memo
 	// from maps each species of the latest compile whose data were taken
 	// from the memo to the species they were taken from.
-	from map[*Species]*Species
+	from *speciesOrigins
+	// pressure is the standard pressure of the latest compile's network,
+	// which its species' models were built for.
+	pressure float64
 
 	checks checkMemo // species-local check findings (check_reuse.go)
 }
@@ -183,11 +186,11 @@ func positionFree(b builtReaction) bool {
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
+func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	m.env, m.reactions, m.moved = env, entries.byStatement, entries.moved
-	m.elements, m.species, m.from = elements, species, from
+	m.elements, m.species, m.from, m.pressure = elements, species, from, pressure
 }
 
 // restore builds a fresh copy of the entry for the network n and the
@@ -285,7 +288,7 @@ func elementsEnv(n *Network) string {
 // the memo compiled with the same species declared and the same elements
 // from the memo. It returns the entries for the next compile, and which
 // species took their data from which of the last compile's.
-func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, map[*Species]*Species) {
+func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, *speciesOrigins) {
 	memo.mu.Lock()
 	var prev map[*lang.Species]*memoSpecies
 	if memo.elements == elements {
@@ -309,15 +312,17 @@ func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo,
 		}
 	})
 	next := make(map[*lang.Species]*memoSpecies, len(list))
-	from := map[*Species]*Species{}
+	entries := make([]memoSpecies, len(list)) // one allocation for all
+	from := &speciesOrigins{species: c.net.Species, old: make([]*Species, len(c.net.Species))}
 	n := 0
 	for i, d := range list {
 		c.net.Diagnostics = append(c.net.Diagnostics, diags[i]...)
-		next[d.st] = &memoSpecies{declared: d.declared, diags: diags[i]}
+		entries[i] = memoSpecies{declared: d.declared, diags: diags[i]}
+		next[d.st] = &entries[i]
 		if reused[i] {
 			n++
 			for j, sp := range d.declared {
-				from[sp] = prev[d.st].declared[j]
+				from.old[sp.index] = prev[d.st].declared[j]
 			}
 		}
 	}
@@ -353,4 +358,21 @@ func copySpeciesData(dst, src *Species) {
 	dst.Ranges = slices.Clone(src.Ranges)
 	dst.Source, dst.Note = src.Source, src.Note
 	dst.BrokenData = src.BrokenData
+}
+
+// speciesOrigins maps each species of one compile, by declaration index,
+// to the species of the compile before whose data it took (nil where it
+// took none).
+type speciesOrigins struct {
+	species []*Species // the compile's, in declaration order
+	old     []*Species
+}
+
+// of is the species whose data sp took, nil when it took none or is not
+// a species of the compile o is of.
+func (o *speciesOrigins) of(sp *Species) *Species {
+	if o == nil || sp.index < 0 || sp.index >= len(o.old) || o.species[sp.index] != sp {
+		return nil
+	}
+	return o.old[sp.index]
 }
