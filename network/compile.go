@@ -103,7 +103,17 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 			nReactions++
 		}
 	})
-	c.prepared = prepareRefs(refs, refBroken)
+	var prevRefs map[*lang.SpeciesRef]*Species
+	if memo != nil {
+		memo.mu.Lock()
+		prevRefs = memo.refs
+		memo.mu.Unlock()
+	}
+	c.prepared = prepareRefs(refs, refBroken, prevRefs)
+	var nextRefs map[*lang.SpeciesRef]*Species
+	if memo != nil {
+		nextRefs = preparedSpecies(c.prepared)
+	}
 	n.speciesByKey = make(map[string]*Species, nSpecies)
 	c.declared = make(map[string]*Species, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)
@@ -202,7 +212,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	buildModels(n, reuse)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries, elements, speciesEntries, from, n.StandardPressure())
+		memo.commit(env, entries, elements, speciesEntries, from, n.StandardPressure(), nextRefs)
 	}
 	return nil
 }

@@ -44,6 +44,9 @@ type compileMemo struct {
 	// pressure is the standard pressure of the latest compile's network,
 	// which its species' models were built for.
 	pressure float64
+	// refs are the species each species reference of the latest compile
+	// made (prepareRefs).
+	refs map[*lang.SpeciesRef]*Species
 
 	checks checkMemo // species-local check findings (check_reuse.go)
 }
@@ -186,11 +189,11 @@ func positionFree(b builtReaction) bool {
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64) {
+func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64, refs map[*lang.SpeciesRef]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	m.env, m.reactions, m.moved = env, entries.byStatement, entries.moved
-	m.elements, m.species, m.from, m.pressure = elements, species, from, pressure
+	m.elements, m.species, m.from, m.pressure, m.refs = elements, species, from, pressure, refs
 }
 
 // restore builds a fresh copy of the entry for the network n and the
