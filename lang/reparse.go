@@ -89,20 +89,23 @@ func (g *lexedGroup) record(i int, r result) chunkRecord {
 // one goroutine; a larger edit parses the whole file, in parallel.
 const maxReparseWindow = 256 << 10
 
-// reparse parses source, an edit of the text of the cache's last parse,
-// lexing and parsing only the statements the edit touched (see the top of
+// textEdit is where a text differs from an earlier one: the lengths of
+// their common prefix and, after it, their common suffix.
+type textEdit struct{ prefix, suffix int }
+
+// reparse parses source, the text of the cache's last parse changed where
+// edit says, lexing and parsing only the statements the edit touched (see the top of
 // this file). It reports false, having changed nothing, when it cannot:
 // no last parse of the same file, a last parse whose lexer reported as
 // many runs of invalid characters as it reports, or an edit too large for
 // maxReparseWindow.
-func (c *Cache) reparse(source *Source) (*File, Diagnostics, bool) {
+func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool) {
 	old := c.prev
 	if old == nil || old.badRuns >= maxLexDiagnostics || old.src.Name() != source.Name() || len(old.chunks) == 0 {
 		return nil, nil, false
 	}
 	ot, nt := old.src.text, source.text
-	p := commonPrefix(ot, nt)
-	s := commonSuffix(ot[p:], nt[p:])
+	p, s := edit.prefix, edit.suffix
 	d := len(nt) - len(ot)
 	newEnd := len(nt) - s // the new text differs from the old in [p, newEnd)
 	chunks := old.chunks

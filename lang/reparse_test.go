@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/rand/v2"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 	"unsafe"
@@ -29,6 +30,9 @@ func checkReparse(t testing.TB, c *Cache, src []byte) {
 		if got.Statements[i].Source().Text()[got.Statements[i].Span().Start.Offset:got.Statements[i].Span().End.Offset] != got.Statements[i].Text() {
 			t.Fatalf("statement %d does not resolve through its own text", i)
 		}
+	}
+	if msg := sourceDiff(got.Source, want.Source); msg != "" {
+		t.Fatalf("the source's index differs from a fresh one: %s\ntext:\n%s", msg, src)
 	}
 	if !reflect.DeepEqual(got.Comments, want.Comments) {
 		t.Fatalf("comments differ\n got  %v\n want %v\ntext:\n%s", got.Comments, want.Comments, src)
@@ -215,5 +219,57 @@ func TestLineageFollowsMovedStatements(t *testing.T) {
 	}
 	if inserted == 0 {
 		t.Fatal("the inserted statement is not there")
+	}
+}
+
+// sourceDiff says how two sources' names, texts and indexes differ ("" when
+// they do not).
+func sourceDiff(a, b *Source) string {
+	switch {
+	case a.name != b.name || a.text != b.text:
+		return "name or text"
+	case !slices.Equal(a.lines, b.lines):
+		return fmt.Sprintf("lines %v, want %v", a.lines, b.lines)
+	case !slices.Equal(a.wide, b.wide):
+		return fmt.Sprintf("wide %b, want %b", a.wide, b.wide)
+	case !slices.Equal(a.marks, b.marks):
+		return fmt.Sprintf("marks %v, want %v", a.marks, b.marks)
+	}
+	return ""
+}
+
+// TestEditedSourceMatchesNew makes random edits to texts with CR LF line
+// ends, lines beyond ASCII, a byte order mark and long lines, and checks
+// that each edited source indexes its text as a new one does.
+func TestEditedSourceMatchesNew(t *testing.T) {
+	gen, _ := generateNetwork(8 << 10)
+	long := strings.Repeat("x", markEvery+10)
+	bases := []string{
+		string(gen),
+		"\ufeff" + strings.ReplaceAll(string(gen[:2000]), "\n", "\r\n"),
+		"a é b\nline two ±\n\nthree\n" + string(gen[:1000]),
+		"first\n" + long + "\nafter é\n" + long + "é\nend",
+		"",
+		"\n\n\n",
+	}
+	pieces := []string{"\n", "é", "x", "\r\n", "±±", long, "ab\ncd", ""}
+	for bi, base := range bases {
+		r := rand.New(rand.NewPCG(7, uint64(bi)))
+		s := NewSource("f", base)
+		for range 300 {
+			text := s.text
+			at := r.IntN(len(text) + 1)
+			del := min(r.IntN(20), len(text)-at)
+			next := text[:at] + pieces[r.IntN(len(pieces))] + pieces[r.IntN(len(pieces))] + text[at+del:]
+			p := commonPrefix(text, next)
+			e := s.edited(next, textEdit{prefix: p, suffix: commonSuffix(text[p:], next[p:])})
+			if msg := sourceDiff(e, NewSource("f", next)); msg != "" {
+				t.Fatalf("base %d: %s\nbefore %q\nafter %q", bi, msg, text, next)
+			}
+			s = e
+			if len(s.text) > 4*len(base)+3*len(long) {
+				s = NewSource("f", base)
+			}
+		}
 	}
 }
