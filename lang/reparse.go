@@ -301,12 +301,14 @@ func commentsFrom(comments []Comment, at int) int {
 	return sort.Search(len(comments), func(i int) bool { return comments[i].Span.Start.Offset >= at })
 }
 
-// commonPrefix is the length of the longest common prefix of a and b.
+// commonPrefix is the length of the longest common prefix of a and b,
+// compared a block at a time (string comparison is vectorised) and then
+// byte by byte in the block that differs.
 func commonPrefix(a, b string) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && a[i:i+8] == b[i:i+8] {
-		i += 8
+	for i+compareBlock <= n && a[i:i+compareBlock] == b[i:i+compareBlock] {
+		i += compareBlock
 	}
 	for i < n && a[i] == b[i] {
 		i++
@@ -318,11 +320,15 @@ func commonPrefix(a, b string) int {
 func commonSuffix(a, b string) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && a[len(a)-i-8:len(a)-i] == b[len(b)-i-8:len(b)-i] {
-		i += 8
+	for i+compareBlock <= n && a[len(a)-i-compareBlock:len(a)-i] == b[len(b)-i-compareBlock:len(b)-i] {
+		i += compareBlock
 	}
 	for i < n && a[len(a)-1-i] == b[len(b)-1-i] {
 		i++
 	}
 	return i
 }
+
+// compareBlock is how many bytes commonPrefix and commonSuffix compare at
+// once.
+const compareBlock = 256

@@ -273,3 +273,34 @@ func TestEditedSourceMatchesNew(t *testing.T) {
 		}
 	}
 }
+
+// TestCommonPrefixSuffix checks commonPrefix and commonSuffix against a
+// byte-by-byte count, around the block size they compare by.
+func TestCommonPrefixSuffix(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	for range 2000 {
+		n := r.IntN(3 * compareBlock)
+		a := make([]byte, n)
+		for i := range a {
+			a[i] = byte('a' + r.IntN(2))
+		}
+		b := slices.Clone(a)
+		if n > 0 && r.IntN(4) > 0 {
+			b[r.IntN(n)] ^= 1
+		}
+		b = b[:r.IntN(n+1)]
+		p, s := 0, 0
+		for p < min(len(a), len(b)) && a[p] == b[p] {
+			p++
+		}
+		for s < min(len(a), len(b)) && a[len(a)-1-s] == b[len(b)-1-s] {
+			s++
+		}
+		if got := commonPrefix(string(a), string(b)); got != p {
+			t.Fatalf("commonPrefix(%q, %q) = %d, want %d", a, b, got, p)
+		}
+		if got := commonSuffix(string(a), string(b)); got != s {
+			t.Fatalf("commonSuffix(%q, %q) = %d, want %d", a, b, got, s)
+		}
+	}
+}
