@@ -166,6 +166,7 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 		return nil, nil, false // cannot happen: stop set sync
 	}
 
+	samePlaces := d == 0 && len(source.lines) == len(old.src.lines)
 	// The statements after the edit, moved; those that did not parse
 	// cleanly are read again, since their messages may name places.
 	for j := sync; j < len(chunks); j++ {
@@ -177,7 +178,11 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 		// A statement with diagnostics at the same place as before keeps
 		// them: every position in it is the same.
 		if ch.clean() || (d == 0 && ch.st != nil && ch.st.Source().Pos(int(ch.start)) == source.Pos(int(ch.start))) {
-			out.keep(ch, d, true)
+			// With the text's length and its number of lines unchanged, a
+			// statement on a line that starts after the edit is at the
+			// same line and column as before.
+			check := !samePlaces || int(source.lines[source.line(int(ch.start)+d)]) < newEnd
+			out.keep(ch, d, check)
 			from, to := commentsFrom(old.comments, int(ch.start)), commentsFrom(old.comments, next)
 			for _, cm := range old.comments[from:to] {
 				out.comments = append(out.comments, out.movedComment(cm))
