@@ -225,11 +225,12 @@ func (m *memoReaction) restore(n *Network, st *lang.Reaction) builtReaction {
 }
 
 // sameSpecies is the species of n declared where sp was declared in the
-// network it is of: the species signatures of the two networks being
-// equal (speciesEnv), that is the species with sp's key, found by
-// declaration index rather than by key.
+// network it is of. The memo's reactions are taken only when the two
+// networks' species signatures are equal (speciesEnv: every key, in
+// declaration order), so that is the species with sp's key, found by
+// declaration index without reading either species' key.
 func sameSpecies(n *Network, sp *Species) *Species {
-	if i := sp.index; i >= 0 && i < len(n.Species) && n.Species[i].Key == sp.Key {
+	if i := sp.index; i >= 0 && i < len(n.Species) {
 		return n.Species[i]
 	}
 	return n.speciesByKey[sp.Key]
