@@ -179,7 +179,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	})
 	var built []builtReaction
 	var env string
-	var entries reactionEntries
+	var entries map[uint64]*memoReaction
 	if memo != nil {
 		env = speciesEnv(n)
 		built, entries = c.buildReactionsReusing(reactions, memo, env)

@@ -26,14 +26,14 @@ import (
 // last completed compile. It serves one load at a time.
 type compileMemo struct {
 	mu        sync.Mutex
-	env       string // speciesEnv of the compile the reactions are from
-	reactions map[*lang.Statement]*memoReaction
-	// moved are the reactions that refer to no position but their
-	// statement's (positionFree), by the statement's lineage: a statement
-	// that an edit before it moved is a copy with the same text and
-	// lineage, whose build is the same but for its node.
-	moved  map[uint64]*memoReaction
-	reused int // reactions the latest compile took from the memo, for tests
+	env string // speciesEnv of the compile the reactions are from
+	// reactions are the last compile's, by their statements' lineage: a
+	// statement in place is the same statement, and one that an edit
+	// before it moved is a copy with the same text and lineage, whose
+	// build is the same but for its node when it refers to no position but
+	// its statement's (positionFree).
+	reactions map[uint64]*memoReaction
+	reused    int // reactions the latest compile took from the memo, for tests
 
 	elements      string // elementsEnv of the compile the species are from
 	species       map[*lang.Species]*memoSpecies
@@ -57,6 +57,7 @@ type compileMemo struct {
 // Its species are those of the network it was built for; a copy for
 // another network finds them again by key.
 type memoReaction struct {
+	st    *lang.Statement // the statement it was built from
 	built builtReaction
 }
 
@@ -122,12 +123,11 @@ func speciesEnv(n *Network) string {
 // memo compiled under the same species from the memo. It returns the built
 // reactions and the memo entries for the next compile, which refer to
 // this compile's reactions (so that the last network is not kept).
-func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, reactionEntries) {
+func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, map[uint64]*memoReaction) {
 	memo.mu.Lock()
-	var prev map[*lang.Statement]*memoReaction
-	var prevMoved map[uint64]*memoReaction
+	var prev map[uint64]*memoReaction
 	if memo.env == env {
-		prev, prevMoved = memo.reactions, memo.moved
+		prev = memo.reactions
 	}
 	memo.mu.Unlock()
 	out := make([]builtReaction, len(sts))
@@ -135,30 +135,21 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
 		return func(i int) {
-			m := prev[sts[i]]
-			if m == nil {
-				m = prevMoved[sts[i].Lineage()] // only position-free builds are there
-			}
-			if m != nil {
+			// The statement itself, or a moved copy of it whose build
+			// refers to no position but the statement's.
+			if m := prev[sts[i].Lineage()]; m != nil && (m.st == sts[i] || positionFree(m.built)) {
 				out[i], reused[i] = m.restore(c.net, sts[i].Reaction), true
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
 		}
 	})
-	next := reactionEntries{
-		byStatement: make(map[*lang.Statement]*memoReaction, len(sts)),
-		moved:       make(map[uint64]*memoReaction, len(sts)),
-	}
+	next := make(map[uint64]*memoReaction, len(sts))
 	entries := make([]memoReaction, len(sts)) // one allocation for all
 	n := 0
 	for i, st := range sts {
-		e := &entries[i]
-		e.built = out[i]
-		next.byStatement[st] = e
-		if positionFree(out[i]) {
-			next.moved[st.Lineage()] = e
-		}
+		entries[i] = memoReaction{st: st, built: out[i]}
+		next[st.Lineage()] = &entries[i]
 		if reused[i] {
 			n++
 		}
@@ -167,12 +158,6 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	memo.reused = n
 	memo.mu.Unlock()
 	return out, next
-}
-
-// reactionEntries are the memo entries of one compile's reactions.
-type reactionEntries struct {
-	byStatement map[*lang.Statement]*memoReaction
-	moved       map[uint64]*memoReaction
 }
 
 // positionFree reports whether a built reaction refers to no position but
@@ -189,10 +174,10 @@ func positionFree(b builtReaction) bool {
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64, refs map[*lang.SpeciesRef]*Species) {
+func (m *compileMemo) commit(env string, entries map[uint64]*memoReaction, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64, refs map[*lang.SpeciesRef]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
-	m.env, m.reactions, m.moved = env, entries.byStatement, entries.moved
+	m.env, m.reactions = env, entries
 	m.elements, m.species, m.from, m.pressure, m.refs = elements, species, from, pressure, refs
 }
 
