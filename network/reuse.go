@@ -25,7 +25,7 @@ import (
 // compileMemo is one root's compiled species data and reactions from its
 // last completed compile. It serves one load at a time.
 type compileMemo struct {
-	mu        sync.Mutex
+	mu  sync.Mutex
 	env string // speciesEnv of the compile the reactions are from
 	// reactions are the last compile's, by their statements' lineage: a
 	// statement in place is the same statement, and one that an edit
