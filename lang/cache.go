@@ -62,18 +62,23 @@ func (c *Cache) Reused() (hits, parsed int) {
 // edit of the one the cache last parsed is lexed and parsed only where
 // the edit touched it (reparse.go).
 func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
+	return ParseCachedText(file, string(src), c)
+}
+
+// ParseCachedText is ParseCached of a text given as a string, which the
+// syntax tree keeps without copying it.
+func ParseCachedText(file, text string, c *Cache) (*File, Diagnostics) {
 	if c == nil {
-		return Parse(file, src)
+		return ParseText(file, text)
 	}
 	c.mu.Lock()
 	c.gen++
 	c.hits, c.misses = 0, 0
 	c.mu.Unlock()
-	if len(src) > MaxSourceBytes {
+	if len(text) > MaxSourceBytes {
 		c.prev = nil
-		return Parse(file, src)
+		return ParseText(file, text)
 	}
-	text := string(src)
 	var source *Source
 	var edit textEdit // where text differs from the last parse's
 	if c.prev != nil && c.prev.src.Name() == file {
@@ -100,7 +105,7 @@ func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 	c.last, c.next, c.hits, c.misses = keys, make(map[cacheKey]*Statement, len(keys)), 0, 0
 	c.mu.Unlock()
 	f, diags, last := parseSource(source, c)
-	c.lexed, c.partial = len(src), false
+	c.lexed, c.partial = len(text), false
 	c.mu.Lock()
 	c.prev, c.last, c.next = last, nil, nil
 	c.mu.Unlock()

@@ -305,22 +305,17 @@ func (b *groupLexer) end() Token {
 // first on its line, so a block missing its `}` ends where the next
 // statement begins on a new line.
 func Parse(file string, src []byte) (*File, Diagnostics) {
-	f, diags, _ := parse(file, src, nil)
-	return f, diags
+	return ParseText(file, string(src))
 }
 
-// parse is Parse with an optional statement cache. With a cache it also
-// returns what the cache keeps of the parse for re-parsing an edit of the
-// text (see Cache.reparse).
-func parse(file string, src []byte, cache *Cache) (*File, Diagnostics, *lastParse) {
-	if len(src) > MaxSourceBytes {
-		return &File{Name: file}, Diagnostics{tooLarge(file)}, nil
+// ParseText is Parse of a text given as a string, which the syntax tree
+// keeps (token values and strings are slices of it) without copying it.
+func ParseText(file, text string) (*File, Diagnostics) {
+	if len(text) > MaxSourceBytes {
+		return &File{Name: file}, Diagnostics{tooLarge(file)}
 	}
-	source := NewSource(file, string(src))
-	if cache != nil {
-		source.gen = cache.generation()
-	}
-	return parseSource(source, cache)
+	f, diags, _ := parseSource(NewSource(file, text), nil)
+	return f, diags
 }
 
 // parseSource is parse of the text of source, at most MaxSourceBytes

@@ -3,6 +3,7 @@ package network
 import (
 	"bytes"
 	"sync"
+	"unsafe"
 
 	"hess/lang"
 )
@@ -61,7 +62,7 @@ func (p *ParseCaches) file(id string) *fileParse {
 // and must not be modified.
 func (c *fileParse) parse(path string, text []byte) (*lang.File, lang.Diagnostics) {
 	if c == nil {
-		return lang.Parse(path, text)
+		return lang.ParseText(path, inPlace(text))
 	}
 	c.mu.Lock()
 	defer c.mu.Unlock()
@@ -69,7 +70,7 @@ func (c *fileParse) parse(path string, text []byte) (*lang.File, lang.Diagnostic
 		c.whole++
 		return c.ast, c.diags
 	}
-	ast, diags := lang.ParseCached(path, text, c.stmts)
+	ast, diags := lang.ParseCachedText(path, inPlace(text), c.stmts)
 	c.path, c.text, c.ast, c.diags = path, text, ast, diags
 	return ast, diags
 }
@@ -103,4 +104,14 @@ func (p *ParseCaches) Len() int {
 	p.mu.Lock()
 	defer p.mu.Unlock()
 	return len(p.files)
+}
+
+// inPlace is text as a string without copying it: a Source's bytes never
+// change once read (see Source), so the syntax tree may keep them as the
+// network does, rather than a second copy of every file.
+func inPlace(text []byte) string {
+	if len(text) == 0 {
+		return ""
+	}
+	return unsafe.String(&text[0], len(text))
 }

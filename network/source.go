@@ -12,7 +12,9 @@ import (
 
 // Source reads the files of a network. The command line reads the disk; the
 // language server reads open editor buffers first, so unsaved edits in an
-// included file count.
+// included file count. The bytes ReadFile returns must never change
+// afterwards: the network keeps them, and its syntax tree reads them in
+// place (its token values are slices of them).
 type Source interface {
 	ReadFile(path string) ([]byte, error)
 }
