@@ -169,6 +169,7 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 	samePlaces := d == 0 && len(source.lines) == len(old.src.lines)
 	// The statements after the edit, moved; those that did not parse
 	// cleanly are read again, since their messages may name places.
+	relexed := 0 // bytes of statements after the edit lexed again
 	for j := sync; j < len(chunks); j++ {
 		ch := chunks[j]
 		next := len(ot) // where the next statement starts
@@ -177,7 +178,7 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 		}
 		// A statement with diagnostics at the same place as before keeps
 		// them: every position in it is the same.
-		if ch.clean() || (d == 0 && ch.st != nil && ch.st.Source().Pos(int(ch.start)) == source.Pos(int(ch.start))) {
+		if out.keepable(ch, d) {
 			// With the text's length and its number of lines unchanged, a
 			// statement on a line that starts after the edit is at the
 			// same line and column as before.
@@ -189,14 +190,26 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 			}
 			continue
 		}
-		want := -1
-		if j+1 < len(chunks) {
-			want = next + d
+		// A run of statements that cannot be kept is lexed again in one
+		// go, up to the next that can; a file with so many that this
+		// would read more than maxReparseWindow is parsed whole.
+		k := j + 1
+		for k < len(chunks) && !out.keepable(chunks[k], d) {
+			k++
 		}
-		stopped := out.lex(int(ch.start)+d, ch.firstOnLine, func(t Token) bool { return int(t.Offset) >= next+d })
+		want, end := -1, len(ot)
+		if k < len(chunks) {
+			end = int(chunks[k].start)
+			want = end + d
+		}
+		if relexed += end - int(ch.start); relexed > maxReparseWindow {
+			return nil, nil, false
+		}
+		stopped := out.lex(int(ch.start)+d, ch.firstOnLine, func(t Token) bool { return int(t.Offset) >= end+d })
 		if stopped != want {
 			return nil, nil, false // cannot happen: the same bytes lex the same
 		}
+		j = k - 1
 	}
 	lexDiags := old.head
 	var diags Diagnostics
@@ -241,6 +254,13 @@ func (o *reparsed) keep(ch chunkRecord, delta int, check bool) {
 	}
 	ch.start, ch.firstEnd, ch.st = int32(at), ch.firstEnd+int32(delta), st
 	o.chunks = append(o.chunks, ch)
+}
+
+// keepable reports whether the old statement ch, d bytes further on in
+// the new text, can be kept without lexing it again: it parsed cleanly, or
+// it stands at the same place, where its diagnostics say the same.
+func (o *reparsed) keepable(ch chunkRecord, d int) bool {
+	return ch.clean() || (d == 0 && ch.st != nil && ch.st.Source().Pos(int(ch.start)) == o.src.Pos(int(ch.start)))
 }
 
 // movedComment is the old comment cm, d bytes further on in the new text.

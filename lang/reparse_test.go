@@ -92,6 +92,7 @@ func TestReparseMatchesParse(t *testing.T) {
 		"one-line":   []byte("species A(g) { hf 1 kJ/mol } species B(g) { hf 2 kJ/mol } reaction r: A(g) <-> B(g) reaction s: B(g) -> A(g) { rate A 1 1/s n 0 Ea 1 kJ/mol }\n"),
 		"bad-runs":   []byte(strings.Repeat("species A(g) { hf 1 kJ/mol }\n\xff\x01 x\n", 60)),
 		"near-limit": []byte(strings.Repeat("species A(g) { hf 1 kJ/mol }\n\xff\x01 x\n", 49)),
+		"all-broken": []byte(strings.Repeat("reaction r: A(g) <->\nspecies B(g) { hf }\n", 200)),
 		"broken":     []byte("species A(g) {\n  hf 1\nreaction r: A(g) <-> \nspecies é(g) { s 1 J/mol/K }\n# c\njunk words here\nmixture m {\n  A(g) 1\n}\nreaction q A(g)\n"),
 	}
 	for name, base := range bases {
@@ -302,5 +303,27 @@ func TestCommonPrefixSuffix(t *testing.T) {
 		if got := commonSuffix(string(a), string(b)); got != s {
 			t.Fatalf("commonSuffix(%q, %q) = %d, want %d", a, b, got, s)
 		}
+	}
+}
+
+// TestReparseManyBrokenStatements edits a file of 40 000 statements that
+// do not parse: those after the edit would all be lexed again, more than
+// maxReparseWindow bytes, so the file is parsed whole (in parallel), and
+// still as a whole parse gives.
+func TestReparseManyBrokenStatements(t *testing.T) {
+	src := []byte(strings.Repeat("reaction r: A(g) <->\nspecies B(g) { hf }\n", 20000))
+	c := NewCache()
+	checkReparse(t, c, src)
+	at := bytes.Index(src, []byte("<->")) + 3
+	edited := append(append(append([]byte(nil), src[:at]...), " C(g)"...), src[at:]...)
+	checkReparse(t, c, edited)
+	if c.partial {
+		t.Errorf("re-parsed %d bytes where the whole file had to be", c.lexed)
+	}
+	// An edit at the end lexes only the last statements.
+	edited = append(edited, "reaction s: A(g) <-> B(g)\n"...)
+	checkReparse(t, c, edited)
+	if !c.partial || c.lexed > 1000 {
+		t.Errorf("lexed %d bytes (re-parse %v) for a statement added at the end", c.lexed, c.partial)
 	}
 }
