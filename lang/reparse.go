@@ -141,7 +141,7 @@ func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool
 	// The edit: from statement r to the first statement after the edit
 	// that starts where an old one did.
 	sync := len(chunks)
-	window := c.windowKeys(chunks[r:])
+	window := c.windowKeys(chunks[r:], len(ot)-s)
 	stop := func(t Token) bool {
 		at := int(t.Offset)
 		if at < newEnd {
@@ -296,13 +296,17 @@ func (o *reparsed) lex(from int, nl bool, stop func(Token) bool) int {
 }
 
 // windowKeys are the cache keys of the statements that parsed cleanly
-// among chunks, up to maxReparseWindow bytes on, so that a statement the
+// among chunks, from the first the edit touches to windowKeysAfter past
+// oldEnd, where the edit ends in the old text, so that a statement the
 // edit moved within its window is found again.
-func (c *Cache) windowKeys(chunks []chunkRecord) map[cacheKey]*Statement {
+func (c *Cache) windowKeys(chunks []chunkRecord, oldEnd int) map[cacheKey]*Statement {
 	keys := map[cacheKey]*Statement{}
+	after := 0
 	for _, ch := range chunks {
-		if int(ch.start-chunks[0].start) > maxReparseWindow {
-			break
+		if int(ch.start) > oldEnd {
+			if after++; after > windowKeysAfter {
+				break
+			}
 		}
 		if k, ok := recordKey(ch); ok {
 			keys[k] = ch.st
@@ -310,6 +314,10 @@ func (c *Cache) windowKeys(chunks []chunkRecord) map[cacheKey]*Statement {
 	}
 	return keys
 }
+
+// windowKeysAfter is how many statements after an edit windowKeys keys:
+// the re-parse usually stops at the first of them.
+const windowKeysAfter = 16
 
 // recordKey is the cache key of a statement of a parse that parsed
 // cleanly.
