@@ -2,9 +2,11 @@ package network
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"sort"
 	"strings"
+	"sync"
 
 	"hess/lang"
 	"hess/suggest"
@@ -28,13 +30,43 @@ type builtReaction struct {
 // buildReactions compiles every reaction statement on its own, in
 // parallel: species are all declared by now, so lookups only read the
 // network.
-func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
-	out := make([]builtReaction, len(sts))
+//
+// Each worker also marks, by declaration index, the species of the
+// complete reactions it built, and the marks are returned merged (used):
+// marking them in the species themselves would write to a species for
+// every term, in no useful order, where the merged marks are applied in
+// declaration order (markUsed).
+func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, used []bool) {
+	out = make([]builtReaction, len(sts))
+	var mu sync.Mutex
+	var marks [][]bool
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
+		w.used = make([]bool, len(c.net.Species))
+		mu.Lock()
+		marks = append(marks, w.used)
+		mu.Unlock()
 		return func(i int) { w.buildReaction(sts[i], &out[i]) }
 	})
-	return out
+	if len(marks) == 0 {
+		return out, nil
+	}
+	used = marks[0]
+	for _, m := range marks[1:] {
+		for i, u := range m {
+			used[i] = used[i] || u
+		}
+	}
+	return out, used
+}
+
+// markUsed sets Used on the species used marks, by declaration index.
+func (c *compiler) markUsed(used []bool) {
+	for i, u := range used {
+		if u {
+			c.net.Species[i].Used = true
+		}
+	}
 }
 
 // buildReaction compiles one reaction statement into b.
@@ -57,19 +89,30 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	rx.TwoWay = r.Arrow.TwoWay()
 	rx.equation = true
 	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
-	left, ok := c.side(r.Left, true, &coefs)
-	right, ok := c.side(r.Right, ok, &coefs)
+	var ibuf [12]int32
+	idx := ibuf[:0]
+	left, ok := c.side(r.Left, true, &coefs, &idx)
+	right, ok := c.side(r.Right, ok, &coefs, &idx)
 	rx.Left, rx.Right, rx.Resolved = left, right, ok
+	if c.used != nil {
+		for _, at := range idx {
+			if at >= 0 {
+				c.used[at] = true
+			}
+		}
+	}
 	if ok {
-		rx.stoich = factsWith(rx, coefs)
+		rx.stoich = c.facts.stoich(rx, coefs, idx)
 	}
 	c.out = &b.propDiags
 	c.reactionProperties(rx, r.Props)
 }
 
 // addReaction names a built reaction in the network, in source order, so
-// that the first of two reactions with one name is the one kept.
-func (c *compiler) addReaction(b builtReaction) {
+// that the first of two reactions with one name is the one kept. marked
+// says that the species of its equation are marked used already (see
+// buildReactions).
+func (c *compiler) addReaction(b builtReaction, marked bool) {
 	for _, sp := range b.mentioned {
 		sp.Used = true
 	}
@@ -78,7 +121,7 @@ func (c *compiler) addReaction(b builtReaction) {
 		return
 	}
 	c.net.Diagnostics = append(c.net.Diagnostics, b.diags...)
-	if b.complete {
+	if b.complete && !marked {
 		for _, side := range [][]Term{rx.Left, rx.Right} {
 			for _, t := range side {
 				if t.Species != nil {
@@ -121,29 +164,44 @@ func (c *compiler) mentioned(st *lang.Statement) []*Species {
 // lookup finds a declared species by reference, through the compiler's
 // cache when it keeps one.
 func (c *compiler) lookup(ref string) *Species {
-	if sp, ok := c.declared[ref]; ok {
-		return sp
-	}
-	if c.refs == nil {
-		return c.net.LookupSpecies(ref)
-	}
-	if sp, ok := c.refs[ref]; ok {
-		return sp
-	}
-	sp := c.net.LookupSpecies(ref)
-	if sp != nil {
-		// A copy of the key: ref lies somewhere in the source, and the
-		// comparisons of later lookups would read it from there.
-		c.refs[strings.Clone(ref)] = sp
-	}
+	sp, _ := c.lookupIndex(ref)
 	return sp
+}
+
+// lookupIndex is lookup that also gives the species' declaration index
+// (-1 for none), reading the species only when the reference is not
+// written as its declaration was.
+func (c *compiler) lookupIndex(ref string) (*Species, int32) {
+	if i, ok := c.declared[ref]; ok {
+		return c.net.Species[i], i
+	}
+	var sp *Species
+	switch {
+	case c.refs == nil:
+		sp = c.net.LookupSpecies(ref)
+	default:
+		var ok bool
+		if sp, ok = c.refs[ref]; !ok {
+			sp = c.net.LookupSpecies(ref)
+			if sp != nil {
+				// A copy of the key: ref lies somewhere in the source, and
+				// the comparisons of later lookups would read it from there.
+				c.refs[strings.Clone(ref)] = sp
+			}
+		}
+	}
+	if sp == nil || sp.index > math.MaxInt32 {
+		return sp, -1
+	}
+	return sp, int32(sp.index)
 }
 
 // side resolves one side of a reaction: coefficients read and species
 // looked up. resolved stays true while every species is declared and has
 // a formula. The coefficients are appended to coefs while all are small
-// integers; coefs becomes nil at the first that is not.
-func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
+// integers; coefs becomes nil at the first that is not. Each term's
+// species' declaration index (-1 for none) is appended to idx.
+func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64, idx *[]int32) ([]Term, bool) {
 	out := make([]Term, 0, len(terms))
 	for _, t := range terms {
 		term := Term{Coef: sharedRat(1)}
@@ -175,11 +233,18 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 				*coefs = nil
 			}
 		}
-		sp := c.lookup(t.Species.Text)
-		if sp == nil {
+		sp, at := c.lookupIndex(t.Species.Text)
+		*idx = append(*idx, at)
+		switch {
+		case sp == nil:
 			c.undefinedSpecies(t.Species)
 			resolved = false
-		} else {
+		case c.facts != nil && at >= 0 && int(at) < len(c.facts.facts):
+			term.Species = sp
+			if !c.facts.facts[at].hasFormula {
+				resolved = false
+			}
+		default:
 			term.Species = sp
 			if !sp.HasFormula {
 				resolved = false

@@ -1,0 +1,115 @@
+package network
+
+import (
+	"math/big"
+	"testing"
+
+	"hess/synth"
+)
+
+// TestTermFactsAgree checks that the stoichiometric facts a reaction's
+// compile works out from the species' termFacts (balance in elements and
+// charge, net-equation key) are those factsOf works out from the species
+// themselves, on the test networks, the examples and generated networks of
+// both shapes; and, on the generated ones, for copies of every reaction
+// with a coefficient changed (unbalanced) and with its sides swapped.
+func TestTermFactsAgree(t *testing.T) {
+	roots := globRoots(t, "../testdata/check/*.hess", "../examples/*.hess", "../examples/*/*.hess")
+	if len(roots) < 10 {
+		t.Fatalf("only %d networks found", len(roots))
+	}
+	compared := 0
+	agree := func(name string, n *Network) {
+		for _, rx := range n.Reactions {
+			if !rx.stoich.known {
+				continue
+			}
+			compared++
+			if got, want := rx.stoich, factsOf(rx); got != want {
+				t.Errorf("%s: %s: compiled %+v, from the species %+v", name, rx.Name, got, want)
+			}
+		}
+	}
+	for _, root := range roots {
+		agree(root, Load(root, Disk{}, Options{}))
+	}
+	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
+		root, src, _ := shapeSource(t, shape, 300, 900)
+		n := Load(root, src, Options{})
+		agree(shape.String(), n)
+		tf := newTermFacts(n.Species)
+		unbalanced := 0
+		for i, rx := range n.Reactions {
+			bumped := *rx
+			bumped.Left = append([]Term(nil), rx.Left...)
+			bumped.Left[0].Coef = new(big.Rat).Add(rx.Left[0].Coef, big.NewRat(int64(1+i%3), 1))
+			swapped := *rx
+			swapped.Left, swapped.Right = rx.Right, rx.Left
+			for _, v := range []*Reaction{rx, &bumped, &swapped} {
+				coefs, ok := intCoefficients(v)
+				if !ok {
+					t.Fatalf("%s: coefficients not small integers", v.Name)
+				}
+				var idx []int32
+				for _, side := range [2][]Term{v.Left, v.Right} {
+					for _, term := range side {
+						idx = append(idx, int32(term.Species.index))
+					}
+				}
+				got, want := tf.stoich(v, coefs, idx), factsWith(v, coefs)
+				if got != want {
+					t.Fatalf("%s: %+v from termFacts, %+v from the species", v.Name, got, want)
+				}
+				if !got.elements {
+					unbalanced++
+				}
+			}
+		}
+		if unbalanced == 0 {
+			t.Errorf("%v: no unbalanced variant compared", shape)
+		}
+	}
+	if compared < 1000 {
+		t.Errorf("only %d reactions compared", compared)
+	}
+}
+
+// TestTermFactsFallBack checks the species whose facts are not compact:
+// more elements than a termFact holds, or a count that is not a small
+// integer. Their reactions' facts come from the species, and agree.
+func TestTermFactsFallBack(t *testing.T) {
+	text := `species NaHCO3(s) { hf -950.8 kJ/mol }
+species Na2CO3(s) { hf -1130.7 kJ/mol }
+species O2(g) { hf 0 kJ/mol }
+species CO2(g) { hf -393.5 kJ/mol }
+species H2O(l) { hf -285.8 kJ/mol }
+species Fe0.95O(s) { hf -266 kJ/mol }
+species Fe(s) { hf 0 kJ/mol }
+species e-(aq) { hf 0 kJ/mol }
+species Fe^2+(aq) { hf -89.1 kJ/mol }
+reaction soda: 2 NaHCO3(s) -> Na2CO3(s) + CO2(g) + H2O(l)
+reaction wustite: 19 Fe(s) + 10 O2(g) -> 20 Fe0.95O(s)
+reaction ox: Fe(s) -> Fe^2+(aq) + 2 e-(aq)
+reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
+`
+	n := Load("/t/net.hess", memSource{"/t/net.hess": []byte(text)}, Options{})
+	tf := newTermFacts(n.Species)
+	compact := map[string]bool{}
+	for i, sp := range n.Species {
+		compact[sp.Key] = tf.facts[i].compact
+	}
+	if compact["NaHCO3(s)"] || compact["Fe0.95O(s)"] || !compact["CO2(g)"] || !compact["e-(aq)"] {
+		t.Errorf("compact facts: %v", compact)
+	}
+	if len(n.Reactions) != 4 {
+		t.Fatalf("%d reactions: %v", len(n.Reactions), n.Diagnostics)
+	}
+	for _, rx := range n.Reactions {
+		if got, want := rx.stoich, factsOf(rx); !got.known || got != want {
+			t.Errorf("%s: compiled %+v, from the species %+v", rx.Name, got, want)
+		}
+	}
+	if f := n.LookupReaction("bad").stoich; !f.intOK || f.charge {
+		t.Errorf("bad: %+v, want an integer charge imbalance", f)
+	}
+}
