@@ -74,9 +74,10 @@ func TestTermFactsAgree(t *testing.T) {
 	}
 }
 
-// TestTermFactsFallBack checks the species whose facts are not compact:
-// more elements than a termFact holds, or a count that is not a small
-// integer. Their reactions' facts come from the species, and agree.
+// TestTermFactsFallBack checks formulas of four elements and of a count
+// that is not a small integer (whose facts are not compact: its reactions'
+// facts come from the species), an electron and an ion: the compiled facts
+// agree with the species'.
 func TestTermFactsFallBack(t *testing.T) {
 	text := `species NaHCO3(s) { hf -950.8 kJ/mol }
 species Na2CO3(s) { hf -1130.7 kJ/mol }
@@ -98,7 +99,7 @@ reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
 	for i, sp := range n.Species {
 		compact[sp.Key] = tf.facts[i].compact
 	}
-	if compact["NaHCO3(s)"] || compact["Fe0.95O(s)"] || !compact["CO2(g)"] || !compact["e-(aq)"] {
+	if !compact["NaHCO3(s)"] || compact["Fe0.95O(s)"] || !compact["CO2(g)"] || !compact["e-(aq)"] {
 		t.Errorf("compact facts: %v", compact)
 	}
 	if len(n.Reactions) != 4 {
