@@ -60,6 +60,34 @@ func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, u
 	return out, used
 }
 
+// newReaction allocates a reaction together with room for n terms, so
+// that a reaction and its equation lie side by side in memory (the checks
+// read both for every reaction, and one allocation costs less than
+// three), for the common sizes of equation; otherwise the terms apart.
+func newReaction(n int) (*Reaction, []Term) {
+	switch {
+	case n <= 4:
+		a := new(struct {
+			rx    Reaction
+			terms [4]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	case n <= 6:
+		a := new(struct {
+			rx    Reaction
+			terms [6]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	case n <= 8:
+		a := new(struct {
+			rx    Reaction
+			terms [8]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	}
+	return new(Reaction), make([]Term, n)
+}
+
 // markUsed sets Used on the species used marks, by declaration index.
 func (c *compiler) markUsed(used []bool) {
 	for i, u := range used {
@@ -80,19 +108,22 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	}
 	c.out = &b.diags
 	validName := c.name(r.Name, "reaction")
-	rx := &Reaction{Name: r.Name.Name, node: r}
-	b.rx = rx
 	b.complete = !st.Broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
 	if !b.complete {
+		b.rx = &Reaction{Name: r.Name.Name, node: r}
 		return
 	}
+	rx, terms := newReaction(len(r.Left) + len(r.Right))
+	rx.Name, rx.node = r.Name.Name, r
+	b.rx = rx
 	rx.TwoWay = r.Arrow.TwoWay()
 	rx.equation = true
-	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
+	var cbuf [12]int64
+	coefs := cbuf[:0]
 	var ibuf [12]int32
 	idx := ibuf[:0]
-	left, ok := c.side(r.Left, true, &coefs, &idx)
-	right, ok := c.side(r.Right, ok, &coefs, &idx)
+	left, coefs, idx, ok := c.side(r.Left, true, terms[:0:len(r.Left)], coefs, idx)
+	right, coefs, idx, ok := c.side(r.Right, ok, terms[len(r.Left):len(r.Left):len(terms)], coefs, idx)
 	rx.Left, rx.Right, rx.Resolved = left, right, ok
 	if c.used != nil {
 		for _, at := range idx {
@@ -200,9 +231,10 @@ func (c *compiler) lookupIndex(ref string) (*Species, int32) {
 // looked up. resolved stays true while every species is declared and has
 // a formula. The coefficients are appended to coefs while all are small
 // integers; coefs becomes nil at the first that is not. Each term's
-// species' declaration index (-1 for none) is appended to idx.
-func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64, idx *[]int32) ([]Term, bool) {
-	out := make([]Term, 0, len(terms))
+// species' declaration index (-1 for none) is appended to idx. The terms
+// are appended to out, which has room for them. side returns out, coefs
+// and idx so appended.
+func (c *compiler) side(terms []*lang.Term, resolved bool, out []Term, coefs []int64, idx []int32) ([]Term, []int64, []int32, bool) {
 	for _, t := range terms {
 		term := Term{Coef: sharedRat(1)}
 		n, small := int64(1), true
@@ -226,15 +258,15 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64, idx *
 			}
 			n, small = smallInt(term.Coef)
 		}
-		if *coefs != nil {
+		if coefs != nil {
 			if small {
-				*coefs = append(*coefs, n)
+				coefs = append(coefs, n)
 			} else {
-				*coefs = nil
+				coefs = nil
 			}
 		}
 		sp, at := c.lookupIndex(t.Species.Text)
-		*idx = append(*idx, at)
+		idx = append(idx, at)
 		switch {
 		case sp == nil:
 			c.undefinedSpecies(t.Species)
@@ -252,7 +284,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64, idx *
 		}
 		out = append(out, term)
 	}
-	return out, resolved
+	return out, coefs, idx, resolved
 }
 
 // sharedCoefs are the whole numbers -maxSharedCoef to maxSharedCoef as
