@@ -89,6 +89,15 @@ func (g *givesG) of(sp *Species, temps []float64) bool {
 	return g.answer[i] > 0
 }
 
+// fill works out the answer for every species of the network, in
+// declaration order: the species and their models lie in memory nearly in
+// that order, where a walk through the reactions reaches them in none.
+func (g *givesG) fill(temps []float64) {
+	for _, sp := range g.species {
+		g.of(sp, temps)
+	}
+}
+
 // modelGivesG reports whether m holds beyond 298.15 K and gives a finite
 // G° at each of temps.
 func modelGivesG(m thermo.Model, temps []float64) bool {
