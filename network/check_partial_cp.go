@@ -32,9 +32,9 @@ the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 			var without []string
 			var buf [12]*Species
 			for _, sp := range rx.netSpecies(buf[:0]) {
-				kind := cpUnknown
-				if declaredIn(p.Net.Species, sp) {
-					kind = kinds[sp.index]
+				var kind cpKind
+				if i := speciesIndexIn(p.Net.Species, rx, sp); i >= 0 {
+					kind = kinds[i]
 				} else {
 					kind = cpKindOf(sp)
 				}
@@ -75,4 +75,21 @@ func cpKindOf(sp *Species) cpKind {
 		return cpWithout
 	}
 	return cpUnknown
+}
+
+// speciesIndexIn is the declaration index of sp, a species of rx's
+// equation, among list (a network's species), from the first term of rx
+// that names it; -1 when it is not one of list's.
+func speciesIndexIn(list []*Species, rx *Reaction, sp *Species) int {
+	for _, side := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range side {
+			if t.Species == sp {
+				return termIndex(list, t)
+			}
+		}
+	}
+	if sp == nil {
+		return -1
+	}
+	return termIndex(list, Term{Species: sp})
 }

@@ -267,6 +267,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, out []Term, coefs []i
 		}
 		sp, at := c.lookupIndex(t.Species.Text)
 		idx = append(idx, at)
+		term.at = at + 1
 		switch {
 		case sp == nil:
 			c.undefinedSpecies(t.Species)

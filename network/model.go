@@ -209,10 +209,28 @@ type Species struct {
 // change it in place. Where a term was written is in the reaction's
 // syntax tree (Reaction.Equation spans them all): a network holds
 // hundreds of thousands of terms, which checks walk again and again, so
-// a term keeps only these two words.
+// a term keeps only these three words.
 type Term struct {
 	Coef    *big.Rat
 	Species *Species // nil when undefined
+	// at is the species' declaration index plus one, as the compiler
+	// found it, so that a check can read what it worked out per species
+	// from an array without reading the species; 0 when not known.
+	// termIndex checks it against the network before use.
+	at int32
+}
+
+// termIndex is the declaration index of t's species among list (a
+// network's species), read from the term when it holds a valid one, else
+// from the species; -1 when the species is not one of list's.
+func termIndex(list []*Species, t Term) int {
+	if i := int(t.at) - 1; i >= 0 && i < len(list) && list[i] == t.Species {
+		return i
+	}
+	if t.Species != nil && declaredIn(list, t.Species) {
+		return t.Species.index
+	}
+	return -1
 }
 
 // ComboTerm is one weighted reaction of a coupled reaction's combination.

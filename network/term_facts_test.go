@@ -114,3 +114,47 @@ reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
 		t.Errorf("bad: %+v, want an integer charge imbalance", f)
 	}
 }
+
+// TestTermIndex checks that every term the compiler makes holds its
+// species' declaration index, and that termIndex falls back on the
+// species where a term holds none or one that is not its species' (a term
+// copied into another network).
+func TestTermIndex(t *testing.T) {
+	root, src, _ := shapeSource(t, synth.Mechanism, 300, 900)
+	n := Load(root, src, Options{})
+	terms := 0
+	for _, rx := range n.Reactions {
+		for _, side := range [2][]Term{rx.Left, rx.Right} {
+			for _, term := range side {
+				terms++
+				if term.Species == nil {
+					continue
+				}
+				if int(term.at)-1 != term.Species.index {
+					t.Fatalf("%s: %s holds index %d, declared at %d", rx.Name, term.Species.Key, term.at-1, term.Species.index)
+				}
+				if got := termIndex(n.Species, term); got != term.Species.index {
+					t.Fatalf("%s: termIndex %d, want %d", term.Species.Key, got, term.Species.index)
+				}
+				bare := Term{Coef: term.Coef, Species: term.Species}
+				if got := termIndex(n.Species, bare); got != term.Species.index {
+					t.Fatalf("%s without an index: termIndex %d, want %d", term.Species.Key, got, term.Species.index)
+				}
+				stale := term
+				stale.at = int32((term.Species.index+1)%len(n.Species)) + 1
+				if got := termIndex(n.Species, stale); got != term.Species.index {
+					t.Fatalf("%s with another's index: termIndex %d, want %d", term.Species.Key, got, term.Species.index)
+				}
+				if got := termIndex(n.Species[:0], term); got != -1 {
+					t.Fatalf("%s in another network: termIndex %d, want -1", term.Species.Key, got)
+				}
+			}
+		}
+	}
+	if terms == 0 {
+		t.Fatal("no terms")
+	}
+	if got := termIndex(n.Species, Term{}); got != -1 {
+		t.Errorf("a term without a species: termIndex %d", got)
+	}
+}
