@@ -114,6 +114,9 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	n.speciesByKey = make(map[string]*Species, nSpecies)
 	c.declared = make(map[string]int32, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)
+	if nReactions > 0 {
+		n.Reactions = make([]*Reaction, 0, nReactions)
+	}
 	n.Settings = Settings{Pressure: 1e5, Temperatures: []float64{298.15}, Tolerance: 500}
 
 	// Elements and phases first: formulas and state tags depend on them.
