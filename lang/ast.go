@@ -38,7 +38,16 @@ type Statement struct {
 
 	// Broken reports that the statement did not parse completely.
 	Broken bool
+
+	lineage uint64 // see Lineage
 }
+
+// Lineage is a number a statement shares with every copy the parse cache
+// makes of it at another place (moved by an edit before it), and with no
+// other statement: statements of one file with the same Lineage have the
+// same text. Compilers key what they derive from a statement's text by
+// it.
+func (st *Statement) Lineage() uint64 { return st.lineage }
 
 // Node is the run of its statement group's tokens that a node spans (see
 // Tokens), in 16 bytes: the group, which knows the Source its tokens'

@@ -73,9 +73,19 @@ func ParseCached(file string, src []byte, c *Cache) (*File, Diagnostics) {
 		c.prev = nil
 		return Parse(file, src)
 	}
-	source := NewSource(file, string(src))
+	text := string(src)
+	var source *Source
+	var edit textEdit // where text differs from the last parse's
+	if c.prev != nil && c.prev.src.Name() == file {
+		old := c.prev.src.text
+		edit.prefix = commonPrefix(old, text)
+		edit.suffix = commonSuffix(old[edit.prefix:], text[edit.prefix:])
+		source = c.prev.src.edited(text, edit)
+	} else {
+		source = NewSource(file, text)
+	}
 	source.gen = c.generation()
-	if f, diags, ok := c.reparse(source); ok {
+	if f, diags, ok := c.reparse(source, edit); ok {
 		return f, diags
 	}
 	keys := map[cacheKey]*Statement{}

@@ -63,6 +63,9 @@ func sameTree(a, b reflect.Value) bool {
 			return true
 		}
 		for i := range a.NumField() {
+			if !a.Type().Field(i).IsExported() {
+				continue // a statement's lineage: a fresh parse's is new
+			}
 			if !sameTree(a.Field(i), b.Field(i)) {
 				return false
 			}

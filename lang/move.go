@@ -105,6 +105,7 @@ func (m *mover) statement(st *Statement) *Statement {
 		Reaction: m.reaction(st.Reaction),
 		Mixture:  m.mixture(st.Mixture),
 		Broken:   st.Broken,
+		lineage:  st.lineage,
 	}
 }
 

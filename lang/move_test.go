@@ -108,6 +108,8 @@ func (m *reflectMover) copyStruct(dst, src reflect.Value) {
 			}
 		case f.Kind() == reflect.String:
 			d.SetString(m.rebase(f.String()))
+		case !src.Type().Field(i).IsExported():
+			exposed(d).Set(exposed(f)) // a statement's lineage
 		default:
 			d.Set(f)
 		}
@@ -271,6 +273,9 @@ func (c *moveCheck) compare(path string, got, want, orig reflect.Value) {
 	case reflect.String:
 		c.checkString(path, got.String(), want.String(), orig.String())
 	default:
+		if !got.CanInterface() { // a statement's lineage
+			got, want = exposed(got), exposed(want)
+		}
 		if !reflect.DeepEqual(got.Interface(), want.Interface()) {
 			c.errorf(path, "%v, the reference has %v", got.Interface(), want.Interface())
 		}
@@ -603,6 +608,11 @@ func (fl *filler) fill(v reflect.Value, path string, depth int) {
 	case reflect.Struct:
 		for i := range v.NumField() {
 			f := v.Type().Field(i)
+			if f.Name == "lineage" && f.Type.Kind() == reflect.Uint64 {
+				fl.n++
+				exposed(v.Field(i)).SetUint(uint64(fl.n))
+				continue
+			}
 			if !f.IsExported() && f.Type != nodeType && f.Type != parsedNodeType {
 				fl.t.Fatalf("%s.%s is unexported: teach the filler and the mover about it", path, f.Name)
 			}
@@ -687,4 +697,10 @@ func BenchmarkMoveStatements(b *testing.B) {
 			b.ReportMetric(float64(len(f.Statements)), "statements")
 		})
 	}
+}
+
+// exposed is the unexported field v (addressable) as a value reflection
+// may read and set.
+func exposed(v reflect.Value) reflect.Value {
+	return reflect.NewAt(v.Type(), unsafe.Pointer(v.UnsafeAddr())).Elem()
 }

@@ -8,6 +8,7 @@ import (
 	"runtime"
 	"strings"
 	"sync"
+	"sync/atomic"
 
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
@@ -426,6 +427,15 @@ type result struct {
 func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache, slab *nodeSlab) []result {
 	results := make([]result, len(chunks))
 	cur := &tokenCursor{} // one for all the group's statements
+	// The lineages of the statements parsed here are numbers of their own.
+	lineage := lineages.Add(uint64(len(chunks))) - uint64(len(chunks))
+	parsed := func(r result) result {
+		lineage++
+		if r.st != nil {
+			r.st.lineage = lineage
+		}
+		return r
+	}
 	for i, c := range chunks {
 		if cache != nil && c.end > c.start {
 			if key, keyed := statementKey(g.src, g.toks[c.start:c.end]); keyed {
@@ -433,16 +443,20 @@ func parseGroup(g *tokenGroup, chunks []chunk, cache *Cache, slab *nodeSlab) []r
 					results[i] = result{st: st}
 					continue
 				}
-				r := parseStatement(g, c, slab, cur)
+				r := parsed(parseStatement(g, c, slab, cur))
 				cache.store(key, r.st, len(r.diags) == 0)
 				results[i] = r
 				continue
 			}
 		}
-		results[i] = parseStatement(g, c, slab, cur)
+		results[i] = parsed(parseStatement(g, c, slab, cur))
 	}
 	return results
 }
+
+// lineages counts the statements parsed so far: each one's Lineage is its
+// number.
+var lineages atomic.Uint64
 
 // parseStatement parses the statement c of a group with cursor cur,
 // taking its small nodes from slab.

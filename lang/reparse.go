@@ -89,20 +89,23 @@ func (g *lexedGroup) record(i int, r result) chunkRecord {
 // one goroutine; a larger edit parses the whole file, in parallel.
 const maxReparseWindow = 256 << 10
 
-// reparse parses source, an edit of the text of the cache's last parse,
-// lexing and parsing only the statements the edit touched (see the top of
+// textEdit is where a text differs from an earlier one: the lengths of
+// their common prefix and, after it, their common suffix.
+type textEdit struct{ prefix, suffix int }
+
+// reparse parses source, the text of the cache's last parse changed where
+// edit says, lexing and parsing only the statements the edit touched (see the top of
 // this file). It reports false, having changed nothing, when it cannot:
 // no last parse of the same file, a last parse whose lexer reported as
 // many runs of invalid characters as it reports, or an edit too large for
 // maxReparseWindow.
-func (c *Cache) reparse(source *Source) (*File, Diagnostics, bool) {
+func (c *Cache) reparse(source *Source, edit textEdit) (*File, Diagnostics, bool) {
 	old := c.prev
 	if old == nil || old.badRuns >= maxLexDiagnostics || old.src.Name() != source.Name() || len(old.chunks) == 0 {
 		return nil, nil, false
 	}
 	ot, nt := old.src.text, source.text
-	p := commonPrefix(ot, nt)
-	s := commonSuffix(ot[p:], nt[p:])
+	p, s := edit.prefix, edit.suffix
 	d := len(nt) - len(ot)
 	newEnd := len(nt) - s // the new text differs from the old in [p, newEnd)
 	chunks := old.chunks
@@ -163,6 +166,7 @@ func (c *Cache) reparse(source *Source) (*File, Diagnostics, bool) {
 		return nil, nil, false // cannot happen: stop set sync
 	}
 
+	samePlaces := d == 0 && len(source.lines) == len(old.src.lines)
 	// The statements after the edit, moved; those that did not parse
 	// cleanly are read again, since their messages may name places.
 	for j := sync; j < len(chunks); j++ {
@@ -174,7 +178,11 @@ func (c *Cache) reparse(source *Source) (*File, Diagnostics, bool) {
 		// A statement with diagnostics at the same place as before keeps
 		// them: every position in it is the same.
 		if ch.clean() || (d == 0 && ch.st != nil && ch.st.Source().Pos(int(ch.start)) == source.Pos(int(ch.start))) {
-			out.keep(ch, d, true)
+			// With the text's length and its number of lines unchanged, a
+			// statement on a line that starts after the edit is at the
+			// same line and column as before.
+			check := !samePlaces || int(source.lines[source.line(int(ch.start)+d)]) < newEnd
+			out.keep(ch, d, check)
 			from, to := commentsFrom(old.comments, int(ch.start)), commentsFrom(old.comments, next)
 			for _, cm := range old.comments[from:to] {
 				out.comments = append(out.comments, out.movedComment(cm))
@@ -298,12 +306,14 @@ func commentsFrom(comments []Comment, at int) int {
 	return sort.Search(len(comments), func(i int) bool { return comments[i].Span.Start.Offset >= at })
 }
 
-// commonPrefix is the length of the longest common prefix of a and b.
+// commonPrefix is the length of the longest common prefix of a and b,
+// compared a block at a time (string comparison is vectorised) and then
+// byte by byte in the block that differs.
 func commonPrefix(a, b string) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && a[i:i+8] == b[i:i+8] {
-		i += 8
+	for i+compareBlock <= n && a[i:i+compareBlock] == b[i:i+compareBlock] {
+		i += compareBlock
 	}
 	for i < n && a[i] == b[i] {
 		i++
@@ -315,11 +325,15 @@ func commonPrefix(a, b string) int {
 func commonSuffix(a, b string) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && a[len(a)-i-8:len(a)-i] == b[len(b)-i-8:len(b)-i] {
-		i += 8
+	for i+compareBlock <= n && a[len(a)-i-compareBlock:len(a)-i] == b[len(b)-i-compareBlock:len(b)-i] {
+		i += compareBlock
 	}
 	for i < n && a[len(a)-1-i] == b[len(b)-1-i] {
 		i++
 	}
 	return i
 }
+
+// compareBlock is how many bytes commonPrefix and commonSuffix compare at
+// once.
+const compareBlock = 256

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/rand/v2"
 	"reflect"
+	"slices"
 	"strings"
 	"testing"
 	"unsafe"
@@ -29,6 +30,9 @@ func checkReparse(t testing.TB, c *Cache, src []byte) {
 		if got.Statements[i].Source().Text()[got.Statements[i].Span().Start.Offset:got.Statements[i].Span().End.Offset] != got.Statements[i].Text() {
 			t.Fatalf("statement %d does not resolve through its own text", i)
 		}
+	}
+	if msg := sourceDiff(got.Source, want.Source); msg != "" {
+		t.Fatalf("the source's index differs from a fresh one: %s\ntext:\n%s", msg, src)
 	}
 	if !reflect.DeepEqual(got.Comments, want.Comments) {
 		t.Fatalf("comments differ\n got  %v\n want %v\ntext:\n%s", got.Comments, want.Comments, src)
@@ -173,3 +177,130 @@ func FuzzReparse(f *testing.F) {
 
 // unsafeData is the address of the first byte of s.
 func unsafeData(s string) *byte { return unsafe.StringData(s) }
+
+// TestLineageFollowsMovedStatements checks that a statement an edit moved
+// keeps its Lineage, that one in place is the same statement, and that a
+// statement parsed anew has a Lineage no other has.
+func TestLineageFollowsMovedStatements(t *testing.T) {
+	src, _ := generateNetwork(32 << 10)
+	c := NewCache()
+	before, _ := ParseCached("f.hess", src, c)
+	mid := bytes.Index(src[len(src)/2:], []byte("\nreaction ")) + len(src)/2 + 1
+	edited := append(append(append([]byte(nil), src[:mid]...), "reaction new: A(g) <-> B(g)\n"...), src[mid:]...)
+	after, _ := ParseCached("f.hess", edited, c)
+	if len(after.Statements) != len(before.Statements)+1 {
+		t.Fatalf("%d statements, want %d", len(after.Statements), len(before.Statements)+1)
+	}
+	seen := map[uint64]bool{}
+	for _, st := range before.Statements {
+		if seen[st.Lineage()] || st.Lineage() == 0 {
+			t.Fatalf("lineage %d given twice or zero", st.Lineage())
+		}
+		seen[st.Lineage()] = true
+	}
+	inserted := 0
+	for i, st := range after.Statements {
+		switch {
+		case st.Text() == "reaction new: A(g) <-> B(g)":
+			inserted = i
+			if seen[st.Lineage()] {
+				t.Errorf("the new statement has an old statement's lineage")
+			}
+		case inserted == 0:
+			if st != before.Statements[i] {
+				t.Errorf("statement %d before the edit is not the one of the last parse", i)
+			}
+		default:
+			old := before.Statements[i-1]
+			if st == old || st.Lineage() != old.Lineage() || st.Text() != old.Text() {
+				t.Errorf("statement %d after the edit: moved %v, lineage %d, want a moved copy of lineage %d", i, st != old, st.Lineage(), old.Lineage())
+			}
+		}
+	}
+	if inserted == 0 {
+		t.Fatal("the inserted statement is not there")
+	}
+}
+
+// sourceDiff says how two sources' names, texts and indexes differ ("" when
+// they do not).
+func sourceDiff(a, b *Source) string {
+	switch {
+	case a.name != b.name || a.text != b.text:
+		return "name or text"
+	case !slices.Equal(a.lines, b.lines):
+		return fmt.Sprintf("lines %v, want %v", a.lines, b.lines)
+	case !slices.Equal(a.wide, b.wide):
+		return fmt.Sprintf("wide %b, want %b", a.wide, b.wide)
+	case !slices.Equal(a.marks, b.marks):
+		return fmt.Sprintf("marks %v, want %v", a.marks, b.marks)
+	}
+	return ""
+}
+
+// TestEditedSourceMatchesNew makes random edits to texts with CR LF line
+// ends, lines beyond ASCII, a byte order mark and long lines, and checks
+// that each edited source indexes its text as a new one does.
+func TestEditedSourceMatchesNew(t *testing.T) {
+	gen, _ := generateNetwork(8 << 10)
+	long := strings.Repeat("x", markEvery+10)
+	bases := []string{
+		string(gen),
+		"\ufeff" + strings.ReplaceAll(string(gen[:2000]), "\n", "\r\n"),
+		"a é b\nline two ±\n\nthree\n" + string(gen[:1000]),
+		"first\n" + long + "\nafter é\n" + long + "é\nend",
+		"",
+		"\n\n\n",
+	}
+	pieces := []string{"\n", "é", "x", "\r\n", "±±", long, "ab\ncd", ""}
+	for bi, base := range bases {
+		r := rand.New(rand.NewPCG(7, uint64(bi)))
+		s := NewSource("f", base)
+		for range 300 {
+			text := s.text
+			at := r.IntN(len(text) + 1)
+			del := min(r.IntN(20), len(text)-at)
+			next := text[:at] + pieces[r.IntN(len(pieces))] + pieces[r.IntN(len(pieces))] + text[at+del:]
+			p := commonPrefix(text, next)
+			e := s.edited(next, textEdit{prefix: p, suffix: commonSuffix(text[p:], next[p:])})
+			if msg := sourceDiff(e, NewSource("f", next)); msg != "" {
+				t.Fatalf("base %d: %s\nbefore %q\nafter %q", bi, msg, text, next)
+			}
+			s = e
+			if len(s.text) > 4*len(base)+3*len(long) {
+				s = NewSource("f", base)
+			}
+		}
+	}
+}
+
+// TestCommonPrefixSuffix checks commonPrefix and commonSuffix against a
+// byte-by-byte count, around the block size they compare by.
+func TestCommonPrefixSuffix(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	for range 2000 {
+		n := r.IntN(3 * compareBlock)
+		a := make([]byte, n)
+		for i := range a {
+			a[i] = byte('a' + r.IntN(2))
+		}
+		b := slices.Clone(a)
+		if n > 0 && r.IntN(4) > 0 {
+			b[r.IntN(n)] ^= 1
+		}
+		b = b[:r.IntN(n+1)]
+		p, s := 0, 0
+		for p < min(len(a), len(b)) && a[p] == b[p] {
+			p++
+		}
+		for s < min(len(a), len(b)) && a[len(a)-1-s] == b[len(b)-1-s] {
+			s++
+		}
+		if got := commonPrefix(string(a), string(b)); got != p {
+			t.Fatalf("commonPrefix(%q, %q) = %d, want %d", a, b, got, p)
+		}
+		if got := commonSuffix(string(a), string(b)); got != s {
+			t.Fatalf("commonSuffix(%q, %q) = %d, want %d", a, b, got, s)
+		}
+	}
+}

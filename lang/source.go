@@ -76,6 +76,64 @@ func NewSource(name, text string) *Source {
 	}
 }
 
+// edited is the Source of text, the text of s changed where edit says,
+// under s's name: the lines before the edit keep their index entries, the
+// lines after it take s's shifted, and only the lines the edit touched are
+// indexed again — what NewSource(s.Name(), text) gives
+// (TestEditedSourceMatchesNew), without reading the whole text. A source
+// with column marks (long lines beyond ASCII), or an edit that makes one,
+// or one in a byte order mark, is indexed whole.
+func (s *Source) edited(text string, edit textEdit) *Source {
+	p := edit.prefix
+	oldEnd, newEnd := len(s.text)-edit.suffix, len(text)-edit.suffix
+	if len(s.marks) > 0 || p < 3 || oldEnd < p || newEnd < p {
+		return NewSource(s.name, text)
+	}
+	d := newEnd - oldEnd
+	first := s.line(p) // the first line the edit touches; its start is before p
+	// Lines after the edit: those old lines that start after oldEnd.
+	after := s.search(oldEnd) + 1
+	n := &Source{name: s.name, text: text}
+	n.lines = make([]int32, 0, len(s.lines)+strings.Count(text[s.lines[first]:newEnd], "\n")-strings.Count(s.text[s.lines[first]:oldEnd], "\n"))
+	n.lines = append(n.lines, s.lines[:first+1]...)
+	for at := int(s.lines[first]); ; {
+		i := strings.IndexByte(text[at:newEnd], '\n')
+		if i < 0 {
+			break
+		}
+		at += i + 1
+		n.lines = append(n.lines, int32(at))
+	}
+	touched := len(n.lines) // lines [first, touched) are indexed again
+	for _, y := range s.lines[after:] {
+		n.lines = append(n.lines, y+int32(d))
+	}
+	n.wide = make([]uint64, (len(n.lines)+63)/64)
+	for i := range first {
+		if !s.ascii(i) {
+			n.wide[i/64] |= 1 << (i % 64)
+		}
+	}
+	for i := first; i < touched; i++ {
+		end := len(text)
+		if i+1 < len(n.lines) {
+			end = int(n.lines[i+1]) - 1
+		}
+		if !isASCII(text[n.lines[i]:end]) {
+			if end-int(n.lines[i]) > markEvery {
+				return NewSource(s.name, text)
+			}
+			n.wide[i/64] |= 1 << (i % 64)
+		}
+	}
+	for i := touched; i < len(n.lines); i++ {
+		if !s.ascii(after + i - touched) {
+			n.wide[i/64] |= 1 << (i % 64)
+		}
+	}
+	return n
+}
+
 // isASCII reports whether s holds only ASCII bytes, eight at a time.
 func isASCII(s string) bool {
 	i := 0

@@ -39,12 +39,18 @@ func (s *snapshot) file(path string) (net *network.Network, f *network.File, ix 
 func (s *snapshot) linesOf(path string, src []byte) *lines {
 	s.mu.Lock()
 	defer s.mu.Unlock()
-	if ix, ok := s.lines[path]; ok {
+	if ix, ok := s.lines[path]; ok && sameBytes(ix.text, src) {
 		return ix
 	}
 	ix := newLines(src)
 	s.lines[path] = ix
 	return ix
+}
+
+// sameBytes reports whether a and b are the same bytes in memory (the
+// same slice).
+func sameBytes(a, b []byte) bool {
+	return len(a) == len(b) && (len(a) == 0 || &a[0] == &b[0])
 }
 
 // spanRange converts a compiler span into a protocol location, reading the

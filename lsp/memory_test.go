@@ -7,14 +7,30 @@ import (
 )
 
 // TestCollectAfterCycle checks that a finished cycle starts a collection
-// in the background.
+// in the background once the heap holds more than collectAbove, and not
+// before.
 func TestCollectAfterCycle(t *testing.T) {
+	if testing.Short() {
+		t.Skip("allocates collectAbove")
+	}
+	runtime.GC()
+	if heapObjects() > collectAbove {
+		t.Skip("the heap is already above collectAbove")
+	}
 	var before runtime.MemStats
 	runtime.ReadMemStats(&before)
 	collectAfterCycle()
-	if !collecting.Load() {
-		t.Fatal("no collection started")
+	if collecting.Load() {
+		t.Fatal("a collection started below collectAbove")
 	}
+	ballast := make([][]byte, 0, collectAbove>>20+1)
+	for range collectAbove>>20 + 1 {
+		ballast = append(ballast, make([]byte, 1<<20))
+	}
+	if heapObjects() <= collectAbove {
+		t.Skip("the runtime collected the ballast's growth already")
+	}
+	collectAfterCycle()
 	deadline := time.Now().Add(10 * time.Second)
 	for collecting.Load() {
 		if time.Now().After(deadline) {
@@ -26,6 +42,7 @@ func TestCollectAfterCycle(t *testing.T) {
 	runtime.ReadMemStats(&after)
 	// Servers of other tests may have started collections too.
 	if after.NumForcedGC == before.NumForcedGC {
-		t.Error("no collection ran")
+		t.Error("no collection ran above collectAbove")
 	}
+	runtime.KeepAlive(ballast)
 }

@@ -70,6 +70,40 @@ func newLines(text []byte) *lines {
 	return &lines{text: text, starts: starts}
 }
 
+// edited is the index of text, which is l's text with the bytes [from,
+// to) replaced by n others: the line starts before from are l's, those
+// after the replacement l's shifted, and only the replaced bytes and the
+// byte before them are read again (TestEditedLinesMatchNew). A line
+// starts after a \n, and after a \r that no \n follows, so a start at x
+// depends on the bytes at x-1 and x alone.
+func (l *lines) edited(text []byte, from, to, n int) *lines {
+	if from < 1 {
+		return newLines(text)
+	}
+	d := n - (to - from)
+	newEnd := from + n
+	// Starts before from are l's; starts in [from, newEnd] are found again;
+	// starts after newEnd are l's after to, shifted.
+	keep := sort.SearchInts(l.starts, from)
+	after := sort.SearchInts(l.starts, to+1)
+	starts := make([]int, keep, len(l.starts)+n/16+1)
+	copy(starts, l.starts[:keep])
+	for i := from - 1; i < newEnd; i++ {
+		switch text[i] {
+		case '\n':
+			starts = append(starts, i+1)
+		case '\r':
+			if i+1 >= len(text) || text[i+1] != '\n' {
+				starts = append(starts, i+1)
+			}
+		}
+	}
+	for _, y := range l.starts[after:] {
+		starts = append(starts, y+d)
+	}
+	return &lines{text: text, starts: starts}
+}
+
 // lineEnd is the byte offset where line i's content ends (before its line
 // ending).
 func (l *lines) lineEnd(i int) int {

@@ -1,6 +1,7 @@
 package lsp
 
 import (
+	"bytes"
 	"math/rand/v2"
 	"path/filepath"
 	"slices"
@@ -155,6 +156,35 @@ func TestNewLinesFastPath(t *testing.T) {
 		}
 		if got := newLines(text).starts; !slices.Equal(got, want) {
 			t.Fatalf("%q: line starts %v, want %v", text, got, want)
+		}
+	}
+}
+
+// TestEditedLinesMatchNew makes random edits with every kind of line end
+// and text beyond ASCII, and checks that each edited index is the one
+// newLines gives.
+func TestEditedLinesMatchNew(t *testing.T) {
+	pieces := []string{"\n", "\r", "\r\n", "a", "é", "😀", "xy", "", "\n\r"}
+	r := rand.New(rand.NewPCG(5, 6))
+	for round := range 50 {
+		var text []byte
+		for range r.IntN(40) {
+			text = append(text, pieces[r.IntN(len(pieces))]...)
+		}
+		ix := newLines(text)
+		for range 60 {
+			from := r.IntN(len(text) + 1)
+			to := from + r.IntN(len(text)-from+1)
+			var ins []byte
+			for range r.IntN(4) {
+				ins = append(ins, pieces[r.IntN(len(pieces))]...)
+			}
+			next := append(append(append([]byte(nil), text[:from]...), ins...), text[to:]...)
+			ix = ix.edited(next, from, to, len(ins))
+			if want := newLines(next); !slices.Equal(ix.starts, want.starts) || !bytes.Equal(ix.text, next) {
+				t.Fatalf("round %d: %q with [%d, %d) replaced by %q: starts %v, want %v", round, text, from, to, ins, ix.starts, want.starts)
+			}
+			text = next
 		}
 	}
 }

@@ -12,6 +12,7 @@ type document struct {
 	path    string // clean absolute path
 	version int32
 	text    []byte
+	ix      *lines // text's line index, kept from edit to edit; nil until an edit builds it
 }
 
 // store holds the open documents. Every method is safe for concurrent use;
@@ -83,13 +84,15 @@ func (s *store) edit(uri string, version int32, changes []TextDocumentContentCha
 	if version <= doc.version {
 		return fmt.Errorf("change to %s at version %d, but version %d is already held", uri, version, doc.version)
 	}
-	text := doc.text
+	text, ix := doc.text, doc.ix
 	for i, c := range changes {
 		if c.Range == nil {
-			text = []byte(c.Text)
+			text, ix = []byte(c.Text), nil
 			continue
 		}
-		ix := newLines(text)
+		if ix == nil {
+			ix = newLines(text)
+		}
 		from, to := ix.offset(c.Range.Start, enc), ix.offset(c.Range.End, enc)
 		if from > to {
 			return fmt.Errorf("change %d to %s at version %d: range ends before it starts", i+1, uri, version)
@@ -98,9 +101,9 @@ func (s *store) edit(uri string, version int32, changes []TextDocumentContentCha
 		next = append(next, text[:from]...)
 		next = append(next, c.Text...)
 		next = append(next, text[to:]...)
-		text = next
+		text, ix = next, ix.edited(next, from, to, len(c.Text))
 	}
-	doc.text, doc.version = text, version
+	doc.text, doc.version, doc.ix = text, version, ix
 	return nil
 }
 

@@ -193,6 +193,13 @@ func (w *worker) cycle(ctx, cycleCtx context.Context, conn *jsonrpc2.Conn) {
 	w.parsed.Retain(func(path string) bool { return owners[cleanPath(path)] != "" })
 
 	snap := &snapshot{nets: map[string]*network.Network{}, lines: map[string]*lines{}, feeds: map[*network.Network]*feedResults{}}
+	// The open documents' line indexes, kept from edit to edit, serve
+	// for the text the networks read (linesOf checks that it is the same).
+	for _, d := range docs {
+		if d.ix != nil {
+			snap.lines[d.path] = d.ix
+		}
+	}
 	for _, r := range roots {
 		snap.feeds[r.net] = r.feeds
 	}

@@ -38,7 +38,7 @@ type checkMemo struct {
 // speciesChecks is one check run's view of the memo: the previous
 // findings when the network's settings match, and the new ones.
 type speciesChecks struct {
-	from        map[*Species]*Species // a species of this network -> the one of the last whose data it took
+	from        *speciesOrigins // a species of this network -> the one of the last whose data it took
 	prev        map[string]map[*Species]lang.Diagnostics
 	prevSpecies []*Species // the species prev is of (checkMemo.species)
 
@@ -98,7 +98,7 @@ func (p *Pass) eachSpecies(part string, fn func(sp *Species)) {
 	next := map[*Species]lang.Diagnostics{}
 	reused := 0
 	for _, sp := range p.Net.Species {
-		if old := sc.from[sp]; ran && old != nil && sc.lookedAt(old) && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
+		if old := sc.from.of(sp); ran && old != nil && sc.lookedAt(old) && old.p0 == sp.p0 && old.Activity() == sp.Activity() && old.Used == sp.Used {
 			if ds := prev[old]; len(ds) > 0 {
 				*p.out = append(*p.out, ds...)
 				next[sp] = ds

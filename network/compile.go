@@ -110,7 +110,17 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 			nReactions++
 		}
 	})
-	c.prepared = prepareRefs(refs, refBroken)
+	var prevRefs map[*lang.SpeciesRef]*Species
+	if memo != nil {
+		memo.mu.Lock()
+		prevRefs = memo.refs
+		memo.mu.Unlock()
+	}
+	c.prepared = prepareRefs(refs, refBroken, prevRefs)
+	var nextRefs map[*lang.SpeciesRef]*Species
+	if memo != nil {
+		nextRefs = preparedSpecies(c.prepared)
+	}
 	n.speciesByKey = make(map[string]*Species, nSpecies)
 	c.declared = make(map[string]int32, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)
@@ -161,7 +171,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	}
 	var elements string
 	var speciesEntries map[*lang.Species]*memoSpecies
-	var from map[*Species]*Species
+	var from *speciesOrigins
 	if memo != nil {
 		elements = elementsEnv(n)
 		speciesEntries, from = c.speciesDataReusing(species, memo, elements)
@@ -206,10 +216,16 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	if err := ctx.Err(); err != nil {
 		return err
 	}
-	buildModels(n)
+	var reuse *modelReuse
+	if memo != nil {
+		memo.mu.Lock()
+		reuse = &modelReuse{from: from, pressure: memo.pressure}
+		memo.mu.Unlock()
+	}
+	buildModels(n, reuse)
 	buildSolutions(n)
 	if memo != nil {
-		memo.commit(env, entries, elements, speciesEntries, from)
+		memo.commit(env, entries, elements, speciesEntries, from, n.StandardPressure(), nextRefs)
 	}
 	return nil
 }

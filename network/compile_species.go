@@ -27,8 +27,11 @@ type preparedRef struct {
 // species, in parallel, in the order the statements declare them: what
 // declaring a species costs apart from naming it in the network, which
 // must go in order. broken says, for each reference, that its statement
-// did not parse.
-func prepareRefs(refs []*lang.SpeciesRef, broken []bool) []preparedRef {
+// did not parse. A reference that made a species in the last compile
+// (prev, by reference: the parse caches hand out the same reference for a
+// statement that did not change or move) makes one with that one's key,
+// parts, span and charge, which depend on nothing but the reference.
+func prepareRefs(refs []*lang.SpeciesRef, broken []bool, prev map[*lang.SpeciesRef]*Species) []preparedRef {
 	size := 0
 	for _, ref := range refs {
 		size += len(ref.Text)
@@ -41,7 +44,13 @@ func prepareRefs(refs []*lang.SpeciesRef, broken []bool) []preparedRef {
 	texts := b.String()
 	out := make([]preparedRef, len(refs))
 	parallel(len(refs), 512, func() func(i int) {
-		return func(i int) { out[i] = newSpecies(refs[i], broken[i]) }
+		return func(i int) {
+			if old := prev[refs[i]]; old != nil {
+				out[i] = preparedRef{ref: refs[i], sp: &Species{Key: old.Key, Parts: old.Parts, Span: old.Span, Charge: old.Charge, BrokenData: broken[i]}}
+				return
+			}
+			out[i] = newSpecies(refs[i], broken[i])
+		}
 	})
 	at := 0
 	for i, ref := range refs {
@@ -355,4 +364,16 @@ func formulaCheck(code string) *Check {
 		return unknownElementCheck
 	}
 	return badFormulaCheck
+}
+
+// preparedSpecies is the species each reference of prepared made, by
+// reference, for the next compile's prepareRefs.
+func preparedSpecies(prepared []preparedRef) map[*lang.SpeciesRef]*Species {
+	m := make(map[*lang.SpeciesRef]*Species, len(prepared))
+	for _, p := range prepared {
+		if p.sp != nil {
+			m[p.ref] = p.sp
+		}
+	}
+	return m
 }

@@ -28,11 +28,11 @@ type compileMemo struct {
 	mu        sync.Mutex
 	env       string // speciesEnv of the compile the reactions are from
 	reactions map[*lang.Statement]*memoReaction
-	// moved are the reactions of reactions that refer to no
-	// position but their statement's (positionFree), by file and statement
-	// text: a statement that an edit before it moved is a new statement
-	// with the same text, whose build is the same but for its node.
-	moved  map[statementText]*memoReaction
+	// moved are the reactions that refer to no position but their
+	// statement's (positionFree), by the statement's lineage: a statement
+	// that an edit before it moved is a copy with the same text and
+	// lineage, whose build is the same but for its node.
+	moved  map[uint64]*memoReaction
 	reused int // reactions the latest compile took from the memo, for tests
 
 	elements      string // elementsEnv of the compile the species are from
@@ -40,7 +40,13 @@ type compileMemo struct {
 	reusedSpecies int // species statements the latest compile took from the memo
 	// from maps each species of the latest compile whose data were taken
 	// from the memo to the species they were taken from.
-	from map[*Species]*Species
+	from *speciesOrigins
+	// pressure is the standard pressure of the latest compile's network,
+	// which its species' models were built for.
+	pressure float64
+	// refs are the species each species reference of the latest compile
+	// made (prepareRefs).
+	refs map[*lang.SpeciesRef]*Species
 
 	checks checkMemo // species-local check findings (check_reuse.go)
 }
@@ -119,25 +125,22 @@ func speciesEnv(n *Network) string {
 func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMemo, env string) ([]builtReaction, reactionEntries) {
 	memo.mu.Lock()
 	var prev map[*lang.Statement]*memoReaction
-	var prevMoved map[statementText]*memoReaction
+	var prevMoved map[uint64]*memoReaction
 	if memo.env == env {
 		prev, prevMoved = memo.reactions, memo.moved
 	}
 	memo.mu.Unlock()
 	out := make([]builtReaction, len(sts))
 	reused := make([]bool, len(sts))
-	texts := make([]statementText, len(sts))
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
-		same := speciesRemap{}
 		return func(i int) {
-			texts[i] = textOf(sts[i])
 			m := prev[sts[i]]
 			if m == nil {
-				m = prevMoved[texts[i]] // only position-free builds are there
+				m = prevMoved[sts[i].Lineage()] // only position-free builds are there
 			}
 			if m != nil {
-				out[i], reused[i] = m.restore(c.net, same, sts[i].Reaction), true
+				out[i], reused[i] = m.restore(c.net, sts[i].Reaction), true
 				return
 			}
 			w.buildReaction(sts[i], &out[i])
@@ -145,14 +148,16 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 	})
 	next := reactionEntries{
 		byStatement: make(map[*lang.Statement]*memoReaction, len(sts)),
-		moved:       make(map[statementText]*memoReaction, len(sts)),
+		moved:       make(map[uint64]*memoReaction, len(sts)),
 	}
+	entries := make([]memoReaction, len(sts)) // one allocation for all
 	n := 0
 	for i, st := range sts {
-		e := &memoReaction{built: out[i]}
+		e := &entries[i]
+		e.built = out[i]
 		next.byStatement[st] = e
-		if texts[i].text != "" && positionFree(out[i]) {
-			next.moved[texts[i]] = e
+		if positionFree(out[i]) {
+			next.moved[st.Lineage()] = e
 		}
 		if reused[i] {
 			n++
@@ -167,18 +172,7 @@ func (c *compiler) buildReactionsReusing(sts []*lang.Statement, memo *compileMem
 // reactionEntries are the memo entries of one compile's reactions.
 type reactionEntries struct {
 	byStatement map[*lang.Statement]*memoReaction
-	moved       map[statementText]*memoReaction
-}
-
-// statementText is a statement's file and exact text: what its build
-// depends on besides its position and the species.
-type statementText struct {
-	file, text string
-}
-
-// textOf is the statement's statementText (text "" when it has no tokens).
-func textOf(st *lang.Statement) statementText {
-	return statementText{file: st.Source().Name(), text: st.Text()}
+	moved       map[uint64]*memoReaction
 }
 
 // positionFree reports whether a built reaction refers to no position but
@@ -195,25 +189,23 @@ func positionFree(b builtReaction) bool {
 
 // commit keeps the entries of a completed compile: its reactions under
 // env, its species under elements.
-func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from map[*Species]*Species) {
+func (m *compileMemo) commit(env string, entries reactionEntries, elements string, species map[*lang.Species]*memoSpecies, from *speciesOrigins, pressure float64, refs map[*lang.SpeciesRef]*Species) {
 	m.mu.Lock()
 	defer m.mu.Unlock()
 	m.env, m.reactions, m.moved = env, entries.byStatement, entries.moved
-	m.elements, m.species, m.from = elements, species, from
+	m.elements, m.species, m.from, m.pressure, m.refs = elements, species, from, pressure, refs
 }
 
 // restore builds a fresh copy of the entry for the network n and the
 // statement st (the one it was built from, or a moved one of the same
-// text), its species found by key among n's (the species signature being
-// equal, each key names the species of the same declaration it named
-// before).
-func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction) builtReaction {
+// text), its species those of n declared where they were (sameSpecies).
+func (m *memoReaction) restore(n *Network, st *lang.Reaction) builtReaction {
 	b := m.built
 	b.diags = slices.Clone(m.built.diags)
 	b.propDiags = slices.Clone(m.built.propDiags)
 	b.mentioned = nil
 	for _, sp := range m.built.mentioned {
-		b.mentioned = append(b.mentioned, same.of(n, sp))
+		b.mentioned = append(b.mentioned, sameSpecies(n, sp))
 	}
 	if rx := m.built.rx; rx != nil {
 		b.rx = copyReaction(rx)
@@ -224,7 +216,7 @@ func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction)
 		for _, side := range [2][]Term{b.rx.Left, b.rx.Right} {
 			for i, t := range side {
 				if t.Species != nil {
-					side[i].Species = same.of(n, t.Species)
+					side[i].Species = sameSpecies(n, t.Species)
 				}
 			}
 		}
@@ -232,20 +224,16 @@ func (m *memoReaction) restore(n *Network, same speciesRemap, st *lang.Reaction)
 	return b
 }
 
-// speciesRemap is one worker's record of which species of this compile
-// has the key of a species of the last: a reaction taken from the memo
-// finds its species again through it, by pointer, looking a key up only
-// once per species.
-type speciesRemap map[*Species]*Species
-
-// of is the species of n with sp's key.
-func (r speciesRemap) of(n *Network, sp *Species) *Species {
-	if to, ok := r[sp]; ok {
-		return to
+// sameSpecies is the species of n declared where sp was declared in the
+// network it is of. The memo's reactions are taken only when the two
+// networks' species signatures are equal (speciesEnv: every key, in
+// declaration order), so that is the species with sp's key, found by
+// declaration index without reading either species' key.
+func sameSpecies(n *Network, sp *Species) *Species {
+	if i := sp.index; i >= 0 && i < len(n.Species) {
+		return n.Species[i]
 	}
-	to := n.speciesByKey[sp.Key]
-	r[sp] = to
-	return to
+	return n.speciesByKey[sp.Key]
 }
 
 // copyReaction copies a reaction as built (no combination yet) so that the
@@ -304,7 +292,7 @@ func elementsEnv(n *Network) string {
 // the memo compiled with the same species declared and the same elements
 // from the memo. It returns the entries for the next compile, and which
 // species took their data from which of the last compile's.
-func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, map[*Species]*Species) {
+func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo, elements string) (map[*lang.Species]*memoSpecies, *speciesOrigins) {
 	memo.mu.Lock()
 	var prev map[*lang.Species]*memoSpecies
 	if memo.elements == elements {
@@ -328,15 +316,17 @@ func (c *compiler) speciesDataReusing(list []declaredSpecies, memo *compileMemo,
 		}
 	})
 	next := make(map[*lang.Species]*memoSpecies, len(list))
-	from := map[*Species]*Species{}
+	entries := make([]memoSpecies, len(list)) // one allocation for all
+	from := &speciesOrigins{species: c.net.Species, old: make([]*Species, len(c.net.Species))}
 	n := 0
 	for i, d := range list {
 		c.net.Diagnostics = append(c.net.Diagnostics, diags[i]...)
-		next[d.st] = &memoSpecies{declared: d.declared, diags: diags[i]}
+		entries[i] = memoSpecies{declared: d.declared, diags: diags[i]}
+		next[d.st] = &entries[i]
 		if reused[i] {
 			n++
 			for j, sp := range d.declared {
-				from[sp] = prev[d.st].declared[j]
+				from.old[sp.index] = prev[d.st].declared[j]
 			}
 		}
 	}
@@ -372,4 +362,21 @@ func copySpeciesData(dst, src *Species) {
 	dst.Ranges = slices.Clone(src.Ranges)
 	dst.Source, dst.Note = src.Source, src.Note
 	dst.BrokenData = src.BrokenData
+}
+
+// speciesOrigins maps each species of one compile, by declaration index,
+// to the species of the compile before whose data it took (nil where it
+// took none).
+type speciesOrigins struct {
+	species []*Species // the compile's, in declaration order
+	old     []*Species
+}
+
+// of is the species whose data sp took, nil when it took none or is not
+// a species of the compile o is of.
+func (o *speciesOrigins) of(sp *Species) *Species {
+	if o == nil || sp.index < 0 || sp.index >= len(o.old) || o.species[sp.index] != sp {
+		return nil
+	}
+	return o.old[sp.index]
 }

@@ -24,17 +24,48 @@ func (s *Species) Model() thermo.Model {
 // buildModels builds every species' model once the network is compiled, so
 // that Model is a plain read afterwards (safe for concurrent readers). Each
 // species' model depends only on the species and the settings, so the
-// species are built in parallel.
-func buildModels(n *Network) {
+// species are built in parallel. With reuse, a species that took its data
+// from the last compile's takes that one's model too, when it was built
+// for the same pressures and the same activity convention.
+func buildModels(n *Network, reuse *modelReuse) {
 	parallel(len(n.Species), 256, func() func(i int) {
 		return func(i int) {
 			sp := n.Species[i]
 			sp.p0, _ = n.DataPressure(sp.Span.File)
+			if old := reuse.of(n, sp); old != nil {
+				sp.model, sp.cover, sp.derivedS = old.model, old.cover, old.derivedS
+				sp.built = true
+				return
+			}
 			sp.model = n.pressureShiftedModel(sp, sp.buildModel())
 			sp.cover = coverage(sp.model)
 			sp.built = true
 		}
 	})
+}
+
+// modelReuse is what buildModels may take from the last compile: which
+// species' data each species took (reuse.go), and the standard pressure
+// their models were built for.
+type modelReuse struct {
+	from     *speciesOrigins
+	pressure float64
+}
+
+// of is the species of the last compile whose model sp may take: the one
+// whose data it took, its model built for the same standard pressure,
+// the same pressure of the data and the same activity convention, which
+// with the data are all a model is built from (buildModel,
+// pressureShiftedModel).
+func (r *modelReuse) of(n *Network, sp *Species) *Species {
+	if r == nil || r.pressure != n.StandardPressure() {
+		return nil
+	}
+	old := r.from.of(sp)
+	if old == nil || !old.built || old.p0 != sp.p0 || old.Activity() != sp.Activity() {
+		return nil
+	}
+	return old
 }
 
 func (s *Species) buildModel() thermo.Model {
