@@ -277,8 +277,8 @@ func indexKey(cs []indexCount) (string, bool) {
 	if cs[0].n < 0 {
 		sign = -1
 	}
-	b := make([]byte, 1, 1+len(cs)*4)
-	b[0] = 'i'
+	var buf [64]byte // room for most keys, so that only the string is allocated
+	b := append(buf[:0], 'i')
 	for _, c := range cs {
 		b = binary.AppendUvarint(b, uint64(c.index))
 		b = binary.AppendVarint(b, sign*c.n)
