@@ -36,7 +36,13 @@ type builtReaction struct {
 // marking them in the species themselves would write to a species for
 // every term, in no useful order, where the merged marks are applied in
 // declaration order (markUsed).
+//
+// The species of every term are looked up first, in a pass of their own
+// (resolveTerms): the lookups then share the caches with nothing else,
+// where between the lookups of a reaction's build its allocations stream
+// fresh memory through them.
 func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, used []bool) {
+	resolved, starts := c.resolveTerms(sts)
 	out = make([]builtReaction, len(sts))
 	var mu sync.Mutex
 	var marks [][]bool
@@ -46,7 +52,7 @@ func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, u
 		mu.Lock()
 		marks = append(marks, w.used)
 		mu.Unlock()
-		return func(i int) { w.buildReaction(sts[i], &out[i]) }
+		return func(i int) { w.buildReactionResolved(sts[i], &out[i], resolved[starts[i]:starts[i+1]]) }
 	})
 	if len(marks) == 0 {
 		return out, nil
@@ -58,6 +64,44 @@ func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, u
 		}
 	}
 	return out, used
+}
+
+// resolveTerms finds, for every term of the statements that parsed, its
+// species' declaration index when the term writes the species as its
+// declaration did, and -1 otherwise (the build looks those up itself).
+// The indexes of statement i's terms, left side then right, are
+// resolved[starts[i]:starts[i+1]]; a statement that did not parse has none.
+func (c *compiler) resolveTerms(sts []*lang.Statement) (resolved []int32, starts []int32) {
+	starts = make([]int32, len(sts)+1)
+	total := 0
+	for i, st := range sts {
+		starts[i] = int32(total)
+		if r := st.Reaction; !st.Broken && total <= math.MaxInt32-len(r.Left)-len(r.Right) {
+			total += len(r.Left) + len(r.Right)
+		}
+	}
+	starts[len(sts)] = int32(total)
+	resolved = make([]int32, total)
+	parallel(len(sts), 512, func() func(i int) {
+		return func(i int) {
+			r, at := sts[i].Reaction, starts[i]
+			if int(starts[i+1]-at) != len(r.Left)+len(r.Right) {
+				return
+			}
+			for _, side := range [2][]*lang.Term{r.Left, r.Right} {
+				for _, t := range side {
+					resolved[at] = -1
+					if t != nil && t.Species != nil {
+						if j, ok := c.declared[t.Species.Text]; ok {
+							resolved[at] = j
+						}
+					}
+					at++
+				}
+			}
+		}
+	})
+	return resolved, starts
 }
 
 // newReaction allocates a reaction together with room for n terms, so
@@ -99,6 +143,12 @@ func (c *compiler) markUsed(used []bool) {
 
 // buildReaction compiles one reaction statement into b.
 func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
+	c.buildReactionResolved(st, b, nil)
+}
+
+// buildReactionResolved is buildReaction given what resolveTerms found
+// for the statement's terms (nil for nothing found).
+func (c *compiler) buildReactionResolved(st *lang.Statement, b *builtReaction, resolved []int32) {
 	r := st.Reaction
 	if st.Broken {
 		b.mentioned = c.mentioned(st)
@@ -122,8 +172,12 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	coefs := cbuf[:0]
 	var ibuf [12]int32
 	idx := ibuf[:0]
-	left, coefs, idx, ok := c.side(r.Left, true, terms[:0:len(r.Left)], coefs, idx)
-	right, coefs, idx, ok := c.side(r.Right, ok, terms[len(r.Left):len(r.Left):len(terms)], coefs, idx)
+	var preLeft, preRight []int32
+	if len(resolved) == len(terms) {
+		preLeft, preRight = resolved[:len(r.Left)], resolved[len(r.Left):]
+	}
+	left, coefs, idx, ok := c.side(r.Left, true, preLeft, terms[:0:len(r.Left)], coefs, idx)
+	right, coefs, idx, ok := c.side(r.Right, ok, preRight, terms[len(r.Left):len(r.Left):len(terms)], coefs, idx)
 	rx.Left, rx.Right, rx.Resolved = left, right, ok
 	if c.used != nil {
 		for _, at := range idx {
@@ -233,9 +287,10 @@ func (c *compiler) lookupIndex(ref string) (*Species, int32) {
 // integers; coefs becomes nil at the first that is not. Each term's
 // species' declaration index (-1 for none) is appended to idx. The terms
 // are appended to out, which has room for them. side returns out, coefs
-// and idx so appended.
-func (c *compiler) side(terms []*lang.Term, resolved bool, out []Term, coefs []int64, idx []int32) ([]Term, []int64, []int32, bool) {
-	for _, t := range terms {
+// and idx so appended. pre, when not nil, holds what resolveTerms found
+// for each term.
+func (c *compiler) side(terms []*lang.Term, resolved bool, pre []int32, out []Term, coefs []int64, idx []int32) ([]Term, []int64, []int32, bool) {
+	for k, t := range terms {
 		term := Term{Coef: sharedRat(1)}
 		n, small := int64(1), true
 		if t.Coef != nil {
@@ -265,7 +320,13 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, out []Term, coefs []i
 				coefs = nil
 			}
 		}
-		sp, at := c.lookupIndex(t.Species.Text)
+		var sp *Species
+		var at int32
+		if pre != nil && pre[k] >= 0 {
+			sp, at = c.net.Species[pre[k]], pre[k]
+		} else {
+			sp, at = c.lookupIndex(t.Species.Text)
+		}
 		idx = append(idx, at)
 		term.at = at + 1
 		switch {

@@ -4,6 +4,7 @@ import (
 	"math/big"
 	"testing"
 
+	"hess/lang"
 	"hess/synth"
 )
 
@@ -156,5 +157,75 @@ func TestTermIndex(t *testing.T) {
 	}
 	if got := termIndex(n.Species, Term{}); got != -1 {
 		t.Errorf("a term without a species: termIndex %d", got)
+	}
+}
+
+// TestResolveTerms checks the pass that looks up every term's species
+// before the reactions are built: each index it gives is that of the
+// species lookup finds for the term, and -1 only where the term does not
+// write the species as its declaration did (or names none), on the test
+// networks, the examples and a generated network.
+func TestResolveTerms(t *testing.T) {
+	roots := globRoots(t, "../testdata/check/*.hess", "../examples/*.hess", "../examples/*/*.hess")
+	nets := map[string]*Network{}
+	for _, root := range roots {
+		nets[root] = Load(root, Disk{}, Options{})
+	}
+	root, src, _ := shapeSource(t, synth.Mechanism, 300, 900)
+	nets["generated"] = Load(root, src, Options{})
+	found := 0
+	for name, n := range nets {
+		c := &compiler{net: n, declared: map[string]int32{}}
+		var sts []*lang.Statement
+		c.each(func(st *lang.Statement) {
+			if st.Species != nil {
+				for _, ref := range st.Species.Refs {
+					if ref == nil {
+						continue
+					}
+					if sp := n.LookupSpecies(ref.Text); sp != nil && sp.Span == ref.Span() {
+						c.declared[ref.Text] = int32(sp.index)
+					}
+				}
+			}
+			if st.Reaction != nil {
+				sts = append(sts, st)
+			}
+		})
+		resolved, starts := c.resolveTerms(sts)
+		for i, st := range sts {
+			got := resolved[starts[i]:starts[i+1]]
+			r := st.Reaction
+			if st.Broken {
+				if len(got) != 0 {
+					t.Errorf("%s: a statement that did not parse has %d resolved terms", name, len(got))
+				}
+				continue
+			}
+			k := 0
+			for _, side := range [2][]*lang.Term{r.Left, r.Right} {
+				for _, term := range side {
+					want := int32(-1)
+					if term != nil && term.Species != nil {
+						if j, ok := c.declared[term.Species.Text]; ok {
+							want = j
+						}
+					}
+					if got[k] != want {
+						t.Errorf("%s: term %d of %s: resolved %d, want %d", name, k, st.Text(), got[k], want)
+					}
+					if got[k] >= 0 {
+						found++
+						if sp := n.LookupSpecies(term.Species.Text); sp == nil || sp.index != int(got[k]) {
+							t.Errorf("%s: %s resolved to %d, LookupSpecies finds %v", name, term.Species.Text, got[k], sp)
+						}
+					}
+					k++
+				}
+			}
+		}
+	}
+	if found < 1000 {
+		t.Errorf("only %d terms resolved", found)
 	}
 }
