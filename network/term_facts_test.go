@@ -93,6 +93,9 @@ reaction soda: 2 NaHCO3(s) -> Na2CO3(s) + CO2(g) + H2O(l)
 reaction wustite: 19 Fe(s) + 10 O2(g) -> 20 Fe0.95O(s)
 reaction ox: Fe(s) -> Fe^2+(aq) + 2 e-(aq)
 reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
+reaction long: NaHCO3(s) + NaHCO3(s) + Fe(s) + Fe(s) + CO2(g) -> Na2CO3(s) + CO2(g) + H2O(l) + Fe(s) + Fe(s) + CO2(g)
+reaction half: Fe(s) + 1/2 O2(g) + 2 e-(aq) -> Fe^2+(aq) + H2O(l)
+reaction spelled: Fe(s) -> Fe++(aq) + 2 e-(aq)
 `
 	n := Load("/t/net.hess", memSource{"/t/net.hess": []byte(text)}, Options{})
 	tf := newTermFacts(n.Species)
@@ -103,7 +106,7 @@ reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
 	if !compact["NaHCO3(s)"] || compact["Fe0.95O(s)"] || !compact["CO2(g)"] || !compact["e-(aq)"] {
 		t.Errorf("compact facts: %v", compact)
 	}
-	if len(n.Reactions) != 4 {
+	if len(n.Reactions) != 7 {
 		t.Fatalf("%d reactions: %v", len(n.Reactions), n.Diagnostics)
 	}
 	for _, rx := range n.Reactions {
@@ -113,6 +116,12 @@ reaction bad: Fe(s) -> Fe^2+(aq) + e-(aq)
 	}
 	if f := n.LookupReaction("bad").stoich; !f.intOK || f.charge {
 		t.Errorf("bad: %+v, want an integer charge imbalance", f)
+	}
+	if f := n.LookupReaction("long").stoich; !f.intOK || !f.elements || !f.charge {
+		t.Errorf("long (eleven terms, species on both sides): %+v, want balanced", f)
+	}
+	if rx := n.LookupReaction("spelled"); rx.Left[0].Species == nil || rx.Right[0].Species != n.LookupSpecies("Fe^2+(aq)") || int(rx.Right[0].at)-1 != rx.Right[0].Species.index {
+		t.Errorf("spelled: a charge written otherwise did not find its species and index: %+v", rx.Right[0])
 	}
 }
 
