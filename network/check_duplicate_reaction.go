@@ -1,6 +1,10 @@
 package network
 
-import "hess/lang"
+import (
+	"math"
+
+	"hess/lang"
+)
 
 var duplicateReactionCheck = &Check{
 	Name:     "duplicate-reaction",
@@ -11,12 +15,11 @@ describe the same process; keeping both usually means one was copied and
 not changed. A multiple of a reaction (2 H2 + O2 against H2 + 1/2 O2) is a
 different reaction and is not reported.`,
 	Run: func(p *Pass) {
-		type seenAs struct {
-			rx       *Reaction
-			reversed bool
-		}
-		seen := make(map[string]seenAs, len(p.Net.Reactions))
-		for _, rx := range p.Net.Reactions {
+		// The first reaction of each key, by its index in the network: a
+		// map of 24-byte entries, which a large network's walk reaches in
+		// no useful order.
+		seen := make(map[string]int32, len(p.Net.Reactions))
+		for i, rx := range p.Net.Reactions {
 			if !rx.Resolved {
 				continue
 			}
@@ -24,17 +27,20 @@ different reaction and is not reported.`,
 			if f.key == "" {
 				continue
 			}
-			first, ok := seen[f.key]
+			at, ok := seen[f.key]
 			if !ok {
-				seen[f.key] = seenAs{rx, f.reversed}
+				if i <= math.MaxInt32 {
+					seen[f.key] = int32(i)
+				}
 				continue
 			}
-			msg := "reaction " + rx.Name + " has the same equation as " + first.rx.Name
-			if first.reversed != f.reversed {
-				msg = "reaction " + rx.Name + " is " + first.rx.Name + " reversed"
+			first := p.Net.Reactions[at]
+			msg := "reaction " + rx.Name + " has the same equation as " + first.Name
+			if first.facts().reversed != f.reversed {
+				msg = "reaction " + rx.Name + " is " + first.Name + " reversed"
 			}
 			p.Report(lang.Diagnostic{Subject: rx.NameSpan(), Context: rx.Span(), Message: msg,
-				Related: []lang.Related{{Span: first.rx.NameSpan(), Message: first.rx.Name + " defined here"}}})
+				Related: []lang.Related{{Span: first.NameSpan(), Message: first.Name + " defined here"}}})
 		}
 	},
 }

@@ -18,6 +18,12 @@ kinds is seldom meant. The message names the species without a heat
 capacity: give them cp or a polynomial, or drop cp from the others so that
 the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 	Run: func(p *Pass) {
+		// Each species' kind, worked out once in declaration order: the
+		// reactions then read a byte per species rather than its data.
+		kinds := make([]cpKind, len(p.Net.Species))
+		for i, sp := range p.Net.Species {
+			kinds[i] = cpKindOf(sp)
+		}
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved {
 				continue
@@ -26,10 +32,16 @@ the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 			var without []string
 			var buf [12]*Species
 			for _, sp := range rx.netSpecies(buf[:0]) {
-				switch {
-				case len(sp.Ranges) > 0 || sp.Cp != nil:
+				var kind cpKind
+				if i := speciesIndexIn(p.Net.Species, rx, sp); i >= 0 {
+					kind = kinds[i]
+				} else {
+					kind = cpKindOf(sp)
+				}
+				switch kind {
+				case cpWith:
 					with = true
-				case sp.Hf != nil && (sp.S != nil || sp.DerivedS() != nil):
+				case cpWithout:
 					without = append(without, sp.Key)
 				}
 			}
@@ -43,4 +55,41 @@ the reaction is consistently taken at constant ΔrH° and ΔrS°.`,
 			}
 		}
 	},
+}
+
+// cpKind is whether a species carries a heat capacity, as partial-cp sees
+// it.
+type cpKind int8
+
+const (
+	cpUnknown cpKind = iota // neither: no data to speak of
+	cpWith                  // cp, or polynomial ranges
+	cpWithout               // hf and s (given or derived) but no heat capacity
+)
+
+func cpKindOf(sp *Species) cpKind {
+	switch {
+	case len(sp.Ranges) > 0 || sp.Cp != nil:
+		return cpWith
+	case sp.Hf != nil && (sp.S != nil || sp.DerivedS() != nil):
+		return cpWithout
+	}
+	return cpUnknown
+}
+
+// speciesIndexIn is the declaration index of sp, a species of rx's
+// equation, among list (a network's species), from the first term of rx
+// that names it; -1 when it is not one of list's.
+func speciesIndexIn(list []*Species, rx *Reaction, sp *Species) int {
+	for _, side := range [2][]Term{rx.Left, rx.Right} {
+		for _, t := range side {
+			if t.Species == sp {
+				return termIndex(list, t)
+			}
+		}
+	}
+	if sp == nil {
+		return -1
+	}
+	return termIndex(list, Term{Species: sp})
 }

@@ -187,6 +187,7 @@ message, and a reaction whose own data did not compile is not reported.`,
 	Run: func(p *Pass) {
 		temps := p.Net.Temperatures
 		known := newGivesG(p.Net)
+		known.fill(temps)
 		for _, rx := range p.Net.Reactions {
 			if !rx.Resolved || speciesGiveDeltaG(rx, temps, known) || !thermoIntent(rx) || dataBroken(rx) {
 				continue

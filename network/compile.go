@@ -21,12 +21,19 @@ type compiler struct {
 	// units are units as written that parsed, when caching: a network
 	// writes the same few units thousands of times. At most maxUnitCache.
 	units map[string]thermo.Unit
-	// declared are the species by the text of the reference that declared
-	// them: a reaction nearly always writes a species as it was declared,
-	// and the same text always names the same species, so lookup finds it
-	// there without splitting the reference. Written only while species
-	// are declared (serially), read by the workers after.
-	declared map[string]*Species
+	// declared are the species, by declaration index, by the text of the
+	// reference that declared them: a reaction nearly always writes a
+	// species as it was declared, and the same text always names the same
+	// species, so lookup finds it there without splitting the reference
+	// (nor reading the species). Written only while species are declared
+	// (serially), read by the workers after.
+	declared map[string]int32
+	// facts are what a reaction's compile reads of its species, by
+	// declaration index, once the species' data are read.
+	facts *termFacts
+	// used, when set, marks by declaration index the species of the
+	// complete reactions a worker built (see buildReactions).
+	used []bool
 	// prepared are the species references still to be declared, split in
 	// parallel beforehand (prepareRefs); declare takes them in order.
 	prepared []preparedRef
@@ -53,7 +60,7 @@ func (c *compiler) parseUnit(text string) (thermo.Unit, error) {
 // worker returns a compiler for one worker of a parallel pass, reporting
 // into out.
 func (c *compiler) worker(out *lang.Diagnostics) *compiler {
-	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near, units: map[string]thermo.Unit{}, declared: c.declared}
+	return &compiler{net: c.net, out: out, refs: map[string]*Species{}, near: c.near, units: map[string]thermo.Unit{}, declared: c.declared, facts: c.facts}
 }
 
 func (c *compiler) report(check *Check, span lang.Span, format string, args ...any) *lang.Diagnostic {
@@ -115,8 +122,11 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 		nextRefs = preparedSpecies(c.prepared)
 	}
 	n.speciesByKey = make(map[string]*Species, nSpecies)
-	c.declared = make(map[string]*Species, nSpecies)
+	c.declared = make(map[string]int32, nSpecies)
 	n.reactionByName = make(map[string]*Reaction, nReactions)
+	if nReactions > 0 {
+		n.Reactions = make([]*Reaction, 0, nReactions)
+	}
 	n.Settings = Settings{Pressure: 1e5, Temperatures: []float64{298.15}, Tolerance: 500}
 
 	// Elements and phases first: formulas and state tags depend on them.
@@ -171,6 +181,7 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 	if err := ctx.Err(); err != nil {
 		return err
 	}
+	c.facts = newTermFacts(n.Species)
 	reactions := make([]*lang.Statement, 0, nReactions)
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil {
@@ -178,19 +189,21 @@ func compileContext(ctx context.Context, n *Network, memo *compileMemo) error {
 		}
 	})
 	var built []builtReaction
+	var used []bool
 	var env string
 	var entries map[uint64]*memoReaction
 	if memo != nil {
 		env = speciesEnv(n)
 		built, entries = c.buildReactionsReusing(reactions, memo, env)
 	} else {
-		built = c.buildReactions(reactions)
+		built, used = c.buildReactions(reactions)
 	}
 	if err := ctx.Err(); err != nil {
 		return err
 	}
+	c.markUsed(used)
 	for _, b := range built {
-		c.addReaction(b)
+		c.addReaction(b, used != nil)
 	}
 	c.each(func(st *lang.Statement) {
 		if st.Reaction != nil && !st.Broken {

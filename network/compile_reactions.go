@@ -2,9 +2,11 @@ package network
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"sort"
 	"strings"
+	"sync"
 
 	"hess/lang"
 	"hess/suggest"
@@ -28,17 +30,125 @@ type builtReaction struct {
 // buildReactions compiles every reaction statement on its own, in
 // parallel: species are all declared by now, so lookups only read the
 // network.
-func (c *compiler) buildReactions(sts []*lang.Statement) []builtReaction {
-	out := make([]builtReaction, len(sts))
+//
+// Each worker also marks, by declaration index, the species of the
+// complete reactions it built, and the marks are returned merged (used):
+// marking them in the species themselves would write to a species for
+// every term, in no useful order, where the merged marks are applied in
+// declaration order (markUsed).
+//
+// The species of every term are looked up first, in a pass of their own
+// (resolveTerms): the lookups then share the caches with nothing else,
+// where between the lookups of a reaction's build its allocations stream
+// fresh memory through them.
+func (c *compiler) buildReactions(sts []*lang.Statement) (out []builtReaction, used []bool) {
+	resolved, starts := c.resolveTerms(sts)
+	out = make([]builtReaction, len(sts))
+	var mu sync.Mutex
+	var marks [][]bool
 	parallel(len(sts), 512, func() func(i int) {
 		w := c.worker(nil)
-		return func(i int) { w.buildReaction(sts[i], &out[i]) }
+		w.used = make([]bool, len(c.net.Species))
+		mu.Lock()
+		marks = append(marks, w.used)
+		mu.Unlock()
+		return func(i int) { w.buildReactionResolved(sts[i], &out[i], resolved[starts[i]:starts[i+1]]) }
 	})
-	return out
+	if len(marks) == 0 {
+		return out, nil
+	}
+	used = marks[0]
+	for _, m := range marks[1:] {
+		for i, u := range m {
+			used[i] = used[i] || u
+		}
+	}
+	return out, used
+}
+
+// resolveTerms finds, for every term of the statements that parsed, its
+// species' declaration index when the term writes the species as its
+// declaration did, and -1 otherwise (the build looks those up itself).
+// The indexes of statement i's terms, left side then right, are
+// resolved[starts[i]:starts[i+1]]; a statement that did not parse has none.
+func (c *compiler) resolveTerms(sts []*lang.Statement) (resolved []int32, starts []int32) {
+	starts = make([]int32, len(sts)+1)
+	total := 0
+	for i, st := range sts {
+		starts[i] = int32(total)
+		if r := st.Reaction; !st.Broken && total <= math.MaxInt32-len(r.Left)-len(r.Right) {
+			total += len(r.Left) + len(r.Right)
+		}
+	}
+	starts[len(sts)] = int32(total)
+	resolved = make([]int32, total)
+	parallel(len(sts), 512, func() func(i int) {
+		return func(i int) {
+			r, at := sts[i].Reaction, starts[i]
+			if int(starts[i+1]-at) != len(r.Left)+len(r.Right) {
+				return
+			}
+			for _, side := range [2][]*lang.Term{r.Left, r.Right} {
+				for _, t := range side {
+					resolved[at] = -1
+					if t != nil && t.Species != nil {
+						if j, ok := c.declared[t.Species.Text]; ok {
+							resolved[at] = j
+						}
+					}
+					at++
+				}
+			}
+		}
+	})
+	return resolved, starts
+}
+
+// newReaction allocates a reaction together with room for n terms, so
+// that a reaction and its equation lie side by side in memory (the checks
+// read both for every reaction, and one allocation costs less than
+// three), for the common sizes of equation; otherwise the terms apart.
+func newReaction(n int) (*Reaction, []Term) {
+	switch {
+	case n <= 4:
+		a := new(struct {
+			rx    Reaction
+			terms [4]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	case n <= 6:
+		a := new(struct {
+			rx    Reaction
+			terms [6]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	case n <= 8:
+		a := new(struct {
+			rx    Reaction
+			terms [8]Term
+		})
+		return &a.rx, a.terms[:n:n]
+	}
+	return new(Reaction), make([]Term, n)
+}
+
+// markUsed sets Used on the species used marks, by declaration index.
+func (c *compiler) markUsed(used []bool) {
+	for i, u := range used {
+		if u {
+			c.net.Species[i].Used = true
+		}
+	}
 }
 
 // buildReaction compiles one reaction statement into b.
 func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
+	c.buildReactionResolved(st, b, nil)
+}
+
+// buildReactionResolved is buildReaction given what resolveTerms found
+// for the statement's terms (nil for nothing found).
+func (c *compiler) buildReactionResolved(st *lang.Statement, b *builtReaction, resolved []int32) {
 	r := st.Reaction
 	if st.Broken {
 		b.mentioned = c.mentioned(st)
@@ -48,28 +158,46 @@ func (c *compiler) buildReaction(st *lang.Statement, b *builtReaction) {
 	}
 	c.out = &b.diags
 	validName := c.name(r.Name, "reaction")
-	rx := &Reaction{Name: r.Name.Name, node: r}
-	b.rx = rx
 	b.complete = !st.Broken && validName && r.Arrow != nil && len(r.Left) > 0 && len(r.Right) > 0
 	if !b.complete {
+		b.rx = &Reaction{Name: r.Name.Name, node: r}
 		return
 	}
+	rx, terms := newReaction(len(r.Left) + len(r.Right))
+	rx.Name, rx.node = r.Name.Name, r
+	b.rx = rx
 	rx.TwoWay = r.Arrow.TwoWay()
 	rx.equation = true
-	coefs := make([]int64, 0, len(r.Left)+len(r.Right))
-	left, ok := c.side(r.Left, true, &coefs)
-	right, ok := c.side(r.Right, ok, &coefs)
+	var cbuf [12]int64
+	coefs := cbuf[:0]
+	var ibuf [12]int32
+	idx := ibuf[:0]
+	var preLeft, preRight []int32
+	if len(resolved) == len(terms) {
+		preLeft, preRight = resolved[:len(r.Left)], resolved[len(r.Left):]
+	}
+	left, coefs, idx, ok := c.side(r.Left, true, preLeft, terms[:0:len(r.Left)], coefs, idx)
+	right, coefs, idx, ok := c.side(r.Right, ok, preRight, terms[len(r.Left):len(r.Left):len(terms)], coefs, idx)
 	rx.Left, rx.Right, rx.Resolved = left, right, ok
+	if c.used != nil {
+		for _, at := range idx {
+			if at >= 0 {
+				c.used[at] = true
+			}
+		}
+	}
 	if ok {
-		rx.stoich = factsWith(rx, coefs)
+		rx.stoich = c.facts.stoich(rx, coefs, idx)
 	}
 	c.out = &b.propDiags
 	c.reactionProperties(rx, r.Props)
 }
 
 // addReaction names a built reaction in the network, in source order, so
-// that the first of two reactions with one name is the one kept.
-func (c *compiler) addReaction(b builtReaction) {
+// that the first of two reactions with one name is the one kept. marked
+// says that the species of its equation are marked used already (see
+// buildReactions).
+func (c *compiler) addReaction(b builtReaction, marked bool) {
 	for _, sp := range b.mentioned {
 		sp.Used = true
 	}
@@ -78,7 +206,7 @@ func (c *compiler) addReaction(b builtReaction) {
 		return
 	}
 	c.net.Diagnostics = append(c.net.Diagnostics, b.diags...)
-	if b.complete {
+	if b.complete && !marked {
 		for _, side := range [][]Term{rx.Left, rx.Right} {
 			for _, t := range side {
 				if t.Species != nil {
@@ -121,31 +249,48 @@ func (c *compiler) mentioned(st *lang.Statement) []*Species {
 // lookup finds a declared species by reference, through the compiler's
 // cache when it keeps one.
 func (c *compiler) lookup(ref string) *Species {
-	if sp, ok := c.declared[ref]; ok {
-		return sp
-	}
-	if c.refs == nil {
-		return c.net.LookupSpecies(ref)
-	}
-	if sp, ok := c.refs[ref]; ok {
-		return sp
-	}
-	sp := c.net.LookupSpecies(ref)
-	if sp != nil {
-		// A copy of the key: ref lies somewhere in the source, and the
-		// comparisons of later lookups would read it from there.
-		c.refs[strings.Clone(ref)] = sp
-	}
+	sp, _ := c.lookupIndex(ref)
 	return sp
+}
+
+// lookupIndex is lookup that also gives the species' declaration index
+// (-1 for none), reading the species only when the reference is not
+// written as its declaration was.
+func (c *compiler) lookupIndex(ref string) (*Species, int32) {
+	if i, ok := c.declared[ref]; ok {
+		return c.net.Species[i], i
+	}
+	var sp *Species
+	switch {
+	case c.refs == nil:
+		sp = c.net.LookupSpecies(ref)
+	default:
+		var ok bool
+		if sp, ok = c.refs[ref]; !ok {
+			sp = c.net.LookupSpecies(ref)
+			if sp != nil {
+				// A copy of the key: ref lies somewhere in the source, and
+				// the comparisons of later lookups would read it from there.
+				c.refs[strings.Clone(ref)] = sp
+			}
+		}
+	}
+	if sp == nil || sp.index > math.MaxInt32 {
+		return sp, -1
+	}
+	return sp, int32(sp.index)
 }
 
 // side resolves one side of a reaction: coefficients read and species
 // looked up. resolved stays true while every species is declared and has
 // a formula. The coefficients are appended to coefs while all are small
-// integers; coefs becomes nil at the first that is not.
-func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Term, bool) {
-	out := make([]Term, 0, len(terms))
-	for _, t := range terms {
+// integers; coefs becomes nil at the first that is not. Each term's
+// species' declaration index (-1 for none) is appended to idx. The terms
+// are appended to out, which has room for them. side returns out, coefs
+// and idx so appended. pre, when not nil, holds what resolveTerms found
+// for each term.
+func (c *compiler) side(terms []*lang.Term, resolved bool, pre []int32, out []Term, coefs []int64, idx []int32) ([]Term, []int64, []int32, bool) {
+	for k, t := range terms {
 		term := Term{Coef: sharedRat(1)}
 		n, small := int64(1), true
 		if t.Coef != nil {
@@ -168,18 +313,32 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 			}
 			n, small = smallInt(term.Coef)
 		}
-		if *coefs != nil {
+		if coefs != nil {
 			if small {
-				*coefs = append(*coefs, n)
+				coefs = append(coefs, n)
 			} else {
-				*coefs = nil
+				coefs = nil
 			}
 		}
-		sp := c.lookup(t.Species.Text)
-		if sp == nil {
+		var sp *Species
+		var at int32
+		if pre != nil && pre[k] >= 0 {
+			sp, at = c.net.Species[pre[k]], pre[k]
+		} else {
+			sp, at = c.lookupIndex(t.Species.Text)
+		}
+		idx = append(idx, at)
+		term.at = at + 1
+		switch {
+		case sp == nil:
 			c.undefinedSpecies(t.Species)
 			resolved = false
-		} else {
+		case c.facts != nil && at >= 0 && int(at) < len(c.facts.facts):
+			term.Species = sp
+			if !c.facts.facts[at].hasFormula {
+				resolved = false
+			}
+		default:
 			term.Species = sp
 			if !sp.HasFormula {
 				resolved = false
@@ -187,7 +346,7 @@ func (c *compiler) side(terms []*lang.Term, resolved bool, coefs *[]int64) ([]Te
 		}
 		out = append(out, term)
 	}
-	return out, resolved
+	return out, coefs, idx, resolved
 }
 
 // sharedCoefs are the whole numbers -maxSharedCoef to maxSharedCoef as

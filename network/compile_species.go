@@ -1,6 +1,7 @@
 package network
 
 import (
+	"math"
 	"strings"
 	"unicode/utf8"
 
@@ -92,10 +93,10 @@ func (c *compiler) declare(ref *lang.SpeciesRef, decl *lang.Species, broken bool
 		return nil
 	}
 	c.net.speciesByKey[sp.Key] = sp
-	if c.declared != nil {
-		c.declared[p.text] = sp
-	}
 	sp.index = len(c.net.Species)
+	if c.declared != nil && sp.index <= math.MaxInt32 {
+		c.declared[p.text] = int32(sp.index)
+	}
 	c.net.Species = append(c.net.Species, sp)
 	if parts.State != "" {
 		if ph, ok := c.net.Phases[parts.State]; ok {

@@ -20,7 +20,7 @@ func TestLookupByDeclaredText(t *testing.T) {
 		t.Fatalf("only %d networks found", len(roots))
 	}
 	check := func(name string, n *Network) {
-		c := &compiler{net: n, declared: map[string]*Species{}}
+		c := &compiler{net: n, declared: map[string]int32{}}
 		for _, f := range n.Files {
 			for _, st := range f.AST.Statements {
 				if st.Species == nil {
@@ -28,8 +28,10 @@ func TestLookupByDeclaredText(t *testing.T) {
 				}
 				for _, ref := range st.Species.Refs {
 					if ref != nil {
-						if sp := n.LookupSpecies(ref.Text); sp != nil && c.declared[ref.Text] == nil {
-							c.declared[ref.Text] = sp
+						if sp := n.LookupSpecies(ref.Text); sp != nil {
+							if _, seen := c.declared[ref.Text]; !seen {
+								c.declared[ref.Text] = int32(sp.index)
+							}
 						}
 					}
 				}

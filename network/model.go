@@ -164,9 +164,10 @@ func (r *PolyRange) Header() lang.Span {
 
 // Species is one declared species.
 type Species struct {
-	// The fields a reaction's compile and the checks read for every term
-	// come first, so that they share a cache line or two: a large network
-	// reads them hundreds of thousands of times, in no useful order.
+	// The fields the checks read for every term of every reaction come
+	// first, so that they share two cache lines: a large network reads
+	// them hundreds of thousands of times, in no useful order. (A
+	// reaction's compile reads none of them: see termFacts.)
 
 	Key        string // canonical reference, e.g. SO4^2-(aq)
 	HasFormula bool   // the formula parsed
@@ -176,31 +177,31 @@ type Species struct {
 	// Its error is reported where it was written; checks that would miss
 	// that value (missing-thermo) stay quiet rather than report the
 	// consequence.
-	BrokenData bool
-	built      bool
-	Charge     int
-	Phase      *Phase       // nil when untagged or the tag is unknown
-	index      int          // declaration order in the network
-	ints       speciesInts  // the formula in small integers
-	model      thermo.Model // built once the species is compiled; see Model
-	cover      [][2]float64 // coverage(model), built with it
+	BrokenData    bool
+	built         bool
+	Charge        int
+	Phase         *Phase // nil when untagged or the tag is unknown
+	index         int    // declaration order in the network
+	Hf, Gf, S, Cp *Value
+	Ranges        []*PolyRange
+	// derivedS is S° worked out from hf and gf (see DerivedS); p0 the
+	// network's standard pressure, which that derivation uses.
+	derivedS *Value
+	model    thermo.Model // built once the species is compiled; see Model
+
+	cover [][2]float64 // coverage(model), built with it
+	ints  speciesInts  // the formula in small integers
+	p0    float64
 
 	Parts   lang.RefParts
 	Span    lang.Span // the reference in its declaration
 	Label   string
 	Formula chem.Formula
 
-	Hf, Gf, S, Cp *Value
 	// Size is the ion-size parameter å in m (SI); Setschenow a neutral
 	// solute's salting coefficient k_s (log10 form) in kg/mol.
 	Size, Setschenow *Value
-	Ranges           []*PolyRange
 	Source, Note     string
-
-	// derivedS is S° worked out from hf and gf (see DerivedS); p0 the
-	// network's standard pressure, which that derivation uses.
-	derivedS *Value
-	p0       float64
 }
 
 // Term is one species with its exact coefficient on one side of a reaction.
@@ -208,10 +209,28 @@ type Species struct {
 // change it in place. Where a term was written is in the reaction's
 // syntax tree (Reaction.Equation spans them all): a network holds
 // hundreds of thousands of terms, which checks walk again and again, so
-// a term keeps only these two words.
+// a term keeps only these three words.
 type Term struct {
 	Coef    *big.Rat
 	Species *Species // nil when undefined
+	// at is the species' declaration index plus one, as the compiler
+	// found it, so that a check can read what it worked out per species
+	// from an array without reading the species; 0 when not known.
+	// termIndex checks it against the network before use.
+	at int32
+}
+
+// termIndex is the declaration index of t's species among list (a
+// network's species), read from the term when it holds a valid one, else
+// from the species; -1 when the species is not one of list's.
+func termIndex(list []*Species, t Term) int {
+	if i := int(t.at) - 1; i >= 0 && i < len(list) && list[i] == t.Species {
+		return i
+	}
+	if t.Species != nil && declaredIn(list, t.Species) {
+		return t.Species.index
+	}
+	return -1
 }
 
 // ComboTerm is one weighted reaction of a coupled reaction's combination.

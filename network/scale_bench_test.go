@@ -2,7 +2,9 @@ package network
 
 import (
 	"fmt"
+	"os"
 	"path"
+	"slices"
 	"testing"
 
 	"hess/synth"
@@ -46,13 +48,25 @@ func shapeSource(tb testing.TB, shape synth.Shape, species, reactions int) (root
 // large network with only 5 000 reactions, where the species dominate.
 var scaleSizes = []struct{ species, reactions int }{{1000, 5000}, {10000, 50000}, {10000, 5000}}
 
+// largeScaleSize is the size BenchmarkLoadSynthetic adds when the
+// environment sets HESS_BENCH_LARGE=1: 40 000 species with 200 000
+// reactions, four times the large network, to see whether the compile
+// grows linearly (a minute or so per shape to generate and compile;
+// run it with -benchtime 3x).
+var largeScaleSize = struct{ species, reactions int }{40000, 200000}
+
 // BenchmarkLoadSynthetic is a full compile with every check of generated
-// networks of both shapes (synth.Spread, synth.Mechanism) at scaleSizes.
-// ns/reaction is the cost per reaction, whose ratio between the sizes shows
-// how the compiler scales.
+// networks of both shapes (synth.Spread, synth.Mechanism) at scaleSizes,
+// and at largeScaleSize when HESS_BENCH_LARGE=1. ns/reaction is the cost
+// per reaction, whose ratio between the sizes shows how the compiler
+// scales.
 func BenchmarkLoadSynthetic(b *testing.B) {
+	sizes := scaleSizes
+	if os.Getenv("HESS_BENCH_LARGE") == "1" {
+		sizes = append(slices.Clone(sizes), largeScaleSize)
+	}
 	for _, shape := range []synth.Shape{synth.Spread, synth.Mechanism} {
-		for _, size := range scaleSizes {
+		for _, size := range sizes {
 			b.Run(fmt.Sprintf("%v/sp=%d/rx=%d", shape, size.species, size.reactions), func(b *testing.B) {
 				benchLoad(b, shape, size.species, size.reactions)
 			})

@@ -253,18 +253,34 @@ func addSpeciesCount(cs []speciesCount, sp *Species, n int64) []speciesCount {
 // intKey encodes nonzero integer net coefficients: a tag byte, then each
 // species' declaration index and coefficient as varints, in index order.
 func intKey(cs []speciesCount) (string, bool) {
+	var buf [12]indexCount
+	ics := buf[:0]
+	for _, c := range cs {
+		ics = append(ics, indexCount{index: c.sp.index, n: c.n})
+	}
+	return indexKey(ics)
+}
+
+// indexCount is a species' net coefficient by declaration index.
+type indexCount struct {
+	index int
+	n     int64
+}
+
+// indexKey is intKey of nonzero coefficients given by declaration index.
+func indexKey(cs []indexCount) (string, bool) {
 	if len(cs) == 0 {
 		return "", false
 	}
-	slices.SortFunc(cs, func(a, b speciesCount) int { return a.sp.index - b.sp.index })
+	slices.SortFunc(cs, func(a, b indexCount) int { return a.index - b.index })
 	sign := int64(1)
 	if cs[0].n < 0 {
 		sign = -1
 	}
-	b := make([]byte, 1, 1+len(cs)*4)
-	b[0] = 'i'
+	var buf [64]byte // room for most keys, so that only the string is allocated
+	b := append(buf[:0], 'i')
 	for _, c := range cs {
-		b = binary.AppendUvarint(b, uint64(c.sp.index))
+		b = binary.AppendUvarint(b, uint64(c.index))
 		b = binary.AppendVarint(b, sign*c.n)
 	}
 	return string(b), sign < 0

@@ -54,7 +54,7 @@ func speciesGiveDeltaG(rx *Reaction, temps []float64, known *givesG) bool {
 			if t.Species == nil || t.Coef == nil || t.Coef.Sign() == 0 {
 				return false
 			}
-			if !known.of(t.Species, temps) {
+			if !known.ofTerm(t, temps) {
 				return false
 			}
 		}
@@ -87,6 +87,23 @@ func (g *givesG) of(sp *Species, temps []float64) bool {
 		}
 	}
 	return g.answer[i] > 0
+}
+
+// ofTerm is of for a term's species, found by the index the term holds.
+func (g *givesG) ofTerm(t Term, temps []float64) bool {
+	if i := termIndex(g.species, t); i >= 0 && g.answer[i] != 0 {
+		return g.answer[i] > 0
+	}
+	return g.of(t.Species, temps)
+}
+
+// fill works out the answer for every species of the network, in
+// declaration order: the species and their models lie in memory nearly in
+// that order, where a walk through the reactions reaches them in none.
+func (g *givesG) fill(temps []float64) {
+	for _, sp := range g.species {
+		g.of(sp, temps)
+	}
 }
 
 // modelGivesG reports whether m holds beyond 298.15 K and gives a finite
