@@ -225,9 +225,14 @@ func sameSpecies(n *Network, sp *Species) *Species {
 // copy shares nothing that may change: terms, values, logk and rates are
 // copied; coefficients are shared, as they are never changed in place.
 func copyReaction(rx *Reaction) *Reaction {
-	out := *rx
-	out.Left = slices.Clone(rx.Left)
-	out.Right = slices.Clone(rx.Right)
+	out, terms := newReaction(len(rx.Left) + len(rx.Right)) // one allocation, as a build makes
+	*out = *rx
+	if rx.Left != nil {
+		out.Left = append(terms[:0:len(rx.Left)], rx.Left...)
+	}
+	if rx.Right != nil {
+		out.Right = append(terms[len(rx.Left):len(rx.Left):len(terms)], rx.Right...)
+	}
 	out.Dg, out.Dh, out.Ds = copyValue(rx.Dg), copyValue(rx.Dh), copyValue(rx.Ds)
 	out.LogK = slices.Clone(rx.LogK)
 	if rx.Rate != nil {
@@ -238,7 +243,7 @@ func copyReaction(rx *Reaction) *Reaction {
 		r := *rx.Reverse
 		out.Reverse = &r
 	}
-	return &out
+	return out
 }
 
 func copyValue(v *Value) *Value {
