@@ -23,17 +23,22 @@ import (
 // less and the memory is small anyway.
 //
 // Measured with BenchmarkLSPEditStdio in cmd/hess, which sends the next
-// edit as soon as the last one's diagnostics arrive: on the
-// 50 000-reaction network in four files (heap 250–300 MiB after a cycle)
-// the peak fell from 450–490 MiB to 325 MiB and the median edit rose from
-// 140–162 ms to 177–182 ms; rules that collected only when the heap had
-// grown by half since the last collection, or when the next cycle would
-// pass the runtime's goal, let the runtime collect during compiles again
-// (380–460 MiB).
+// edit as soon as the last one's diagnostics arrive (2 cores, quiet,
+// three or five rounds of 24 edits): on the 50 000-reaction network in
+// four files, whose heap after a cycle holds 250–300 MiB, the peak is
+// 303–310 MiB with a collection after each cycle above 192 MiB, 362–376
+// MiB above 256 MiB, and was 450–490 MiB with none, the median edit 147–
+// 165 ms, 130–155 ms and 140–162 ms; on the 10 000-species file the
+// median is 30–41 ms above 192 MiB and 32–46 ms above 256 MiB. Rules that
+// collected only when the heap had grown by half since the last
+// collection, or when the next cycle would pass the runtime's goal, let
+// the runtime collect during compiles again (380–460 MiB).
 
 // collectAbove is the heap, in bytes, above which the server collects
-// after each cycle.
-const collectAbove = 256 << 20
+// after each cycle: well above the whole memory of a server on a network
+// of a few thousand species and reactions (under 70 MiB at 1 000 species
+// and 5 000 reactions), which the runtime's pacing serves best.
+const collectAbove = 192 << 20
 
 // collecting is set while a collection started by collectAfterCycle runs.
 var collecting atomic.Bool
