@@ -64,7 +64,7 @@ func (s *store) saved(uri string, text *string) bool {
 		return false
 	}
 	if text != nil {
-		s.docs[path].text = []byte(*text)
+		s.docs[path].text, s.docs[path].ix = []byte(*text), nil
 	}
 	s.change++
 	return true
@@ -90,7 +90,7 @@ func (s *store) edit(uri string, version int32, changes []TextDocumentContentCha
 			text, ix = []byte(c.Text), nil
 			continue
 		}
-		if ix == nil {
+		if ix == nil || !sameBytes(ix.text, text) {
 			ix = newLines(text)
 		}
 		from, to := ix.offset(c.Range.Start, enc), ix.offset(c.Range.End, enc)

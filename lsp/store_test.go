@@ -90,3 +90,23 @@ func TestFormatEdits(t *testing.T) {
 		}
 	}
 }
+
+// TestStoreEditAfterSave checks that a text sent with a save replaces the
+// line index kept from the edits before it: an edit after the save finds
+// its range in the saved text.
+func TestStoreEditAfterSave(t *testing.T) {
+	s := newStore()
+	const uri = "file:///tmp/x.hess"
+	s.open(uri, "/tmp/x.hess", 1, []byte("species A(g)\nspecies B(g)\n"))
+	if err := s.edit(uri, 2, []TextDocumentContentChangeEvent{{Range: &Range{Start: pos(1, 8), End: pos(1, 9)}, Text: "C"}}, encUTF16); err != nil {
+		t.Fatal(err)
+	}
+	saved := "# header line\n\nspecies A(g)\nspecies C(g)\n"
+	s.saved(uri, &saved)
+	if err := s.edit(uri, 3, []TextDocumentContentChangeEvent{{Range: &Range{Start: pos(3, 8), End: pos(3, 9)}, Text: "D"}}, encUTF16); err != nil {
+		t.Fatal(err)
+	}
+	if d, _ := s.get("/tmp/x.hess"); string(d.text) != "# header line\n\nspecies A(g)\nspecies D(g)\n" {
+		t.Errorf("after a save and an edit: %q", d.text)
+	}
+}
