@@ -327,3 +327,27 @@ func TestReparseManyBrokenStatements(t *testing.T) {
 		t.Errorf("lexed %d bytes (re-parse %v) for a statement added at the end", c.lexed, c.partial)
 	}
 }
+
+// TestReparseLargeEditParsesWhole changes the first and the last
+// statement of a 512 kB file in one edit: the edit spans more than
+// maxReparseWindow, so the file is parsed whole (in parallel) rather than
+// lexed on one goroutine.
+func TestReparseLargeEditParsesWhole(t *testing.T) {
+	src, _ := generateNetwork(512 << 10)
+	c := NewCache()
+	checkReparse(t, c, src)
+	first := bytes.Index(src, []byte("species S")) + len("species S")
+	last := bytes.LastIndex(src, []byte("reaction r")) + len("reaction r")
+	edited := bytes.Clone(src)
+	edited[first], edited[last] = 'Z', 'Z'
+	checkReparse(t, c, edited)
+	if c.partial {
+		t.Errorf("an edit of %d bytes was re-parsed on one goroutine", last-first)
+	}
+	// A small edit after it is re-parsed again.
+	edited[last] = 'Y'
+	checkReparse(t, c, edited)
+	if !c.partial {
+		t.Error("a one-byte edit was parsed whole")
+	}
+}
