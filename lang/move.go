@@ -21,16 +21,22 @@ import (
 // the moved trees got faster (on the generated mechanism of
 // BenchmarkMoveStatements).
 func moved(st *Statement, src *Source, at int) *Statement {
+	return newMover(st, src, at).statement(st)
+}
+
+// newMover is the mover of st to offset at of src, with st's tokens (and
+// the one after them) already copied into the new group.
+func newMover(st *Statement, src *Source, at int) *mover {
 	old, first := st.g, int(st.start)
 	last := min(int(st.end)+1, len(old.toks))
-	m := mover{old: old, first: first, dOff: at - int(old.toks[first].Offset), src: src}
+	m := &mover{old: old, first: first, dOff: at - int(old.toks[first].Offset), src: src}
 	m.g = &tokenGroup{src: src, toks: make([]Token, last-first)}
 	for i, t := range old.toks[first:last] {
 		t.Offset += int32(m.dOff)
 		t.Value = m.rebase(t.Value)
 		m.g.toks[i] = t
 	}
-	return m.statement(st)
+	return m
 }
 
 type mover struct {

@@ -21,62 +21,18 @@ import (
 // reflectMoved is the reference for moved: the copier that walks the
 // syntax tree by reflection, as the statement cache first moved
 // statements. It knows no node type by name, so it copies every field the
-// tree has or will have; moved must give exactly what it gives.
+// tree has or will have; moved must give exactly what it gives. It shares
+// moved's copy of the tokens and its moves of one node, position and
+// string (mover), which the comparison checks on their own (checkNode,
+// checkString).
 func reflectMoved(st *Statement, src *Source, at int) *Statement {
-	old, first := st.g, int(st.start)
-	last := min(int(st.end)+1, len(old.toks))
-	m := reflectMover{old: old, first: first, dOff: at - int(old.toks[first].Offset), src: src}
-	m.g = &tokenGroup{src: src, toks: make([]Token, last-first)}
-	for i, t := range old.toks[first:last] {
-		t.Offset += int32(m.dOff)
-		t.Value = m.rebase(t.Value)
-		m.g.toks[i] = t
-	}
+	m := reflectMover{newMover(st, src, at)}
 	out := reflect.New(reflect.TypeFor[Statement]())
 	m.copyStruct(out.Elem(), reflect.ValueOf(st).Elem())
 	return out.Interface().(*Statement)
 }
 
-type reflectMover struct {
-	old, g *tokenGroup
-	first  int
-	dOff   int
-	src    *Source
-}
-
-func (m *reflectMover) rebase(s string) string {
-	old := m.old.src.text
-	if len(s) == 0 || len(old) == 0 {
-		return s
-	}
-	p, base := uintptr(unsafe.Pointer(unsafe.StringData(s))), uintptr(unsafe.Pointer(unsafe.StringData(old)))
-	if p < base || p-base+uintptr(len(s)) > uintptr(len(old)) {
-		return s
-	}
-	at := int(p-base) + m.dOff
-	if at < 0 || at+len(s) > len(m.src.text) || m.src.text[at:at+len(s)] != s {
-		return s
-	}
-	return m.src.text[at : at+len(s)]
-}
-
-func (m *reflectMover) pos(p lexer.Position) lexer.Position {
-	if p.Line == 0 {
-		return p
-	}
-	return m.src.position(p.Offset + m.dOff)
-}
-
-func (m *reflectMover) node(n Node) Node {
-	if n.g != m.old {
-		return Node{}
-	}
-	start, end := int(n.start)-m.first, int(n.end)-m.first
-	if start < 0 || end > len(m.g.toks) || start > end {
-		return Node{}
-	}
-	return Node{g: m.g, start: int32(start), end: int32(end)}
-}
+type reflectMover struct{ *mover }
 
 func (m *reflectMover) copyStruct(dst, src reflect.Value) {
 	for i := 0; i < src.NumField(); i++ {
