@@ -78,7 +78,7 @@ func (rx *Reaction) smallNetTerms() (out []NetTerm, ok bool) {
 	}
 	for _, c := range cs {
 		if c.n != 0 {
-			out = append(out, NetTerm{Species: c.sp, Nu: sharedRat(c.n)})
+			out = append(out, NetTerm{Species: c.key, Nu: sharedRat(c.n)})
 		}
 	}
 	return out, true
@@ -99,7 +99,7 @@ func (rx *Reaction) smallNetCounts(cs []speciesCount) ([]speciesCount, bool) {
 			if !isInt {
 				return cs, false
 			}
-			cs = addSpeciesCount(cs, t.Species, sign*n)
+			cs = addCount(cs, t.Species, sign*n)
 		}
 	}
 	return cs, true
@@ -120,7 +120,7 @@ func (rx *Reaction) netSpecies(buf []*Species) []*Species {
 	}
 	for _, c := range cs {
 		if c.n != 0 {
-			buf = append(buf, c.sp)
+			buf = append(buf, c.key)
 		}
 	}
 	return buf

@@ -25,21 +25,28 @@ func smallInt(r *big.Rat) (int64, bool) {
 	return v, true
 }
 
-// symbolCount is an element's or a species' count in integer arithmetic.
-type symbolCount struct {
-	key string
+// count is a count in integer arithmetic of an element, a species or a
+// declaration index (key): the few of one formula or one reaction, kept
+// in a short list.
+type count[K comparable] struct {
+	key K
 	n   int64
 }
 
-func addSymbolCount(cs []symbolCount, key string, n int64) []symbolCount {
+// addCount adds n to key's count in cs, appending key when it is not
+// there yet.
+func addCount[K comparable](cs []count[K], key K, n int64) []count[K] {
 	for i := range cs {
 		if cs[i].key == key {
 			cs[i].n += n
 			return cs
 		}
 	}
-	return append(cs, symbolCount{key, n})
+	return append(cs, count[K]{key, n})
 }
+
+// symbolCount is an element's count by symbol.
+type symbolCount = count[string]
 
 // intCoefficients returns the reaction's coefficients, left side then
 // right, when all are small integers.
@@ -80,7 +87,7 @@ func intBalance(rx *Reaction, coefs []int64) (elements, charge, ok bool) {
 			}
 			q += c * int64(t.Species.Charge)
 			for _, ec := range counts {
-				cs = addSymbolCount(cs, ec.key, c*ec.n)
+				cs = addCount(cs, ec.key, c*ec.n)
 			}
 		}
 	}
@@ -207,11 +214,8 @@ func (rx *Reaction) facts() stoichFacts {
 	return factsOf(rx)
 }
 
-// speciesCount is a species' net coefficient in integer arithmetic.
-type speciesCount struct {
-	sp *Species
-	n  int64
-}
+// speciesCount is a species' net coefficient.
+type speciesCount = count[*Species]
 
 // intNetKey returns a canonical encoding of the reaction's net equation
 // (products positive, species written on both sides cancelled), given its
@@ -233,21 +237,11 @@ func intNetKey(rx *Reaction, coefs []int64) (string, bool) {
 			if t.Species == nil {
 				return netKeyRat(rx)
 			}
-			cs = addSpeciesCount(cs, t.Species, sign*c)
+			cs = addCount(cs, t.Species, sign*c)
 		}
 	}
 	cs = slices.DeleteFunc(cs, func(c speciesCount) bool { return c.n == 0 })
 	return intKey(cs)
-}
-
-func addSpeciesCount(cs []speciesCount, sp *Species, n int64) []speciesCount {
-	for i := range cs {
-		if cs[i].sp == sp {
-			cs[i].n += n
-			return cs
-		}
-	}
-	return append(cs, speciesCount{sp, n})
 }
 
 // intKey encodes nonzero integer net coefficients: a tag byte, then each
@@ -256,23 +250,20 @@ func intKey(cs []speciesCount) (string, bool) {
 	var buf [12]indexCount
 	ics := buf[:0]
 	for _, c := range cs {
-		ics = append(ics, indexCount{index: c.sp.index, n: c.n})
+		ics = append(ics, indexCount{key: c.key.index, n: c.n})
 	}
 	return indexKey(ics)
 }
 
 // indexCount is a species' net coefficient by declaration index.
-type indexCount struct {
-	index int
-	n     int64
-}
+type indexCount = count[int]
 
 // indexKey is intKey of nonzero coefficients given by declaration index.
 func indexKey(cs []indexCount) (string, bool) {
 	if len(cs) == 0 {
 		return "", false
 	}
-	slices.SortFunc(cs, func(a, b indexCount) int { return a.index - b.index })
+	slices.SortFunc(cs, func(a, b indexCount) int { return a.key - b.key })
 	sign := int64(1)
 	if cs[0].n < 0 {
 		sign = -1
@@ -280,7 +271,7 @@ func indexKey(cs []indexCount) (string, bool) {
 	var buf [64]byte // room for most keys, so that only the string is allocated
 	b := append(buf[:0], 'i')
 	for _, c := range cs {
-		b = binary.AppendUvarint(b, uint64(c.index))
+		b = binary.AppendUvarint(b, uint64(c.key))
 		b = binary.AppendVarint(b, sign*c.n)
 	}
 	return string(b), sign < 0

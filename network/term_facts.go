@@ -104,9 +104,9 @@ func (tf *termFacts) stoich(rx *Reaction, coefs []int64, idx []int32) stoichFact
 		// positive); the key counts products positive.
 		q += c * int64(f.charge)
 		for _, ec := range tf.counts[f.at : f.at+uint32(f.n)] {
-			es = addElementCount(es, ec.elem, c*int64(ec.count))
+			es = addCount(es, ec.elem, c*int64(ec.count))
 		}
-		ss = addIndexCount(ss, int(at), -c)
+		ss = addCount(ss, int(at), -c)
 	}
 	st := stoichFacts{known: true, intOK: true, elements: true, charge: q == 0}
 	for _, e := range es {
@@ -119,27 +119,5 @@ func (tf *termFacts) stoich(rx *Reaction, coefs []int64, idx []int32) stoichFact
 	return st
 }
 
-type elementCount struct {
-	elem uint16
-	n    int64
-}
-
-func addElementCount(es []elementCount, e uint16, n int64) []elementCount {
-	for i := range es {
-		if es[i].elem == e {
-			es[i].n += n
-			return es
-		}
-	}
-	return append(es, elementCount{e, n})
-}
-
-func addIndexCount(cs []indexCount, at int, n int64) []indexCount {
-	for i := range cs {
-		if cs[i].index == at {
-			cs[i].n += n
-			return cs
-		}
-	}
-	return append(cs, indexCount{at, n})
-}
+// elementCount is an element's count by element number.
+type elementCount = count[uint16]
