@@ -34,6 +34,11 @@ type Cache struct {
 // maxSourceAge parses.
 const maxSourceAge = 8
 
+// outlived reports whether a statement resolving through s, shared into
+// the parse of latest, is to be copied onto latest's text instead (see
+// maxSourceAge).
+func (s *Source) outlived(latest *Source) bool { return s.gen+maxSourceAge < latest.gen }
+
 // generation is the number of the parse under way.
 func (c *Cache) generation() int {
 	c.mu.Lock()
@@ -148,7 +153,7 @@ func (c *Cache) lookup(k cacheKey, src *Source, at int) *Statement {
 		return nil
 	}
 	if first, _ := st.at(); int(first.Offset) != at || st.Source().Name() != src.Name() || st.Source().Pos(at).Line != src.Pos(at).Line ||
-		st.Source().gen+maxSourceAge < src.gen {
+		st.Source().outlived(src) {
 		st = moved(st, src, at)
 	}
 	c.mu.Lock()

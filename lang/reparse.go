@@ -245,7 +245,7 @@ func (o *reparsed) keep(ch chunkRecord, delta int, check bool) {
 	st := ch.st
 	if st != nil {
 		old := st.Source()
-		if delta != 0 || old.gen+maxSourceAge < o.src.gen || old.Name() != o.src.Name() ||
+		if delta != 0 || old.outlived(o.src) || old.Name() != o.src.Name() ||
 			(check && old.Pos(int(ch.start)) != o.src.Pos(at)) {
 			st = moved(st, o.src, at)
 		}
