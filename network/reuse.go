@@ -16,8 +16,9 @@ import (
 // network declares: which keys, in which order, with which formula and
 // charge (lookups, the balance facts, the hints of undefined-species). The
 // parse caches hand out the same *lang.Statement for a statement whose
-// text, file and place did not change, so a compile keyed by that pointer
-// and by a signature of the declared species (speciesEnv) is exactly what
+// text, file and place did not change (and a copy with the same lineage
+// for one an edit moved), so a compile found by that statement, under the
+// same signature of the declared species (speciesEnv), is exactly what
 // compiling the statement again would give. Everything else a reaction
 // depends on (other reactions: names, combinations, duplicates) is worked
 // out after the build, in the serial passes, every time.
@@ -55,7 +56,7 @@ type compileMemo struct {
 // made it: its rx is the network's own, which nothing changes after the
 // build but the combination pass (rx.Combo, cleared in every copy taken).
 // Its species are those of the network it was built for; a copy for
-// another network finds them again by key.
+// another network finds them again by declaration index (sameSpecies).
 type memoReaction struct {
 	st    *lang.Statement // the statement it was built from
 	built builtReaction
